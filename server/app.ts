@@ -1,0 +1,47 @@
+/**
+ * The Fastify application factory. `buildApp()` wires plugins; `main.ts` only listens, so tests
+ * drive the app with `inject`. Each feature is one plugin under `/api/v1/<feature>`.
+ */
+import Fastify, { type FastifyInstance } from 'fastify';
+import { installErrorHandling } from './error-handling';
+import { healthRoutes } from './routes/health';
+import { evaluateRoutes } from './routes/evaluate';
+import { openapiRoutes } from './routes/openapi';
+import { designRoutes } from './routes/design';
+import { scenarioRoutes } from './routes/scenarios';
+import { linkRoutes } from './routes/links';
+import { clientStatic } from './routes/client-static';
+
+export interface AppOptions {
+  /** Folder for stored scenarios (SQLite). Default `./data`; ':memory:' keeps nothing on disk. */
+  dataDir?: string;
+  /** Fastify logger option; default off in tests, on in `main.ts`. */
+  logger?: boolean | object;
+  /** Largest accepted request body, bytes. Default 8 MiB. */
+  bodyLimit_bytes?: number;
+  /** Largest grid an evaluate request may ask for, nodes. Default 250 000. */
+  maxGridNodes?: number;
+  /** Serve the built web client from this folder. Default `client/dist` when it exists. */
+  clientDir?: string | false;
+}
+
+export const DEFAULT_BODY_LIMIT_BYTES = 8 * 1024 * 1024;
+export const DEFAULT_MAX_GRID_NODES = 250_000;
+
+export async function buildApp(options: AppOptions = {}): Promise<FastifyInstance> {
+  const app = Fastify({
+    logger: options.logger ?? false,
+    bodyLimit: options.bodyLimit_bytes ?? DEFAULT_BODY_LIMIT_BYTES,
+    ajv: { customOptions: { allErrors: false, coerceTypes: false, removeAdditional: false } },
+  });
+  installErrorHandling(app);
+  const maxGridNodes = options.maxGridNodes ?? DEFAULT_MAX_GRID_NODES;
+  await app.register(healthRoutes, { prefix: '/api/v1' });
+  await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes });
+  await app.register(designRoutes, { prefix: '/api/v1' });
+  await app.register(scenarioRoutes, { prefix: '/api/v1', dataDir: options.dataDir ?? 'data' });
+  await app.register(linkRoutes, { prefix: '/api/v1' });
+  await app.register(openapiRoutes, { prefix: '/api/v1' });
+  if (options.clientDir !== false) await app.register(clientStatic, { clientDir: options.clientDir });
+  return app;
+}

@@ -1,0 +1,103 @@
+/**
+ * The one table of errors drydig reports, with stable codes, HTTP status and a how-to-fix line.
+ *
+ * The server maps every failure to one of these; the CLI prints `code: message` and exits 2;
+ * the client shows `message` and `fix`. A test keeps this table and the README's list in sync.
+ * Add rows; never change the meaning of an existing code.
+ */
+export const ERROR_TABLE = {
+  DRYDIG_ERR_INVALID_SCENARIO: {
+    status: 400,
+    title: 'The scenario is not valid',
+    fix: 'Correct the field named in the message; see the scenario format in the README.',
+  },
+  DRYDIG_ERR_INVALID_REQUEST: {
+    status: 400,
+    title: 'The request body or parameters are not valid',
+    fix: 'Correct the field named in the message; see /api/v1/openapi.json.',
+  },
+  DRYDIG_ERR_MALFORMED_JSON: {
+    status: 400,
+    title: 'The body is not well-formed JSON',
+    fix: 'Send a JSON document with Content-Type: application/json.',
+  },
+  DRYDIG_ERR_BODY_TOO_LARGE: {
+    status: 413,
+    title: 'The request body is larger than the limit',
+    fix: 'Send fewer points or a smaller scenario, or raise the limit with --body-limit.',
+  },
+  DRYDIG_ERR_GRID_TOO_LARGE: {
+    status: 400,
+    title: 'The requested grid has more nodes than the limit',
+    fix: 'Use fewer nodes (coarser spacing) or evaluate in tiles.',
+  },
+  DRYDIG_ERR_UNSUPPORTED_BOUNDARIES: {
+    status: 400,
+    title: 'The boundary geometry is not one the image-well method handles',
+    fix: 'Use one straight line, two perpendicular lines, or two parallel lines, with all wells on one side.',
+  },
+  DRYDIG_ERR_UNSUPPORTED_MEDIA_TYPE: {
+    status: 415,
+    title: 'The body must be JSON',
+    fix: 'Send Content-Type: application/json.',
+  },
+  DRYDIG_ERR_NOT_FOUND: {
+    status: 404,
+    title: 'Nothing is stored at that address',
+    fix: 'Check the id or token; list what exists with GET /api/v1/scenarios.',
+  },
+  DRYDIG_ERR_RATE_LIMITED: {
+    status: 429,
+    title: 'Too many requests',
+    fix: 'Wait a moment and try again.',
+  },
+  DRYDIG_ERR_CLI_USAGE: {
+    status: 400,
+    title: 'The command line is not valid',
+    fix: 'Run `drydig --help` for the commands and their options.',
+  },
+  DRYDIG_ERR_FILE: {
+    status: 400,
+    title: 'A file could not be read',
+    fix: 'Check the path and that the file is readable JSON or CSV.',
+  },
+  DRYDIG_ERR_INTERNAL: {
+    status: 500,
+    title: 'An unexpected error (a bug in drydig)',
+    fix: 'Report it with the request that caused it; nothing was stored.',
+  },
+} as const satisfies Record<string, { status: number; title: string; fix: string }>;
+
+export type ErrorCode = keyof typeof ERROR_TABLE;
+
+/** One problem with an input, located by its JSON pointer (RFC 6901), e.g. `/aquifer/storativity`. */
+export interface FieldIssue {
+  /** JSON pointer of the offending field ('' for the whole document). */
+  path: string;
+  /** What is wrong, in words a designer understands. */
+  message: string;
+}
+
+/** An error carrying a stable code; thrown by the engine and the server's validators. */
+export class DrydigError extends Error {
+  readonly code: ErrorCode;
+  readonly issues: FieldIssue[];
+  constructor(code: ErrorCode, message: string, issues: FieldIssue[] = []) {
+    super(message);
+    this.name = 'DrydigError';
+    this.code = code;
+    this.issues = issues;
+  }
+  get status(): number {
+    return ERROR_TABLE[this.code].status;
+  }
+}
+
+/** One-line summary of field issues: "/aquifer/storativity: required for a confined aquifer (+2 more)". */
+export function summariseIssues(issues: FieldIssue[], prefix = ''): string {
+  const first = issues[0];
+  if (!first) return 'invalid input';
+  const where = `${prefix}${first.path}` || '(document)';
+  const more = issues.length > 1 ? ` (+${issues.length - 1} more)` : '';
+  return `${where}: ${first.message}${more}`;
+}

@@ -1,0 +1,3 @@
+export * from './scenario-schema';
+export * from './validate-scenario';
+export * from './error-table';

@@ -1,0 +1,4 @@
+export * from './unit-definitions';
+export * from './convert-unit';
+export * from './display-units';
+export * from './format-quantity';

@@ -12,13 +12,16 @@ import type { Scenario } from '../schema';
  * - `beyond-influence-radius`: steady run, point farther than R from every source (drawdown 0 by assumption).
  * - `confined-to-unconfined`: confined/leaky head drawn below the aquifer top (aquifer turns unconfined).
  * - `within-well-radius`: point closer than r_w to a well; evaluated at r_w.
+ * - `beyond-boundary`: point on the far side of a straight boundary, outside the modelled aquifer
+ *   (reported at the static level, drawdown 0: the image method says nothing about that side).
  */
 export type PointFlag =
   | 'dewatered'
   | 'large-drawdown'
   | 'beyond-influence-radius'
   | 'confined-to-unconfined'
-  | 'within-well-radius';
+  | 'within-well-radius'
+  | 'beyond-boundary';
 
 /** Bit of each flag in grid flag masks (`GridResult.flags`). */
 export const FLAG_BITS: Readonly<Record<PointFlag, number>> = {
@@ -27,6 +30,7 @@ export const FLAG_BITS: Readonly<Record<PointFlag, number>> = {
   'beyond-influence-radius': 4,
   'confined-to-unconfined': 8,
   'within-well-radius': 16,
+  'beyond-boundary': 32,
 };
 
 /** The published method the engine applied, and the assumptions it used. */

@@ -1,0 +1,3 @@
+export * from './theis-well-function';
+export * from './bessel-k0';
+export * from './hantush-well-function';

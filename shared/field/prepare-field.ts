@@ -1,0 +1,86 @@
+/**
+ * Everything an evaluation needs before it touches a point: the model, the boundary geometry,
+ * the image-series truncation with its bound, the flat source list and the ModelInfo to report.
+ */
+import type { Scenario } from '../schema';
+import { resolveFieldModel, formatMetres, type FieldModel } from './field-model';
+import { chooseParallelTerms, countImagesPerWell, resolveBoundaryGeometry, type BoundaryGeometry } from './image-wells';
+import { buildSourceSet, getMaxUnitResponse, getModelRateSteps, type SourceSet } from './source-set';
+import type { RateStep } from './rate-steps';
+import type { ModelInfo } from './types';
+
+/** A field ready to evaluate. */
+export interface PreparedField {
+  scenario: Scenario;
+  model: FieldModel;
+  geometry: BoundaryGeometry;
+  /** Parallel boundaries: terms N per side. */
+  terms: number;
+  sources: SourceSet;
+  info: ModelInfo;
+}
+
+/** Options of {@link prepareField}. */
+export interface PrepareFieldOptions {
+  scenario: Scenario;
+  /** Undefined: the design time; null: steady state. */
+  time_s?: number | null;
+  /** Override of the rate steps of well i (unit responses); default: the scenario's rates. */
+  stepsOf?: (wellIndex: number) => RateStep[];
+  /** Rate scale for the truncation bound, m³/s; default Σ|ΔQ| of the steps used. */
+  boundRate_m3_s?: number;
+}
+
+/** Prepares a field; throws DrydigError naming the field for unusable input. */
+export function prepareField({ scenario, time_s, stepsOf, boundRate_m3_s }: PrepareFieldOptions): PreparedField {
+  const model = resolveFieldModel({ scenario, time_s });
+  const geometry = resolveBoundaryGeometry(scenario);
+  const steps = stepsOf ?? ((i: number) => getModelRateSteps(scenario, model, i));
+  const notes = [...model.notes];
+
+  let terms = 0;
+  let bound: number | undefined;
+  if (geometry.configuration === 'parallel') {
+    let total = 0;
+    const t = model.time_s;
+    scenario.wells.forEach((_, i) => {
+      for (const s of steps(i)) if (t === null || s.from_s < t) total += Math.abs(s.deltaRate_m3_s);
+    });
+    const choice = chooseParallelTerms({
+      spacing_m: geometry.spacing_m!,
+      maxUnitResponseAt: getMaxUnitResponse(model),
+      totalAbsRate_m3_s: boundRate_m3_s ?? total,
+    });
+    terms = choice.terms;
+    bound = choice.bound_m;
+    const variable = model.variable === 'discharge-potential' ? 'discharge potential s_c' : 'drawdown';
+    notes.push(
+      `Two parallel boundaries ${formatMetres(geometry.spacing_m!)} m apart: image series of ${4 * terms} images per well; leaving out the rest changes the ${variable} by at most ${bound.toExponential(2)} m anywhere in the strip (Ferris et al. 1962 images, bound by the triangle inequality).`,
+    );
+    if (model.variable === 'discharge-potential') {
+      notes.push('For the unconfined level the truncation error is the bound times H/(H − s): at most twice the bound where drawdown is under half the saturated thickness.');
+    }
+    if (bound > 0.01) notes.push('The truncation bound exceeds 1 cm: the strip is narrow for the reach of the drawdown; treat levels as rough.');
+  }
+  if (geometry.configuration !== 'none') {
+    const kinds = geometry.lines.map((l) => `${l.kind} (/boundaries/${l.index})`).join(' and ');
+    notes.push(
+      `Straight boundaries by image wells (Ferris et al. 1962, USGS WSP 1536-E): ${kinds}; each line is taken as infinite and fully penetrating. Points across a line are outside the modelled aquifer (flag "beyond-boundary").`,
+    );
+    if (geometry.angleDeviation_deg !== undefined && geometry.angleDeviation_deg > 1e-9) {
+      notes.push(`The two lines are ${geometry.angleDeviation_deg.toFixed(3)}° off exactly ${geometry.configuration}; the images treat them as exact.`);
+    }
+  }
+
+  const sources = buildSourceSet({ scenario, model, geometry, terms, stepsOf: steps });
+  const info: ModelInfo = {
+    method: model.method,
+    transmissivity_m2_s: model.transmissivity_m2_s,
+    imagesPerWell: countImagesPerWell(geometry, terms),
+    notes,
+  };
+  if (model.influenceRadius_m !== undefined) info.influenceRadius_m = model.influenceRadius_m;
+  if (model.influenceRadiusSource !== undefined) info.influenceRadiusSource = model.influenceRadiusSource;
+  if (bound !== undefined) info.truncationBound_m = bound;
+  return { scenario, model, geometry, terms, sources, info };
+}

@@ -6,11 +6,12 @@ import Fastify, { type FastifyInstance } from 'fastify';
 import { installErrorHandling } from './error-handling';
 import { healthRoutes } from './routes/health';
 import { evaluateRoutes } from './routes/evaluate';
-import { openapiRoutes } from './routes/openapi';
+import { installRouteCatalog, openapiRoutes } from './routes/openapi';
 import { designRoutes } from './routes/design';
 import { scenarioRoutes } from './routes/scenarios';
 import { linkRoutes } from './routes/links';
 import { clientStatic } from './routes/client-static';
+import { DEFAULT_MAX_GRID_NODES, DEFAULT_MAX_POINTS } from './request-schemas';
 
 export interface AppOptions {
   /** Folder for stored scenarios (SQLite). Default `./data`; ':memory:' keeps nothing on disk. */
@@ -19,25 +20,31 @@ export interface AppOptions {
   logger?: boolean | object;
   /** Largest accepted request body, bytes. Default 8 MiB. */
   bodyLimit_bytes?: number;
-  /** Largest grid an evaluate request may ask for, nodes. Default 250 000. */
+  /** Largest grid an evaluate request may ask for, nodes (× times). Default 250 000. */
   maxGridNodes?: number;
+  /** Largest number of points (× times) an evaluate request may ask for. Default 100 000. */
+  maxPoints?: number;
   /** Serve the built web client from this folder. Default `client/dist` when it exists. */
   clientDir?: string | false;
 }
 
 export const DEFAULT_BODY_LIMIT_BYTES = 8 * 1024 * 1024;
-export const DEFAULT_MAX_GRID_NODES = 250_000;
+export { DEFAULT_MAX_GRID_NODES, DEFAULT_MAX_POINTS };
 
 export async function buildApp(options: AppOptions = {}): Promise<FastifyInstance> {
+  const bodyLimit_bytes = options.bodyLimit_bytes ?? DEFAULT_BODY_LIMIT_BYTES;
   const app = Fastify({
     logger: options.logger ?? false,
-    bodyLimit: options.bodyLimit_bytes ?? DEFAULT_BODY_LIMIT_BYTES,
+    bodyLimit: bodyLimit_bytes,
     ajv: { customOptions: { allErrors: false, coerceTypes: false, removeAdditional: false } },
   });
   installErrorHandling(app);
+  // Before any plugin, so every route (whoever adds it) lands in the OpenAPI description.
+  installRouteCatalog(app);
   const maxGridNodes = options.maxGridNodes ?? DEFAULT_MAX_GRID_NODES;
-  await app.register(healthRoutes, { prefix: '/api/v1' });
-  await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes });
+  const maxPoints = options.maxPoints ?? DEFAULT_MAX_POINTS;
+  await app.register(healthRoutes, { prefix: '/api/v1', limits: { bodyLimit_bytes, maxGridNodes, maxPoints } });
+  await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes, maxPoints });
   await app.register(designRoutes, { prefix: '/api/v1' });
   await app.register(scenarioRoutes, { prefix: '/api/v1', dataDir: options.dataDir ?? 'data' });
   await app.register(linkRoutes, { prefix: '/api/v1' });

@@ -46,6 +46,16 @@ export const ERROR_TABLE = {
     title: 'Nothing is stored at that address',
     fix: 'Check the id or token; list what exists with GET /api/v1/scenarios.',
   },
+  DRYDIG_ERR_TOO_MANY_POINTS: {
+    status: 400,
+    title: 'The request asks for more points than the limit',
+    fix: 'Send fewer points or times per request, or split the points over several requests.',
+  },
+  DRYDIG_ERR_NO_ROUTE: {
+    status: 404,
+    title: 'There is no such address',
+    fix: 'Check the method and path; the API\u2019s routes are listed at /api/v1/openapi.json.',
+  },
   DRYDIG_ERR_RATE_LIMITED: {
     status: 429,
     title: 'Too many requests',

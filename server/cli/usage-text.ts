@@ -1,0 +1,46 @@
+/** Help texts of the `drydig` command. */
+
+export const USAGE = `drydig — construction-dewatering well-field designer
+
+Usage:
+  drydig evaluate SCENARIO.json --points "x,y;x,y" | --points FILE.csv [--time T] [--grid G] [--pretty]
+  drydig design SCENARIO.json [--mode uniform|optimal|layout]
+  drydig serve [--port N] [--host H] [--data DIR] [--body-limit BYTES]
+  drydig help [COMMAND]
+  drydig --version
+
+Commands:
+  evaluate   levels and drawdowns at points (and on a grid) as JSON on stdout
+  design     pumping rates that meet each excavation's target level
+  serve      start the web application and HTTP API (http://127.0.0.1:8080 by default)
+
+Exit codes: 0 done, 2 bad input (one line on stderr naming the problem), 1 unexpected error.
+Results are estimates from idealised aquifer models; confirm them against site investigation,
+local codes and a licensed engineer.
+`;
+
+export const EVALUATE_HELP = `drydig evaluate SCENARIO.json --points POINTS [--time T] [--grid G] [--pretty]
+
+  SCENARIO.json   a scenario file (format drydig.scenario, version 1)
+  --points P      inline "x,y;x,y" in site metres, or a CSV file: a header row naming
+                  columns x and y (other columns ignored), or exactly two unnamed numeric
+                  columns; comma, semicolon or tab separated
+  --time T        seconds since pumping started (e.g. 604800), with an optional unit
+                  (7d, 12h, 90min, 3600s), or "steady"; a comma list gives several times.
+                  Default: the scenario's design time (steady state when that is null)
+  --grid G        also evaluate a grid "x0,y0,dx,dy,nx,ny" (origin, spacing m, node counts)
+  --pretty        indent the JSON
+
+Prints {"points":[{"x","y","time_s","level_m","drawdown_m","flags"}], "model", "models",
+"cautions"}; one entry per point per time. Flags mark results outside a method's validity.
+`;
+
+export const SERVE_HELP = `drydig serve [--port N] [--host H] [--data DIR] [--body-limit BYTES]
+
+  --port N           port to listen on (default: PORT, else 8080; 0 picks a free port)
+  --host H           address to listen on (default: HOST, else 127.0.0.1)
+  --data DIR         folder for stored scenarios (default: DRYDIG_DATA, else ./data)
+  --body-limit B     largest request body accepted, bytes (default 8388608)
+
+Stops on Ctrl-C (SIGINT) or SIGTERM.
+`;

@@ -1,0 +1,3 @@
+export * from './run-evaluation';
+export * from './flag-runs';
+export * from './result-cautions';

@@ -1,0 +1,126 @@
+/**
+ * `npm run bench`: speed of the field engine's hot path (evaluateGrid) against a vectorised
+ * numpy/scipy evaluation of the same sums, plus the well-function bench when it exists.
+ *
+ * Case: a 250 × 250 grid, 400 wells on the perimeter of a 120 m × 80 m pit, Theis transient at
+ * 30 days, one no-flow boundary (400 images → 800 point sources). Invented numbers.
+ */
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, dirname } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import type { Scenario } from '../shared/schema';
+import { evaluateGrid, prepareField, type GridSpec } from '../shared/field';
+
+const here = dirname(fileURLToPath(import.meta.url));
+
+/** The benchmark scenario: confined aquifer, 400 wells, one no-flow line 150 m east of the pit. */
+export function makeBenchScenario(): Scenario {
+  const wells: Scenario['wells'] = [];
+  const [w, h] = [120, 80];
+  const perimeter = 2 * (w + h);
+  for (let k = 0; k < 400; k++) {
+    let d = (k + 0.5) * (perimeter / 400);
+    let x: number;
+    let y: number;
+    if (d < w) [x, y] = [d, 0];
+    else if ((d -= w) < h) [x, y] = [w, d];
+    else if ((d -= h) < w) [x, y] = [w - d, h];
+    else [x, y] = [0, h - (d - w)];
+    wells.push({ id: `B${k}`, x: x - 60, y: y - 40, radius_m: 0.1, kind: 'deep', rate_m3_s: 0.00015 });
+  }
+  return {
+    format: 'drydig.scenario',
+    version: 1,
+    name: 'benchmark (invented)',
+    groundLevel_m: 10,
+    aquifer: { kind: 'confined', conductivity_m_s: 2e-4, base_m: -20, top_m: 0, staticLevel_m: 8, storativity: 2e-4 },
+    boundaries: [{ kind: 'no-flow', from: [210, -500], to: [210, 500] }],
+    excavations: [],
+    wells,
+    design: { time_s: 30 * 86400 },
+  };
+}
+
+export const BENCH_GRID: GridSpec = { origin: [-200, -200], spacing_m: [1.6, 1.6], counts: [250, 250] };
+
+function fmt(n: number, digits = 3): string {
+  return Number(n.toPrecision(digits)).toLocaleString('en-US');
+}
+
+async function main(): Promise<void> {
+  const scenario = makeBenchScenario();
+  const field = prepareField({ scenario });
+  const sources = field.sources;
+  const nodes = BENCH_GRID.counts[0] * BENCH_GRID.counts[1];
+  const evaluations = sources.count * nodes;
+
+  evaluateGrid({ scenario, grid: BENCH_GRID }); // warm-up: JIT compiles the inner loops
+  const runs = 3;
+  let best = Number.POSITIVE_INFINITY;
+  let result = evaluateGrid({ scenario, grid: BENCH_GRID });
+  for (let r = 0; r < runs; r++) {
+    const t0 = performance.now();
+    result = evaluateGrid({ scenario, grid: BENCH_GRID });
+    best = Math.min(best, (performance.now() - t0) / 1000);
+  }
+  console.log(`field engine: ${BENCH_GRID.counts[0]}×${BENCH_GRID.counts[1]} grid × ${sources.count} sources (${scenario.wells.length} wells + ${field.info.imagesPerWell} image each), Theis transient`);
+  console.log(`  TypeScript evaluateGrid: ${fmt(best)} s (best of ${runs}), ${fmt(evaluations / best)} point-source evaluations/s`);
+
+  const dir = mkdtempSync(join(tmpdir(), 'drydig-bench-'));
+  try {
+    const input = join(dir, 'sources.json');
+    const output = join(dir, 'drawdown.f64');
+    writeFileSync(
+      input,
+      JSON.stringify({
+        origin: BENCH_GRID.origin,
+        spacing_m: BENCH_GRID.spacing_m,
+        counts: BENCH_GRID.counts,
+        x: Array.from(sources.x),
+        y: Array.from(sources.y),
+        amp: Array.from(sources.amp),
+        coef: Array.from(sources.coef),
+        r2min: Array.from(sources.r2min),
+      }),
+    );
+    let stdout: string;
+    try {
+      stdout = execFileSync('python3', [join(here, 'grid_numpy.py'), input, output], {
+        env: { ...process.env, OMP_NUM_THREADS: '1', OPENBLAS_NUM_THREADS: '1', MKL_NUM_THREADS: '1' },
+        encoding: 'utf8',
+        stdio: ['ignore', 'pipe', 'pipe'],
+        timeout: 600_000,
+      });
+    } catch (error) {
+      const reason = (error as { code?: string; stderr?: string }).code === 'ENOENT' ? 'python3 not found' : ((error as { stderr?: string }).stderr ?? String(error)).trim().split('\n').pop();
+      console.log(`  numpy/scipy comparison skipped: ${reason}`);
+      return;
+    }
+    const info = JSON.parse(stdout.trim().split('\n').pop()!) as { seconds: number; numpy: string; scipy: string };
+    const buf = readFileSync(output);
+    const ref = new Float64Array(buf.buffer, buf.byteOffset, buf.byteLength / 8);
+    let maxDiff = 0;
+    let maxAbs = 0;
+    for (let i = 0; i < nodes; i++) {
+      maxDiff = Math.max(maxDiff, Math.abs(ref[i]! - result.drawdown_m[i]!));
+      maxAbs = Math.max(maxAbs, Math.abs(ref[i]!));
+    }
+    console.log(`  numpy ${info.numpy} / scipy ${info.scipy} (exp1, 1 thread): ${fmt(info.seconds)} s, ${fmt(evaluations / info.seconds)} evaluations/s`);
+    console.log(`  speed ratio TypeScript / numpy: ${fmt(info.seconds / best)}× (above 1 = TypeScript faster)`);
+    console.log(`  agreement: max |Δ drawdown| = ${maxDiff.toExponential(2)} m over the grid (max drawdown ${fmt(maxAbs)} m)`);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+
+  const wellBench = join(here, 'well-functions.ts');
+  if (existsSync(wellBench)) {
+    const mod = (await import(pathToFileURL(wellBench).href)) as { runWellFunctionBench?: () => unknown };
+    if (typeof mod.runWellFunctionBench === 'function') await mod.runWellFunctionBench();
+  } else {
+    console.log('well functions: bench/well-functions.ts not present; skipped');
+  }
+}
+
+await main();

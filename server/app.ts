@@ -12,6 +12,7 @@ import { scenarioRoutes } from './routes/scenarios';
 import { linkRoutes } from './routes/links';
 import { clientStatic } from './routes/client-static';
 import { DEFAULT_MAX_GRID_NODES, DEFAULT_MAX_POINTS } from './request-schemas';
+import { securityPlugin, withRedactedLogging, type SecurityOptions } from './security';
 
 export interface AppOptions {
   /** Folder for stored scenarios (SQLite). Default `./data`; ':memory:' keeps nothing on disk. */
@@ -26,6 +27,8 @@ export interface AppOptions {
   maxPoints?: number;
   /** Serve the built web client from this folder. Default `client/dist` when it exists. */
   clientDir?: string | false;
+  /** Security headers and write rate limits (server/security). Default: 300 writes per minute per client. */
+  security?: SecurityOptions;
 }
 
 export const DEFAULT_BODY_LIMIT_BYTES = 8 * 1024 * 1024;
@@ -34,13 +37,16 @@ export { DEFAULT_MAX_GRID_NODES, DEFAULT_MAX_POINTS };
 export async function buildApp(options: AppOptions = {}): Promise<FastifyInstance> {
   const bodyLimit_bytes = options.bodyLimit_bytes ?? DEFAULT_BODY_LIMIT_BYTES;
   const app = Fastify({
-    logger: options.logger ?? false,
+    // Share tokens in URLs are redacted from every log line.
+    logger: withRedactedLogging(options.logger ?? false),
     bodyLimit: bodyLimit_bytes,
     ajv: { customOptions: { allErrors: false, coerceTypes: false, removeAdditional: false } },
   });
   installErrorHandling(app);
   // Before any plugin, so every route (whoever adds it) lands in the OpenAPI description.
   installRouteCatalog(app);
+  // Before the routes: the rate limiter attaches to write routes as they are added.
+  await app.register(securityPlugin, options.security ?? {});
   const maxGridNodes = options.maxGridNodes ?? DEFAULT_MAX_GRID_NODES;
   const maxPoints = options.maxPoints ?? DEFAULT_MAX_POINTS;
   await app.register(healthRoutes, { prefix: '/api/v1', limits: { bodyLimit_bytes, maxGridNodes, maxPoints } });

@@ -1,5 +1,144 @@
-/** Placeholder: filled in by its issue. */
-import type { FastifyPluginAsync } from 'fastify';
+/**
+ * Share links under `/api/v1/links/:token`: what a view or edit link opens. A token is checked
+ * for shape, hashed and looked up; a revoked link answers 410, an unknown one 404 (the same 404
+ * for a forged token as for a random path, so tokens cannot be probed). A view token can never
+ * write: every writing route here checks the mode first.
+ *
+ * Links never reveal the scenario id, so holding a view link gives no way to the editor routes.
+ */
+import type { FastifyInstance, FastifyPluginAsync } from 'fastify';
+import { Type, type Static } from '@sinclair/typebox';
+import { DrydigError } from '../../shared/schema';
+import { createSiteProjection, DESIGN_CAUTIONS, buildSetoutRows } from '../../shared/exports';
+import { hashShareToken, isTokenShaped, type LinkRecord, type RevisionRecord, type ScenarioStore } from '../storage';
+import {
+  ExportFormatSchema,
+  ReadingBodySchema,
+  SaveBodySchema,
+  TokenParamsSchema,
+  publicRevisionMeta,
+  storeReading,
+  type ExportFormat,
+} from '../storage/http';
+import { writeRateLimit } from '../security';
+import { designFor, monitoringPlanFor, planResultsFor, sendExport } from '../exports';
+import { saveOn } from './scenarios';
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
-export const linkRoutes: FastifyPluginAsync<any> = async () => {};
+interface OpenedLink {
+  link: LinkRecord;
+  record: RevisionRecord;
+}
+
+const notFound = () => new DrydigError('DRYDIG_ERR_NOT_FOUND', 'no share link matches this address', [{ path: '/token', message: 'unknown link' }]);
+
+/** Resolves a token to its link and the revision it shows (pinned, or the latest). */
+async function openLink(store: ScenarioStore, token: string): Promise<OpenedLink> {
+  if (!isTokenShaped(token)) throw notFound();
+  const link = await store.findLinkByTokenHash(hashShareToken(token));
+  if (!link) throw notFound();
+  if (link.revokedAt !== null) throw new DrydigError('DRYDIG_ERR_LINK_REVOKED', `this link was revoked on ${link.revokedAt}`, [{ path: '/token', message: 'revoked' }]);
+  const record = link.revision === null ? await store.getLatest(link.scenarioId) : await store.getRevision(link.scenarioId, link.revision);
+  if (!record) throw notFound();
+  return { link, record };
+}
+
+function requireEdit(opened: OpenedLink, what: string): void {
+  if (opened.link.mode !== 'edit')
+    throw new DrydigError('DRYDIG_ERR_LINK_READ_ONLY', `this is a view-only link: it cannot ${what}`, [{ path: '/token', message: 'view-only link' }]);
+}
+
+/** The link's own description, without the scenario id. */
+function linkInfo(link: LinkRecord) {
+  return { linkId: link.linkId, mode: link.mode, pinnedRevision: link.revision, label: link.label, createdAt: link.createdAt };
+}
+
+function revisionInfo(record: RevisionRecord) {
+  return publicRevisionMeta(record, false);
+}
+
+const routes = async (app: FastifyInstance) => {
+  const store = app.scenarioStore;
+  if (!store) throw new Error('link routes need the scenario routes registered first (scenarioStore)');
+
+  app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token', { schema: { params: TokenParamsSchema } }, async (request, reply) => {
+    const opened = await openLink(store, request.params.token);
+    const { record, link } = opened;
+    const projection = createSiteProjection(record.scenario);
+    const plan = planResultsFor(record.sha256, record.scenario);
+    const design = designFor(record.sha256, record.scenario);
+    reply.header('cache-control', 'no-store');
+    return {
+      link: linkInfo(link),
+      revision: revisionInfo(record),
+      canEdit: link.mode === 'edit',
+      canSave: link.mode === 'edit' && link.revision === null,
+      scenario: record.scenario,
+      georeferenced: projection !== null,
+      crs: record.scenario.crs ?? null,
+      setout: buildSetoutRows(record.scenario, projection),
+      contours: plan.results
+        ? { time_s: plan.results.time_s, lines: plan.results.contours.lines.map((l) => ({ level_m: l.level, coordinates: l.coordinates })) }
+        : null,
+      excavationChecks: plan.results?.excavations ?? [],
+      flagCounts: plan.results?.flagCounts ?? null,
+      method: plan.results?.model.method ?? null,
+      modelNotes: plan.results?.model.notes ?? [],
+      computeError: plan.error ?? null,
+      design,
+      cautions: DESIGN_CAUTIONS,
+    };
+  });
+
+  app.get<{ Params: Static<typeof TokenParamsSchema> & { format: ExportFormat } }>(
+    '/links/:token/export/:format',
+    { schema: { params: Type.Composite([TokenParamsSchema, Type.Object({ format: ExportFormatSchema })]) } },
+    async (request, reply) => {
+      const { link, record } = await openLink(store, request.params.token);
+      return sendExport(reply, request.params.format, { record, readings: await store.listReadings(link.scenarioId), pinned: link.revision !== null });
+    },
+  );
+
+  app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token/monitoring', { schema: { params: TokenParamsSchema } }, async (request, reply) => {
+    const { link, record } = await openLink(store, request.params.token);
+    reply.header('cache-control', 'no-store');
+    return monitoringPlanFor(record.scenario, await store.listReadings(link.scenarioId));
+  });
+
+  app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token/readings', { schema: { params: TokenParamsSchema } }, async (request) => {
+    const { link } = await openLink(store, request.params.token);
+    return { readings: (await store.listReadings(link.scenarioId)).map(({ scenarioId: _s, ...r }) => r) };
+  });
+
+  app.post<{ Params: Static<typeof TokenParamsSchema>; Body: Static<typeof ReadingBodySchema> }>(
+    '/links/:token/readings',
+    { schema: { params: TokenParamsSchema, body: ReadingBodySchema }, config: writeRateLimit() },
+    async (request, reply) => {
+      const opened = await openLink(store, request.params.token);
+      requireEdit(opened, 'enter readings');
+      // Readings are checked against the plan the link shows (the agreed revision when pinned).
+      const reading = await storeReading(store, opened.record, request.body, `link ${opened.link.linkId}`);
+      return reply.code(201).send(reading);
+    },
+  );
+
+  app.put<{ Params: Static<typeof TokenParamsSchema>; Body: Static<typeof SaveBodySchema> }>(
+    '/links/:token/scenario',
+    { schema: { params: TokenParamsSchema, body: SaveBodySchema }, config: writeRateLimit() },
+    async (request, reply) => {
+      const opened = await openLink(store, request.params.token);
+      requireEdit(opened, 'save the scenario');
+      if (opened.link.revision !== null)
+        throw new DrydigError(
+          'DRYDIG_ERR_LINK_READ_ONLY',
+          `this link is pinned to revision ${opened.link.revision}, the agreed plan; it can enter readings but not save a new revision`,
+          [{ path: '/token', message: 'pinned link' }],
+        );
+      return saveOn(reply, store, opened.link.scenarioId, request.body, false);
+    },
+  );
+};
+
+/** Registers the link routes; needs `scenarioRoutes` registered before it. */
+export const linkRoutes: FastifyPluginAsync = async (app) => {
+  await app.register(routes);
+};

@@ -1,5 +1,250 @@
-/** Placeholder: filled in by its issue. */
-import type { FastifyPluginAsync } from 'fastify';
+/**
+ * Saved scenarios under `/api/v1/scenarios`: immutable revisions, history, restore, exports,
+ * share links and site readings. Opens the store for `dataDir` (':memory:' = in-memory) and
+ * shares it with the link routes as the `scenarioStore` decoration.
+ *
+ * Every save names the revision it was based on; a stale save gets 409 with the newer revision,
+ * so no edit is silently lost.
+ */
+import type { FastifyInstance, FastifyPluginAsync, FastifyReply } from 'fastify';
+import fp from 'fastify-plugin';
+import { Type, type Static } from '@sinclair/typebox';
+import { DrydigError } from '../../shared/schema';
+import { openScenarioStore, type RevisionRecord, type ScenarioStore } from '../storage';
+import {
+  ExportFormatSchema,
+  LinkCreateBodySchema,
+  ReadingBodySchema,
+  RevisionParamSchema,
+  SaveBodySchema,
+  ScenarioIdParamsSchema,
+  NewScenarioBodySchema,
+  RestoreBodySchema,
+  ExportQuerySchema,
+  LinkIdParamsSchema,
+  conflictAnswer,
+  parseRevisionParam,
+  parseSaveScenario,
+  publicRevisionMeta,
+  storeReading,
+  type ExportFormat,
+} from '../storage/http';
+import { createShareToken, hashShareToken } from '../storage';
+import { writeRateLimit } from '../security';
+import { buildMonitoringSeries, sendExport } from '../exports';
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
-export const scenarioRoutes: FastifyPluginAsync<any> = async () => {};
+declare module 'fastify' {
+  interface FastifyInstance {
+    /** The scenario store opened by the scenario routes. */
+    scenarioStore: ScenarioStore;
+  }
+}
+
+export interface ScenarioRoutesOptions {
+  /** Data folder, or ':memory:' for an in-memory database. */
+  dataDir: string;
+  /** Prefix for the routes, e.g. '/api/v1'. */
+  prefix?: string;
+  /** An already-open store to use instead (tests, other engines). */
+  store?: ScenarioStore;
+}
+
+async function requireLatest(store: ScenarioStore, scenarioId: string): Promise<RevisionRecord> {
+  const latest = await store.getLatest(scenarioId);
+  if (!latest) throw new DrydigError('DRYDIG_ERR_NOT_FOUND', `no scenario with id "${scenarioId}"`, [{ path: '/id', message: 'no such scenario' }]);
+  return latest;
+}
+
+async function requireRevision(store: ScenarioStore, scenarioId: string, revision: number | undefined): Promise<RevisionRecord> {
+  if (revision === undefined) return requireLatest(store, scenarioId);
+  const record = await store.getRevision(scenarioId, revision);
+  if (!record) {
+    await requireLatest(store, scenarioId);
+    throw new DrydigError('DRYDIG_ERR_NOT_FOUND', `scenario "${scenarioId}" has no revision ${revision}`, [{ path: '/revision', message: 'no such revision' }]);
+  }
+  return record;
+}
+
+const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
+  const store = opts.store;
+
+  app.get('/scenarios', async () => ({ scenarios: await store.listScenarios() }));
+
+  app.post<{ Body: Static<typeof NewScenarioBodySchema> }>(
+    '/scenarios',
+    { schema: { body: NewScenarioBodySchema }, config: writeRateLimit() },
+    async (request, reply) => {
+      const scenario = parseSaveScenario(request.body.scenario);
+      const record = await store.createScenario({ scenario, savedBy: request.body.savedBy, note: request.body.note });
+      return reply.code(201).send(publicRevisionMeta(record));
+    },
+  );
+
+  app.get<{ Params: Static<typeof ScenarioIdParamsSchema> }>(
+    '/scenarios/:id',
+    { schema: { params: ScenarioIdParamsSchema } },
+    async (request) => {
+      const record = await requireLatest(store, request.params.id);
+      return { ...publicRevisionMeta(record), scenario: record.scenario };
+    },
+  );
+
+  app.put<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof SaveBodySchema> }>(
+    '/scenarios/:id',
+    { schema: { params: ScenarioIdParamsSchema, body: SaveBodySchema }, config: writeRateLimit() },
+    async (request, reply) => saveOn(reply, store, request.params.id, request.body),
+  );
+
+  app.get<{ Params: Static<typeof ScenarioIdParamsSchema> }>(
+    '/scenarios/:id/revisions',
+    { schema: { params: ScenarioIdParamsSchema } },
+    async (request) => {
+      const revisions = await store.listRevisions(request.params.id);
+      if (!revisions) throw new DrydigError('DRYDIG_ERR_NOT_FOUND', `no scenario with id "${request.params.id}"`, [{ path: '/id', message: 'no such scenario' }]);
+      return { scenarioId: request.params.id, revisions: revisions.map((r) => publicRevisionMeta(r)) };
+    },
+  );
+
+  app.get<{ Params: Static<typeof RevisionParamSchema> }>(
+    '/scenarios/:id/revisions/:revision',
+    { schema: { params: RevisionParamSchema } },
+    async (request) => {
+      const record = await requireRevision(store, request.params.id, parseRevisionParam(request.params.revision, '/revision'));
+      return { ...publicRevisionMeta(record), scenario: record.scenario };
+    },
+  );
+
+  app.post<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof RestoreBodySchema> }>(
+    '/scenarios/:id/restore',
+    { schema: { params: ScenarioIdParamsSchema, body: RestoreBodySchema }, config: writeRateLimit() },
+    async (request, reply) => {
+      const old = await requireRevision(store, request.params.id, request.body.revision);
+      const outcome = await store.saveRevision({
+        scenarioId: request.params.id,
+        baseRevision: request.body.baseRevision,
+        scenario: old.scenario,
+        savedBy: request.body.savedBy,
+        note: request.body.note,
+        restoredFrom: old.revision,
+      });
+      if (!outcome.ok) {
+        if (outcome.reason === 'not-found') await requireLatest(store, request.params.id);
+        else return conflictAnswer(reply, outcome.latest, request.body.baseRevision);
+      }
+      return outcome.ok ? reply.code(201).send(publicRevisionMeta(outcome.revision)) : undefined;
+    },
+  );
+
+  app.get<{ Params: Static<typeof ScenarioIdParamsSchema> & { format: ExportFormat }; Querystring: Static<typeof ExportQuerySchema> }>(
+    '/scenarios/:id/export/:format',
+    { schema: { params: Type.Composite([ScenarioIdParamsSchema, Type.Object({ format: ExportFormatSchema })]), querystring: ExportQuerySchema } },
+    async (request, reply) => {
+      const revision = request.query.revision === undefined ? undefined : parseRevisionParam(request.query.revision, '/revision');
+      const record = await requireRevision(store, request.params.id, revision);
+      const readings = await store.listReadings(request.params.id);
+      return sendExport(reply, request.params.format, { record, readings, pinned: revision !== undefined });
+    },
+  );
+
+  app.get<{ Params: Static<typeof ScenarioIdParamsSchema>; Querystring: Static<typeof ExportQuerySchema> }>(
+    '/scenarios/:id/monitoring',
+    { schema: { params: ScenarioIdParamsSchema, querystring: ExportQuerySchema } },
+    async (request) => {
+      const revision = request.query.revision === undefined ? undefined : parseRevisionParam(request.query.revision, '/revision');
+      const record = await requireRevision(store, request.params.id, revision);
+      return buildMonitoringSeries(record.scenario, await store.listReadings(request.params.id));
+    },
+  );
+
+  app.get<{ Params: Static<typeof ScenarioIdParamsSchema> }>(
+    '/scenarios/:id/readings',
+    { schema: { params: ScenarioIdParamsSchema } },
+    async (request) => {
+      await requireLatest(store, request.params.id);
+      return { readings: (await store.listReadings(request.params.id)).map(({ scenarioId: _s, ...r }) => r) };
+    },
+  );
+
+  app.post<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof ReadingBodySchema> }>(
+    '/scenarios/:id/readings',
+    { schema: { params: ScenarioIdParamsSchema, body: ReadingBodySchema }, config: writeRateLimit() },
+    async (request, reply) => {
+      const latest = await requireLatest(store, request.params.id);
+      const reading = await storeReading(store, latest, request.body);
+      return reply.code(201).send(reading);
+    },
+  );
+
+  app.post<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof LinkCreateBodySchema> }>(
+    '/scenarios/:id/links',
+    { schema: { params: ScenarioIdParamsSchema, body: LinkCreateBodySchema }, config: writeRateLimit() },
+    async (request, reply) => {
+      const pinned = request.body.revision ?? null;
+      await requireRevision(store, request.params.id, pinned ?? undefined);
+      const token = createShareToken();
+      const link = await store.createLink({
+        scenarioId: request.params.id,
+        mode: request.body.mode,
+        revision: pinned,
+        label: request.body.label,
+        tokenHash: hashShareToken(token),
+      });
+      // The token is shown once, here; only its hash is stored.
+      return reply.code(201).send({ ...link, token, sitePath: `/site/${token}`, apiPath: `/api/v1/links/${token}` });
+    },
+  );
+
+  app.get<{ Params: Static<typeof ScenarioIdParamsSchema> }>(
+    '/scenarios/:id/links',
+    { schema: { params: ScenarioIdParamsSchema } },
+    async (request) => {
+      await requireLatest(store, request.params.id);
+      return { links: await store.listLinks(request.params.id) };
+    },
+  );
+
+  app.delete<{ Params: Static<typeof LinkIdParamsSchema> }>(
+    '/scenarios/:id/links/:linkId',
+    { schema: { params: LinkIdParamsSchema }, config: writeRateLimit() },
+    async (request, reply) => {
+      const revoked = await store.revokeLink(request.params.id, request.params.linkId);
+      if (!revoked)
+        throw new DrydigError('DRYDIG_ERR_NOT_FOUND', `no live link "${request.params.linkId}" on scenario "${request.params.id}"`, [
+          { path: '/linkId', message: 'no such link, or already revoked' },
+        ]);
+      return reply.code(204).send();
+    },
+  );
+};
+
+/**
+ * Saves `body.scenario` on `scenarioId` against `body.baseRevision` (shared with edit links, which
+ * pass `revealScenarioId = false` so a link never hands out the editor's id).
+ */
+export async function saveOn(
+  reply: FastifyReply,
+  store: ScenarioStore,
+  scenarioId: string,
+  body: Static<typeof SaveBodySchema>,
+  revealScenarioId = true,
+): Promise<FastifyReply> {
+  const scenario = parseSaveScenario(body.scenario);
+  const outcome = await store.saveRevision({ scenarioId, baseRevision: body.baseRevision, scenario, savedBy: body.savedBy, note: body.note });
+  if (outcome.ok) return reply.code(201).send(publicRevisionMeta(outcome.revision, revealScenarioId));
+  if (outcome.reason === 'conflict') return conflictAnswer(reply, outcome.latest, body.baseRevision, revealScenarioId);
+  throw new DrydigError('DRYDIG_ERR_NOT_FOUND', `no scenario with id "${scenarioId}"`, [{ path: '/id', message: 'no such scenario' }]);
+}
+
+/** Registers the scenario routes and decorates the app with `scenarioStore` for the link routes. */
+export const scenarioRoutes = fp<ScenarioRoutesOptions>(
+  async (app, opts) => {
+    const store = opts.store ?? openScenarioStore(opts.dataDir);
+    app.decorate('scenarioStore', store);
+    app.addHook('onClose', async () => {
+      if (!opts.store) await store.close();
+    });
+    // fastify-plugin shares the decoration but drops the prefix, so routes go in a child context.
+    await app.register(routes, { prefix: opts.prefix ?? '', store });
+  },
+  { name: 'drydig-scenarios', fastify: '5.x' },
+);

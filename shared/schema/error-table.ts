@@ -61,6 +61,26 @@ export const ERROR_TABLE = {
     title: 'Too many requests',
     fix: 'Wait a moment and try again.',
   },
+  DRYDIG_ERR_REVISION_CONFLICT: {
+    status: 409,
+    title: 'Someone saved a newer revision since this edit began',
+    fix: 'Open the latest revision (sent with this answer), merge your changes into it and save again.',
+  },
+  DRYDIG_ERR_LINK_READ_ONLY: {
+    status: 403,
+    title: 'This share link can only view',
+    fix: 'Ask the designer for an edit link to save changes or enter readings.',
+  },
+  DRYDIG_ERR_LINK_REVOKED: {
+    status: 410,
+    title: 'This share link has been revoked',
+    fix: 'Ask the designer for a new link.',
+  },
+  DRYDIG_ERR_STORED_DATA_DAMAGED: {
+    status: 500,
+    title: 'A stored revision does not match its checksum',
+    fix: 'Open another revision; restore the data folder from a backup and report it.',
+  },
   DRYDIG_ERR_CLI_USAGE: {
     status: 400,
     title: 'The command line is not valid',

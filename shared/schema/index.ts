@@ -1,3 +1,4 @@
 export * from './scenario-schema';
 export * from './validate-scenario';
 export * from './error-table';
+export * from './monitoring-schema';

@@ -1,0 +1,5 @@
+/** Serving exports and computed views of stored revisions. */
+export * from './send-export';
+export * from './computed-views';
+export * from './design-for';
+export * from './field-engine';

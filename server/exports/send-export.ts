@@ -1,0 +1,80 @@
+/** Serves one export of a stored revision with its content type and a download file name. */
+import type { FastifyReply } from 'fastify';
+import {
+  createSiteProjection,
+  writeDxf,
+  writeGeoJson,
+  writeMonitoringCsv,
+  writeReportHtml,
+  writeScenarioJson,
+  writeSetoutCsv,
+} from '../../shared/exports';
+import type { ExportFormat } from '../storage/http';
+import type { ReadingRecord, RevisionRecord } from '../storage';
+import { monitoringPlanFor, planResultsFor } from './computed-views';
+import { designFor } from './design-for';
+
+/** What an export is made from. */
+export interface ExportSource {
+  record: RevisionRecord;
+  readings: readonly ReadingRecord[];
+  /** True when a specific revision was asked for (file name says so either way). */
+  pinned: boolean;
+}
+
+/** A file-name-safe slug of the scenario name (ASCII letters, digits, dashes). */
+export function fileSlug(name: string): string {
+  const slug = name.normalize('NFKD').replace(/[^A-Za-z0-9]+/g, '-').replace(/^-+|-+$/g, '').toLowerCase().slice(0, 60);
+  return slug || 'scenario';
+}
+
+const TYPES: Record<ExportFormat, { type: string; ext: string; inline: boolean }> = {
+  'scenario-json': { type: 'application/json; charset=utf-8', ext: 'drydig.json', inline: false },
+  'setout-csv': { type: 'text/csv; charset=utf-8', ext: 'setout.csv', inline: false },
+  geojson: { type: 'application/geo+json; charset=utf-8', ext: 'geojson', inline: false },
+  dxf: { type: 'application/dxf', ext: 'dxf', inline: false },
+  'report-html': { type: 'text/html; charset=utf-8', ext: 'report.html', inline: true },
+  'monitoring-csv': { type: 'text/csv; charset=utf-8', ext: 'monitoring.csv', inline: false },
+};
+
+/** Renders the export body (exported for tests and the CLI). */
+export function renderExport(format: ExportFormat, source: ExportSource): string {
+  const { record } = source;
+  const scenario = record.scenario;
+  const projection = createSiteProjection(scenario);
+  switch (format) {
+    case 'scenario-json':
+      return writeScenarioJson(scenario);
+    case 'setout-csv':
+      return writeSetoutCsv({ scenario, projection });
+    case 'geojson':
+      return writeGeoJson({ scenario, projection, revision: record.revision, results: planResultsFor(record.sha256, scenario).results });
+    case 'dxf':
+      return writeDxf({ scenario, results: planResultsFor(record.sha256, scenario).results });
+    case 'monitoring-csv':
+      return writeMonitoringCsv(monitoringPlanFor(scenario, source.readings));
+    case 'report-html': {
+      const plan = planResultsFor(record.sha256, scenario);
+      return writeReportHtml({
+        scenario,
+        projection,
+        revision: record,
+        results: plan.results,
+        design: designFor(record.sha256, scenario),
+        monitoring: monitoringPlanFor(scenario, source.readings),
+      });
+    }
+  }
+}
+
+/** Sends the export with Content-Type and Content-Disposition. */
+export function sendExport(reply: FastifyReply, format: ExportFormat, source: ExportSource): FastifyReply {
+  const spec = TYPES[format];
+  const body = renderExport(format, source);
+  const filename = `${fileSlug(source.record.scenario.name)}-rev${source.record.revision}.${spec.ext}`;
+  return reply
+    .header('content-type', spec.type)
+    .header('content-disposition', `${spec.inline ? 'inline' : 'attachment'}; filename="${filename}"`)
+    .header('x-drydig-revision', String(source.record.revision))
+    .send(body);
+}

@@ -1,0 +1,144 @@
+/**
+ * The storage interface the routes use. One small async interface so another engine (a server
+ * database, an object store) can be added later without touching the routes; SQLite is the first.
+ *
+ * Every save is an immutable revision: nothing here updates or deletes a stored revision.
+ * Share links and site readings live beside the revisions but are not revisions themselves.
+ */
+import type { Scenario } from '../../shared/schema';
+
+/** What the history shows about one revision (no scenario body). */
+export interface RevisionMeta {
+  /** Scenario id (random, URL-safe). */
+  scenarioId: string;
+  /** Revision number, 1 for the first save, then +1 per save. */
+  revision: number;
+  /** When the revision was stored, ISO 8601 UTC. */
+  savedAt: string;
+  /** The name the saver gave (free text, may be empty). */
+  savedBy: string;
+  /** The saver's own note on the save (may be empty). */
+  note: string;
+  /** Short machine-written summary of what changed against the revision before. */
+  summary: string;
+  /** Scenario name at this revision. */
+  name: string;
+  /** SHA-256 (hex) of the stored scenario text, checked on every read. */
+  sha256: string;
+  /** The revision this one was restored from, when it is a restore. */
+  restoredFrom: number | null;
+}
+
+/** One revision with its scenario document. */
+export interface RevisionRecord extends RevisionMeta {
+  scenario: Scenario;
+}
+
+/** One line of the scenario list. */
+export interface ScenarioListing {
+  scenarioId: string;
+  name: string;
+  createdAt: string;
+  latestRevision: number;
+  latestSavedAt: string;
+  latestSavedBy: string;
+}
+
+export interface SaveInput {
+  scenario: Scenario;
+  /** Name the saver gives; default ''. */
+  savedBy?: string;
+  /** Note on the save; default ''. */
+  note?: string;
+}
+
+export interface SaveRevisionInput extends SaveInput {
+  scenarioId: string;
+  /** The revision the edit started from; the save is refused when a newer one exists. */
+  baseRevision: number;
+  /** Set when the save restores an older revision. */
+  restoredFrom?: number;
+}
+
+/** Result of a save against a base revision: stored, or refused because someone saved first. */
+export type SaveOutcome =
+  | { ok: true; revision: RevisionRecord }
+  | { ok: false; reason: 'conflict'; latest: RevisionRecord }
+  | { ok: false; reason: 'not-found' };
+
+/** Access a share link grants. `view` can never write. */
+export type LinkMode = 'view' | 'edit';
+
+export interface LinkRecord {
+  /** Public, non-secret id of the link (for listing and revoking). */
+  linkId: string;
+  scenarioId: string;
+  mode: LinkMode;
+  /** Pinned revision, or null to follow the latest. */
+  revision: number | null;
+  /** Designer's label for the link (e.g. "site team, phase 1"). */
+  label: string;
+  createdAt: string;
+  /** When the link was revoked, or null while it works. */
+  revokedAt: string | null;
+}
+
+export interface CreateLinkInput {
+  scenarioId: string;
+  mode: LinkMode;
+  revision: number | null;
+  label?: string;
+  /** SHA-256 (hex) of the token; the token itself is never stored. */
+  tokenHash: string;
+}
+
+/** One site reading of a piezometer: appended, never overwritten. */
+export interface ReadingRecord {
+  readingId: number;
+  scenarioId: string;
+  piezometerId: string;
+  /** When the reading was taken, ISO 8601. */
+  measuredAt: string;
+  /** Time since pumping started, s (from measuredAt and the scenario's pumping start, or given). */
+  time_s: number;
+  /** Measured groundwater / piezometric level, m above site datum. */
+  level_m: number;
+  /** Who entered it (free text). */
+  enteredBy: string;
+  note: string;
+  /** When the server stored it, ISO 8601 UTC. */
+  enteredAt: string;
+}
+
+export type AppendReadingInput = Omit<ReadingRecord, 'readingId' | 'enteredAt'>;
+
+/** The storage engine behind the scenario, link and reading routes. */
+export interface ScenarioStore {
+  /** Stores revision 1 of a new scenario. */
+  createScenario(input: SaveInput): Promise<RevisionRecord>;
+  /** Stores a new revision if `baseRevision` is still the latest; otherwise reports the conflict. */
+  saveRevision(input: SaveRevisionInput): Promise<SaveOutcome>;
+  listScenarios(): Promise<ScenarioListing[]>;
+  /** Latest revision, or undefined when the scenario does not exist. */
+  getLatest(scenarioId: string): Promise<RevisionRecord | undefined>;
+  getRevision(scenarioId: string, revision: number): Promise<RevisionRecord | undefined>;
+  /** Newest first; undefined when the scenario does not exist. */
+  listRevisions(scenarioId: string): Promise<RevisionMeta[] | undefined>;
+  createLink(input: CreateLinkInput): Promise<LinkRecord>;
+  findLinkByTokenHash(tokenHash: string): Promise<LinkRecord | undefined>;
+  listLinks(scenarioId: string): Promise<LinkRecord[]>;
+  /** Marks a link revoked; false when no such live link exists. */
+  revokeLink(scenarioId: string, linkId: string): Promise<boolean>;
+  appendReading(input: AppendReadingInput): Promise<ReadingRecord>;
+  /** Oldest first. */
+  listReadings(scenarioId: string): Promise<ReadingRecord[]>;
+  close(): Promise<void>;
+}
+
+/** A stored revision whose text no longer matches its hash (disk or copy damage). */
+export class StoredDataDamagedError extends Error {
+  constructor(scenarioId: string, revision: number) {
+    super(`stored revision ${revision} of scenario ${scenarioId} does not match its checksum`);
+    this.name = 'StoredDataDamagedError';
+  }
+}

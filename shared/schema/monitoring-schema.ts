@@ -1,0 +1,86 @@
+/**
+ * Monitoring plan (optional top-level scenario field `monitoring`): piezometers the site team
+ * reads, with the alert and action levels the designer sets. The expected level at each one over
+ * time comes from the engine; readings are site data stored apart from scenario revisions.
+ */
+import { Type, type Static } from '@sinclair/typebox';
+import { Value } from '@sinclair/typebox/value';
+import type { FieldIssue } from './error-table';
+
+/** Default alert offset above the expected level, m (the issue's example; common practice, no single source). */
+export const DEFAULT_ALERT_OFFSET_M = 0.3;
+
+export const PiezometerSchema = Type.Object(
+  {
+    id: Type.String({ minLength: 1, maxLength: 64, description: 'Piezometer id as marked on site.' }),
+    x: Type.Number({ description: 'Easting / plan x, m (site CRS).' }),
+    y: Type.Number({ description: 'Northing / plan y, m (site CRS).' }),
+    alertOffset_m: Type.Optional(
+      Type.Number({ minimum: 0, maximum: 20, description: 'Alert when a reading stands this far above the expected level, m. Default 0.3.' }),
+    ),
+    actionLevel_m: Type.Optional(
+      Type.Number({
+        description:
+          'Act (stop digging, add pumping) when a reading stands above this level, m. Default: target level (formation − margin) of the excavation containing or nearest the piezometer.',
+      }),
+    ),
+    label: Type.Optional(Type.String({ maxLength: 200 })),
+  },
+  { additionalProperties: false },
+);
+export type Piezometer = Static<typeof PiezometerSchema>;
+
+export const MonitoringSchema = Type.Object(
+  {
+    piezometers: Type.Array(PiezometerSchema, { maxItems: 500 }),
+    pumpingStart: Type.Optional(
+      Type.String({ maxLength: 40, description: 'When pumping starts (t = 0), ISO 8601; lets readings be entered by date.' }),
+    ),
+    readingInterval_s: Type.Optional(
+      Type.Number({ exclusiveMinimum: 0, description: 'Spacing of the expected-level table, s. Default one day.' }),
+    ),
+  },
+  { additionalProperties: false },
+);
+export type Monitoring = Static<typeof MonitoringSchema>;
+
+const ISO_DATE_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,9})?)?(Z|[+-]\d{2}:\d{2})$/;
+
+/** True for an ISO 8601 date-time with an explicit zone that parses to a real instant. */
+export function isIsoDateTime(text: string): boolean {
+  return ISO_DATE_TIME.test(text) && Number.isFinite(Date.parse(text));
+}
+
+/**
+ * Checks `scenario.monitoring` (absent is fine). Issues carry JSON pointers from the scenario
+ * root, e.g. `/monitoring/piezometers/2/x`.
+ */
+export function validateMonitoring(scenario: unknown): FieldIssue[] {
+  if (typeof scenario !== 'object' || scenario === null) return [];
+  const monitoring = (scenario as Record<string, unknown>).monitoring;
+  if (monitoring === undefined) return [];
+  const issues: FieldIssue[] = [];
+  const seen = new Set<string>();
+  for (const error of Value.Errors(MonitoringSchema, monitoring)) {
+    const path = `/monitoring${error.path}`;
+    if (seen.has(path)) continue;
+    seen.add(path);
+    const schema = error.schema as Record<string, unknown>;
+    let message = error.message.replace(/^Expected/, 'must be').toLowerCase();
+    if (error.value === undefined) message = 'is required';
+    else if (schema.type === 'number' && typeof error.value !== 'number') message = 'must be a number';
+    else if (schema.additionalProperties === false && error.message.includes('additional')) message = 'has an unknown field (check spelling and units in the name)';
+    issues.push({ path, message });
+    if (issues.length >= 20) return issues;
+  }
+  if (issues.length) return issues;
+  const m = monitoring as Monitoring;
+  const ids = new Set<string>();
+  m.piezometers.forEach((p, i) => {
+    if (ids.has(p.id)) issues.push({ path: `/monitoring/piezometers/${i}/id`, message: `duplicate piezometer id "${p.id}"` });
+    ids.add(p.id);
+  });
+  if (m.pumpingStart !== undefined && !isIsoDateTime(m.pumpingStart))
+    issues.push({ path: '/monitoring/pumpingStart', message: 'must be an ISO 8601 date-time with a zone, e.g. 2027-03-01T07:00:00Z' });
+  return issues;
+}

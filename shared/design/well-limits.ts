@@ -1,0 +1,155 @@
+/**
+ * Well limits as linear rows in the rates, written so that satisfying them guarantees the real
+ * (non-linear) limit — conservative, with no iteration.
+ *
+ * The pumping level in well j is ℓ_j = level(v_j) − C_j·Q_j², with v_j = Σ_k b_jk·Q_k the
+ * superposed variable at the well face (drawdown, or Jacob's s_c when unconfined) and C_j the
+ * well-loss coefficient (design.md §5). Two kinds of limit:
+ * - floor: ℓ_j ≥ L (suction lift for well points: L = header − lift limit);
+ * - Sichardt (1928): Q_j ≤ α_j·h_w with α_j = 2π·r_w·√K/15 and h_w = min(screen top, ℓ_j) −
+ *   screen bottom, the wetted screen — as the well is drawn down its yield falls.
+ *
+ * Linearisation, both conservative:
+ * - level(v) is linear for confined/leaky aquifers (static − v) and concave for unconfined
+ *   (base + sqrt(H² − 2H·v)), so on [0, v(L)] it lies above its chord
+ *   static − (static − L)·v / v(L). Using the chord under-states the level in the well, by at most
+ *   a few decimetres at mid-range drawdown and by nothing at the limit itself.
+ * - C·Q² ≤ C·Q̄·Q for 0 ≤ Q ≤ Q̄ (the secant); Q̄ is the full-screen capacity, or
+ *   sqrt((static − screen bottom)/C) when smaller, which no feasible rate can exceed.
+ */
+import type { Aquifer, Scenario, Well, WellKind } from '../schema';
+import { sichardtEntranceVelocity } from './sichardt-capacity';
+import type { LimitRow } from './rate-problem';
+
+/** A well of the design set, with the screen and limits the design uses. */
+export interface DesignWell {
+  id: string;
+  /** Index in `scenario.wells`. */
+  scenarioIndex: number;
+  x: number;
+  y: number;
+  radius_m: number;
+  kind: WellKind;
+  /** Time the well is switched on, s (staged start). */
+  start_s: number;
+  /** Screen top used, m: the given top, else aquifer top (confined/leaky) or static level; never above the static level. */
+  screenTop_m: number;
+  /** Screen bottom used, m: the given bottom, else the aquifer base. */
+  screenBottom_m: number;
+  /** Well-loss coefficient C, s²/m⁵ (0 when not given). */
+  wellLoss_s2_m5: number;
+  /** Sichardt yield per metre of wetted screen α = 2π·r_w·√K/15, m²/s. */
+  capacityPerMetre_m2_s: number;
+  /** α × (screen top − screen bottom), m³/s. */
+  fullScreenCapacity_m3_s: number;
+  /** Lowest pumping level allowed, m: max(header − suction lift, screen bottom) for well points, screen bottom otherwise. */
+  minimumLevel_m: number;
+  /** What sets that floor. */
+  floorKind: 'suction-lift' | 'wetted-screen';
+}
+
+/** Largest rate the scenario format allows for one well, m³/s. */
+const MAX_WELL_RATE_M3_S = 10;
+
+export interface BuildDesignWellsOptions {
+  scenario: Scenario;
+  /** Indices into scenario.wells of the design set. */
+  indices: number[];
+  /** Start time per well id (staged start); absent = 0. */
+  startOf: Map<string, number>;
+  headerLevel_m: number;
+  suctionLiftLimit_m: number;
+}
+
+/** The design wells with default screens and their limits. */
+export function buildDesignWells({ scenario, indices, startOf, headerLevel_m, suctionLiftLimit_m }: BuildDesignWellsOptions): DesignWell[] {
+  const a = scenario.aquifer;
+  const defaultTop = a.kind === 'unconfined' ? a.staticLevel_m : (a.top_m ?? a.staticLevel_m);
+  return indices.map((index) => {
+    const w: Well = scenario.wells[index]!;
+    const screenBottom_m = Math.max(w.screenBottom_m ?? a.base_m, a.base_m);
+    // Screen above the water table (or above a confined aquifer's top) passes no water.
+    const screenTop_m = Math.min(w.screenTop_m ?? defaultTop, defaultTop);
+    const alpha = 2 * Math.PI * w.radius_m * sichardtEntranceVelocity(a.conductivity_m_s);
+    const suctionFloor = headerLevel_m - suctionLiftLimit_m;
+    const isWellpoint = w.kind === 'wellpoint';
+    const floorKind: DesignWell['floorKind'] = isWellpoint && suctionFloor > screenBottom_m ? 'suction-lift' : 'wetted-screen';
+    return {
+      id: w.id,
+      scenarioIndex: index,
+      x: w.x,
+      y: w.y,
+      radius_m: w.radius_m,
+      kind: w.kind,
+      start_s: startOf.get(w.id) ?? 0,
+      screenTop_m,
+      screenBottom_m,
+      wellLoss_s2_m5: w.wellLoss_s2_m5 ?? 0,
+      capacityPerMetre_m2_s: alpha,
+      fullScreenCapacity_m3_s: alpha * Math.max(0, screenTop_m - screenBottom_m),
+      minimumLevel_m: floorKind === 'suction-lift' ? suctionFloor : screenBottom_m,
+      floorKind,
+    };
+  });
+}
+
+export interface BuildLimitRowsOptions {
+  aquifer: Aquifer;
+  wells: DesignWell[];
+  /** Face responses: row j = the variable at well j's face per m³/s from each well (nW × nW). */
+  faceResponse: Float64Array;
+  /** The superposed variable that gives a level exactly (drawdown or s_c). */
+  variableForLevel: (level_m: number) => number;
+}
+
+export interface WellLimitRows {
+  limits: LimitRow[];
+  upper: Float64Array;
+  upperKind: Array<'capacity' | 'suction-lift' | 'wetted-screen'>;
+}
+
+/** Linear, conservative rows for every well's floor and Sichardt limit (see the file comment). */
+export function buildLimitRows({ aquifer, wells, faceResponse, variableForLevel }: BuildLimitRowsOptions): WellLimitRows {
+  const n = wells.length;
+  const staticLevel = aquifer.staticLevel_m;
+  const limits: LimitRow[] = [];
+  const upper = new Float64Array(n);
+  const upperKind: WellLimitRows['upperKind'] = [];
+  wells.forEach((w, j) => {
+    let cap = Math.min(w.fullScreenCapacity_m3_s, MAX_WELL_RATE_M3_S);
+    let kind: WellLimitRows['upperKind'][number] = 'capacity';
+    const C = w.wellLoss_s2_m5;
+    const lowestFloor = w.screenBottom_m;
+    if (C > 0) {
+      const byLoss = Math.sqrt(Math.max(0, staticLevel - lowestFloor) / C);
+      if (byLoss < cap) {
+        cap = byLoss;
+        kind = 'wetted-screen';
+      }
+    }
+    if (w.floorKind === 'suction-lift' && w.minimumLevel_m >= staticLevel) {
+      cap = 0;
+      kind = 'suction-lift';
+    }
+    upper[j] = cap;
+    upperKind.push(kind);
+    const face = faceResponse.subarray(j * n, (j + 1) * n);
+    const secant = C * cap;
+
+    if (w.floorKind === 'suction-lift' && w.minimumLevel_m < staticLevel) {
+      const L = w.minimumLevel_m;
+      const kappa = (staticLevel - L) / variableForLevel(L);
+      const coefficients = Float64Array.from(face, (b) => kappa * b);
+      coefficients[j] = coefficients[j]! + secant;
+      limits.push({ wellIndex: j, kind: 'suction-lift', coefficients, rhs: staticLevel - L });
+    }
+    if (w.screenBottom_m < staticLevel && cap > 0) {
+      const alpha = w.capacityPerMetre_m2_s;
+      const kappa = (staticLevel - w.screenBottom_m) / variableForLevel(w.screenBottom_m);
+      const coefficients = Float64Array.from(face, (b) => alpha * kappa * b);
+      coefficients[j] = coefficients[j]! + 1 + alpha * secant;
+      limits.push({ wellIndex: j, kind: 'wetted-screen', coefficients, rhs: alpha * (staticLevel - w.screenBottom_m) });
+    }
+  });
+  return { limits, upper, upperKind };
+}

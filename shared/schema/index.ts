@@ -1,4 +1,5 @@
 export * from './scenario-schema';
 export * from './validate-scenario';
 export * from './error-table';
+export * from './design-options-schema';
 export * from './monitoring-schema';

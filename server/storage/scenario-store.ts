@@ -5,7 +5,7 @@
  * Every save is an immutable revision: nothing here updates or deletes a stored revision.
  * Share links and site readings live beside the revisions but are not revisions themselves.
  */
-import type { Scenario } from '../../shared/schema';
+import { DrydigError, type Scenario } from '../../shared/schema';
 
 /** What the history shows about one revision (no scenario body). */
 export interface RevisionMeta {
@@ -135,10 +135,12 @@ export interface ScenarioStore {
   close(): Promise<void>;
 }
 
-/** A stored revision whose text no longer matches its hash (disk or copy damage). */
-export class StoredDataDamagedError extends Error {
+/**
+ * A stored revision whose text no longer matches its hash (disk or copy damage). A DrydigError, so
+ * the service answers DRYDIG_ERR_STORED_DATA_DAMAGED (500) instead of serving altered data.
+ */
+export class StoredDataDamagedError extends DrydigError {
   constructor(scenarioId: string, revision: number) {
-    super(`stored revision ${revision} of scenario ${scenarioId} does not match its checksum`);
-    this.name = 'StoredDataDamagedError';
+    super('DRYDIG_ERR_STORED_DATA_DAMAGED', `stored revision ${revision} of scenario ${scenarioId} does not match its checksum`);
   }
 }

@@ -8,7 +8,7 @@
 import { existsSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { FastifyPluginAsync, FastifyReply } from 'fastify';
+import type { FastifyPluginAsync, FastifyReply, FastifyRequest } from 'fastify';
 import fastifyStatic from '@fastify/static';
 
 export interface ClientStaticOptions {
@@ -66,6 +66,8 @@ export const clientStatic: FastifyPluginAsync<ClientStaticOptions> = async (app,
     dotfiles: 'ignore',
     redirect: false,
     list: false,
+    // Our own cache headers (setHeaders) instead of send's blanket max-age=0.
+    cacheControl: false,
     allowedPath: (pathname) => isSafeClientPath(pathname),
     setHeaders: (res, filePath) => {
       // vite fingerprints files under assets/, so they can be cached for good; pages must revalidate.
@@ -76,7 +78,15 @@ export const clientStatic: FastifyPluginAsync<ClientStaticOptions> = async (app,
     },
   });
 
-  const sitePage = async (_request: unknown, reply: FastifyReply) => {
+  const sitePage = async (request: FastifyRequest, reply: FastifyReply) => {
+    // The client is built with relative asset URLs (vite base './'), so the page at /site/a/b asks
+    // for /site/a/assets/x.js: serve those from the one assets folder.
+    const rest = (request.params as Record<string, string | undefined>)['*'] ?? '';
+    const asset = /(?:^|\/)(assets\/.+)$/.exec(rest)?.[1];
+    if (asset !== undefined) {
+      if (!isSafeClientPath(asset)) return reply.callNotFound();
+      return reply.sendFile(asset);
+    }
     if (!existsSync(path.join(root, 'site.html'))) return reply.callNotFound();
     return reply.header('cache-control', 'no-cache').sendFile('site.html');
   };

@@ -6,7 +6,7 @@
  * Every save names the revision it was based on; a stale save gets 409 with the newer revision,
  * so no edit is silently lost.
  */
-import type { FastifyInstance, FastifyPluginAsync, FastifyReply } from 'fastify';
+import type { FastifyInstance, FastifyReply } from 'fastify';
 import fp from 'fastify-plugin';
 import { Type, type Static } from '@sinclair/typebox';
 import { DrydigError } from '../../shared/schema';

@@ -6,7 +6,6 @@
 import fp from 'fastify-plugin';
 import helmet from '@fastify/helmet';
 import rateLimit from '@fastify/rate-limit';
-import type { FastifyPluginAsync } from 'fastify';
 import { DrydigError } from '../../shared/schema';
 import { buildCspDirectives } from './content-security-policy';
 

@@ -28,7 +28,7 @@ export interface DxfOptions {
 
 /** DXF text cannot hold control characters; keep labels to printable text. */
 function dxfText(text: string): string {
-  return text.replace(/[\u0000-\u001f\u007f]/g, ' ').slice(0, 250);
+  return Array.from(text, (c) => (c.charCodeAt(0) < 32 || c.charCodeAt(0) === 127 ? ' ' : c)).join('').slice(0, 250);
 }
 
 /** The DXF file text. */

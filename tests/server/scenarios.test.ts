@@ -4,6 +4,7 @@
  */
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
+import type { Scenario } from '../../shared/schema';
 import { createStored, demoScenario, memoryApp } from './scenarios-helpers';
 
 let app: FastifyInstance;
@@ -34,14 +35,16 @@ describe('POST /api/v1/scenarios', () => {
     expect(ids.size).toBe(20);
   });
 
-  it.each([
-    ['a wrong type inside the scenario', (s: Record<string, any>) => { s.wells[3].rate_m3_s = 'lots'; }, '/scenario/wells/3/rate_m3_s', 'DRYDIG_ERR_INVALID_SCENARIO'],
-    ['a missing aquifer field', (s: Record<string, any>) => { delete s.aquifer.conductivity_m_s; }, '/scenario/aquifer/conductivity_m_s', 'DRYDIG_ERR_INVALID_SCENARIO'],
-    ['a bad monitoring piezometer', (s: Record<string, any>) => { s.monitoring = { piezometers: [{ id: 'P1', x: 'east', y: 0 }] }; }, '/scenario/monitoring/piezometers/0/x', 'DRYDIG_ERR_INVALID_SCENARIO'],
-    ['a duplicate piezometer id', (s: Record<string, any>) => { s.monitoring = { piezometers: [{ id: 'P1', x: 0, y: 0 }, { id: 'P1', x: 1, y: 1 }] }; }, '/scenario/monitoring/piezometers/1/id', 'DRYDIG_ERR_INVALID_SCENARIO'],
-    ['a pumping start that is not a date', (s: Record<string, any>) => { s.monitoring = { piezometers: [], pumpingStart: 'next Monday' }; }, '/scenario/monitoring/pumpingStart', 'DRYDIG_ERR_INVALID_SCENARIO'],
-  ])('refuses %s with 400 naming the field', async (_label, spoil, path, code) => {
-    const scenario = demoScenario('confined') as unknown as Record<string, any>;
+  type Spoil = (s: Scenario & { monitoring?: unknown }) => void;
+  const spoilers: Array<[string, Spoil, string, string]> = [
+    ['a wrong type inside the scenario', (s) => { s.wells[3]!.rate_m3_s = 'lots' as unknown as number; }, '/scenario/wells/3/rate_m3_s', 'DRYDIG_ERR_INVALID_SCENARIO'],
+    ['a missing aquifer field', (s) => { delete (s.aquifer as Partial<Scenario['aquifer']>).conductivity_m_s; }, '/scenario/aquifer/conductivity_m_s', 'DRYDIG_ERR_INVALID_SCENARIO'],
+    ['a bad monitoring piezometer', (s) => { s.monitoring = { piezometers: [{ id: 'P1', x: 'east', y: 0 }] }; }, '/scenario/monitoring/piezometers/0/x', 'DRYDIG_ERR_INVALID_SCENARIO'],
+    ['a duplicate piezometer id', (s) => { s.monitoring = { piezometers: [{ id: 'P1', x: 0, y: 0 }, { id: 'P1', x: 1, y: 1 }] }; }, '/scenario/monitoring/piezometers/1/id', 'DRYDIG_ERR_INVALID_SCENARIO'],
+    ['a pumping start that is not a date', (s) => { s.monitoring = { piezometers: [], pumpingStart: 'next Monday' }; }, '/scenario/monitoring/pumpingStart', 'DRYDIG_ERR_INVALID_SCENARIO'],
+  ];
+  it.each(spoilers)('refuses %s with 400 naming the field', async (_label, spoil, path, code) => {
+    const scenario = demoScenario('confined');
     spoil(scenario);
     const res = await app.inject({ method: 'POST', url: '/api/v1/scenarios', payload: { scenario } });
     expect(res.statusCode).toBe(400);

@@ -1,0 +1,738 @@
+/**
+ * <drydig-app>: the plan-map page. Owns the scenario store (undo/redo), the engine worker client
+ * and the view state, lays out the map and the panels, and turns map gestures into edits.
+ * Results are recomputed off the main thread: a coarse grid at once while dragging, a fine grid
+ * shortly after the last change, stale jobs cancelled.
+ */
+import { html, nothing } from 'lit';
+import { LightElement } from './light-element';
+import demoWellpoints from '../../fixtures/demo-wellpoints-unconfined.json';
+import demoDeepwells from '../../fixtures/demo-deepwells-confined.json';
+import { validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
+import { logSpacedTimes } from '../../shared/field';
+import { isPointInPolygon } from '../../shared/geometry';
+import { formatQuantity, resolveDisplayUnits, type DisplayUnits, type UnitSystem } from '../../shared/units';
+import { ScenarioStore, getViewSettings, setViewSettings, type ChangeKind, type ContourQuantity, type SectionLine } from '../state';
+import { EngineClient, EngineError, type FieldResult, type InspectResult, type SectionResult } from '../worker';
+import { resolveSiteProjection, formatLonLat, type ProjectionProblem, type SiteProjection } from '../crs';
+import type { LeafletMapController, MapTool } from '../map';
+import { nextWellIds } from '../layout';
+import { formatDuration } from './time-format';
+import { methodName } from './results-panel';
+import './plan-map';
+import './map-legend';
+import './shortfall-badges';
+import './results-panel';
+import './ground-panel';
+import './well-editor';
+import './ring-generator';
+import './excavation-editor';
+import './backdrop-panel';
+import './time-chart';
+import './section-chart';
+import './caution-note';
+import './design-panel';
+
+type Tab = 'layout' | 'ground' | 'results' | 'design' | 'backdrop';
+
+const DEMOS: Record<string, { label: string; scenario: Scenario }> = {
+  wellpoints: { label: 'Demo: well points, unconfined (Quarry Lane)', scenario: demoWellpoints as unknown as Scenario },
+  deepwells: { label: 'Demo: deep wells, confined, river (Ferry Road)', scenario: demoDeepwells as unknown as Scenario },
+};
+
+const TOOLS: Array<[MapTool, string, string]> = [
+  ['select', 'Select', 'Select, drag and inspect (Esc)'],
+  ['add-well', 'Well', 'Click to place wells (W)'],
+  ['draw-excavation', 'Outline', 'Click the corners of an excavation; double-click or Enter to finish (O)'],
+  ['section', 'Section', 'Click A then B to draw a cross-section (X)'],
+  ['boundary', 'Boundary', 'Click two points on a straight boundary line (B)'],
+];
+
+/** Grid nodes on the longer side of the view: coarse while dragging, fine when idle. */
+const COARSE_NODES = 44;
+const FINE_NODES = 150;
+
+/** The read-only test hook (`window.__drydig`): counts and state, never a way to edit. */
+export interface DrydigTestHook {
+  scenario(): Scenario;
+  result(): { id: number; levels: number; shortfall: Array<{ id: string; met: boolean; worstShortfall_m: number }>; time_s: number | null } | null;
+  pagePoint(x: number, y: number): { x: number; y: number } | null;
+  latencies_ms: number[];
+  fieldsDrawn: number;
+  busy(): boolean;
+}
+
+export class DrydigApp extends LightElement {
+  static override properties = {
+    scenario: { state: true }, tab: { state: true }, tool: { state: true }, wellId: { state: true }, excavationId: { state: true },
+    result: { state: true }, computing: { state: true }, engineError: { state: true }, issues: { state: true },
+    timeIndex: { state: true }, cursor: { state: true }, notice: { state: true }, inspect: { state: true },
+    section: { state: true }, drawer: { state: true }, demo: { state: true }, newWell: { state: true },
+  };
+  declare scenario: Scenario;
+  declare tab: Tab;
+  declare tool: MapTool;
+  declare wellId: string | null;
+  declare excavationId: string | null;
+  declare result: FieldResult | null;
+  declare computing: number;
+  declare engineError: string;
+  declare issues: FieldIssue[];
+  declare timeIndex: number;
+  declare cursor: string;
+  declare notice: string;
+  declare inspect: InspectResult | null;
+  declare section: SectionResult | null;
+  declare drawer: 'inspect' | 'section' | null;
+  declare demo: string;
+  declare newWell: { kind: WellKind; radius_m: number; rate_m3_s: number };
+
+  private readonly store: ScenarioStore;
+  private engine: EngineClient | null = null;
+  private controller: LeafletMapController | null = null;
+  private fineTimer = 0;
+  private coarseFrame = 0;
+  private pendingInputAt: number | null = null;
+  private lastDrawnId = 0;
+  private engineKey = '';
+  private pickingRef: 0 | 1 | null = null;
+  private projection: SiteProjection | ProjectionProblem | null = null;
+  private readonly hook: DrydigTestHook;
+  private noticeTimer = 0;
+
+  constructor() {
+    super();
+    this.demo = 'wellpoints';
+    this.store = new ScenarioStore(DEMOS.wellpoints!.scenario);
+    this.scenario = this.store.scenario;
+    this.tab = 'results';
+    this.tool = 'select';
+    this.wellId = null;
+    this.excavationId = null;
+    this.result = null;
+    this.computing = -1;
+    this.engineError = '';
+    this.issues = [];
+    this.timeIndex = Number.MAX_SAFE_INTEGER;
+    this.cursor = '';
+    this.notice = '';
+    this.inspect = null;
+    this.section = null;
+    this.drawer = null;
+    this.newWell = { kind: 'wellpoint', radius_m: 0.05, rate_m3_s: 0.0006 };
+    this.store.subscribe((s, kind) => this.onStoreChange(s, kind));
+    this.hook = {
+      scenario: () => structuredClone(this.store.scenario),
+      result: () => this.result && {
+        id: this.result.id, levels: this.result.levels.length, time_s: this.result.time_s,
+        shortfall: this.result.shortfall.map((s) => ({ id: s.id, met: s.met, worstShortfall_m: s.worstShortfall_m })),
+      },
+      pagePoint: (x, y) => this.controller?.pagePoint(x, y) ?? null,
+      latencies_ms: [],
+      fieldsDrawn: 0,
+      busy: () => this.computing >= 0 || this.fineTimer !== 0,
+    };
+    (window as unknown as { __drydig: DrydigTestHook }).__drydig = this.hook;
+  }
+
+  // ————— derived —————
+
+  private get units(): DisplayUnits {
+    const u = getViewSettings(this.scenario).units ?? {};
+    return resolveDisplayUnits(u.system === 'us' ? 'us' : 'si', { rate: u.rate, velocity: u.velocity });
+  }
+
+  private get unitSystem(): UnitSystem {
+    return getViewSettings(this.scenario).units?.system === 'us' ? 'us' : 'si';
+  }
+
+  private get quantity(): ContourQuantity {
+    return getViewSettings(this.scenario).contour?.quantity === 'level' ? 'level' : 'drawdown';
+  }
+
+  private get times(): Array<number | null> {
+    const T = this.scenario.design.time_s;
+    if (T === null || !(T > 0)) return [null];
+    return logSpacedTimes({ end_s: T, count: 16, start_s: T / 1000 });
+  }
+
+  private get time_s(): number | null {
+    const times = this.times;
+    return times[Math.min(this.timeIndex, times.length - 1)] ?? null;
+  }
+
+  // ————— lifecycle —————
+
+  override connectedCallback(): void {
+    super.connectedCallback();
+    this.engine ??= new EngineClient();
+    document.addEventListener('keydown', this.onKey);
+  }
+
+  override disconnectedCallback(): void {
+    super.disconnectedCallback();
+    document.removeEventListener('keydown', this.onKey);
+    this.engine?.dispose();
+    this.engine = null;
+  }
+
+  private onMapReady(controller: LeafletMapController): void {
+    this.controller = controller;
+    this.controller.fitScenario(this.scenario);
+    this.syncMap();
+    this.validate();
+    this.scheduleField('fine', true);
+  }
+
+  private onStoreChange(s: Scenario, kind: ChangeKind): void {
+    this.scenario = s;
+    if (kind === 'load') {
+      this.wellId = null;
+      this.excavationId = null;
+      this.inspect = null;
+      this.section = null;
+      this.result = null;
+      this.timeIndex = Number.MAX_SAFE_INTEGER;
+      this.controller?.setField(null, this.fieldStyle(null));
+      this.controller?.setSection(null);
+      this.controller?.setInspectPoint(null);
+      this.controller?.setCriticalPoints([]);
+      this.controller?.fitScenario(s);
+    }
+    if (this.wellId && !s.wells.some((w) => w.id === this.wellId)) this.wellId = null;
+    if (this.excavationId && !s.excavations.some((e) => e.id === this.excavationId)) this.excavationId = null;
+    this.syncMap();
+    this.validate();
+    if (kind === 'preview') {
+      this.pendingInputAt ??= performance.now();
+      performance.mark('dd-input');
+      this.scheduleField('coarse');
+    } else {
+      this.scheduleField('coarse');
+      this.scheduleField('fine');
+    }
+  }
+
+  private validate(): void {
+    const v = validateScenario(this.scenario);
+    this.issues = v.ok ? [] : v.issues;
+  }
+
+  private syncMap(): void {
+    const c = this.controller;
+    if (!c) return;
+    const s = this.scenario;
+    const view = getViewSettings(s);
+    c.setScenario(s, { wellId: this.wellId, excavationId: this.excavationId });
+    c.setImperialScale(this.unitSystem === 'us');
+    const u = this.units;
+    c.setGridLabelFormat((v) => formatQuantity(v, u.length, { decimals: 0 }));
+    c.setUnderlay(view.underlay ?? null);
+    this.projection = resolveSiteProjection({ crs: s.crs, proj4: s.proj4 });
+    c.setTiles(view.tileUrl ?? null, this.projection.ok ? this.projection : null);
+    const sec = view.sections?.[0];
+    c.setSection(sec ?? null);
+  }
+
+  // ————— computing —————
+
+  private scheduleField(mode: 'coarse' | 'fine', immediate = false): void {
+    if (mode === 'coarse') {
+      if (this.coarseFrame) return;
+      this.coarseFrame = requestAnimationFrame(() => {
+        this.coarseFrame = 0;
+        void this.computeField('coarse');
+      });
+      return;
+    }
+    clearTimeout(this.fineTimer);
+    this.fineTimer = window.setTimeout(() => {
+      this.fineTimer = 0;
+      void this.computeField('fine');
+      void this.refreshInspections();
+    }, immediate ? 0 : 180);
+  }
+
+  private fieldStyle(r: FieldResult | null) {
+    const u = this.units;
+    const step = r && r.levels.length > 1 ? Math.abs(r.levels[1]! - r.levels[0]!) : 1;
+    const decimals = step >= 1 ? 0 : step >= 0.1 ? 1 : 2;
+    return {
+      formatLevel: (v: number) => formatQuantity(v, u.length, { decimals, withUnit: false }),
+      staticLevel_m: this.scenario.aquifer.staticLevel_m,
+      maxDrawdown_m: r?.drawdownRange.max ?? 1,
+    };
+  }
+
+  private async computeField(mode: 'coarse' | 'fine'): Promise<void> {
+    const c = this.controller;
+    const engine = this.engine;
+    if (!c || !engine) return;
+    if (this.issues.length > 0) {
+      this.engineError = '';
+      return;
+    }
+    const inputAt = mode === 'coarse' ? this.pendingInputAt : null;
+    if (mode === 'coarse') this.pendingInputAt = null;
+    const grid = c.viewGrid(mode === 'coarse' ? COARSE_NODES : FINE_NODES);
+    const view = getViewSettings(this.scenario);
+    try {
+      const res = await engine.field(
+        {
+          scenario: this.scenario, grid, time_s: this.time_s, quantity: this.quantity, step_m: view.contour?.step_m,
+          pitNodes: mode === 'coarse' ? 17 : 41, strips: mode === 'coarse' ? 1 : 6,
+        },
+        mode === 'fine' ? (f) => (this.computing = f < 1 ? f : -1) : undefined,
+      );
+      if (mode === 'fine') this.computing = -1;
+      if (!res || res.id < this.lastDrawnId) return;
+      this.lastDrawnId = res.id;
+      this.engineError = '';
+      this.result = res;
+      c.setField(res, this.fieldStyle(res));
+      this.hook.fieldsDrawn++;
+      if (inputAt !== null) {
+        const end = performance.now();
+        performance.measure('dd-input-to-contours', { start: inputAt, end });
+        this.hook.latencies_ms.push(end - inputAt);
+      }
+    } catch (error) {
+      this.computing = -1;
+      this.engineError = error instanceof EngineError ? error.message : `The engine failed: ${(error as Error).message}`;
+    }
+  }
+
+  private async refreshInspections(): Promise<void> {
+    const engine = this.engine;
+    if (!engine || this.issues.length > 0) return;
+    const point = this.inspect?.point;
+    const sec = getViewSettings(this.scenario).sections?.[0];
+    try {
+      if (point) await this.runInspect(point);
+      if (sec) this.section = await engine.section({ scenario: this.scenario, from: sec.from, to: sec.to, samples: 240, time_s: this.time_s });
+      else this.section = null;
+    } catch (error) {
+      this.engineError = (error as Error).message;
+    }
+  }
+
+  private async runInspect(point: [number, number]): Promise<void> {
+    const T = this.scenario.design.time_s;
+    const times = T === null ? [] : logSpacedTimes({ end_s: T, count: 60, start_s: T / 1e4 });
+    this.inspect = await this.engine!.inspect({ scenario: this.scenario, point, times_s: times, time_s: this.time_s });
+    this.controller?.setInspectPoint(point);
+  }
+
+  // ————— map gestures —————
+
+  private onMapEvent(e: CustomEvent<unknown[]>): void {
+    const a = e.detail;
+    switch (e.type) {
+      case 'map-cursor': {
+        const [x, y] = a as [number | null, number];
+        if (x === null) return void (this.cursor = '');
+        const u = this.units;
+        const p = this.projection;
+        const ll = p?.ok ? ` · ${formatLonLat(...p.toLonLat(x, y))}` : '';
+        this.cursor = `E ${formatQuantity(x, u.length, { decimals: 2 })}   N ${formatQuantity(y, u.length, { decimals: 2 })}${ll}`;
+        return;
+      }
+      case 'map-click': {
+        const [tool, x, y] = a as [MapTool, number, number];
+        if (tool === 'add-well') this.addWell(x, y);
+        else if (tool === 'pick-point') this.pickUnderlayPoint(x, y);
+        else if (tool === 'select') {
+          this.drawer = 'inspect';
+          void this.runInspect([x, y]).catch((err) => (this.engineError = (err as Error).message));
+        }
+        return;
+      }
+      case 'map-selectWell': {
+        const [id] = a as [string | null];
+        this.wellId = id;
+        if (id) this.tab = 'layout';
+        this.controller?.setScenario(this.scenario, { wellId: this.wellId, excavationId: this.excavationId });
+        return;
+      }
+      case 'map-selectExcavation': {
+        const [id] = a as [string | null];
+        this.excavationId = id;
+        if (id) this.tab = 'layout';
+        this.controller?.setScenario(this.scenario, { wellId: this.wellId, excavationId: this.excavationId });
+        return;
+      }
+      case 'map-dragWell': {
+        const [id, x, y, phase] = a as [string, number, number, 'move' | 'end' | 'cancel'];
+        if (phase === 'cancel') return this.store.cancelGesture();
+        this.store.preview((d) => {
+          const w = d.wells.find((k) => k.id === id);
+          if (w) {
+            w.x = x;
+            w.y = y;
+          }
+        });
+        if (phase === 'end') this.store.commit(`move ${id}`);
+        return;
+      }
+      case 'map-dragVertex': {
+        const [id, i, x, y, phase] = a as [string, number, number, number, 'move' | 'end' | 'cancel'];
+        if (phase === 'cancel') return this.store.cancelGesture();
+        this.store.preview((d) => {
+          const ex = d.excavations.find((k) => k.id === id);
+          if (ex?.outline[i]) ex.outline[i] = [x, y];
+        });
+        if (phase === 'end') this.store.commit(`reshape ${id}`);
+        return;
+      }
+      case 'map-insertVertex': {
+        const [id, after, x, y] = a as [string, number, number, number];
+        this.store.apply(`add corner to ${id}`, (d) => void d.excavations.find((k) => k.id === id)?.outline.splice(after + 1, 0, [x, y]));
+        return;
+      }
+      case 'map-drawnOutline': {
+        const [pts] = a as [Array<[number, number]>];
+        const s = this.scenario;
+        const taken = new Set(s.excavations.map((k) => k.id));
+        let n = s.excavations.length + 1;
+        while (taken.has(`pit-${n}`)) n++;
+        const id = `pit-${n}`;
+        const last = s.excavations[s.excavations.length - 1];
+        this.store.apply(`draw ${id}`, (d) => void d.excavations.push({
+          id, outline: pts, formationLevel_m: last?.formationLevel_m ?? s.groundLevel_m - 3, margin_m: last?.margin_m ?? 0.5,
+        }));
+        this.excavationId = id;
+        this.tab = 'layout';
+        this.setTool('select');
+        this.say(`Drew ${id} (${pts.length} corners). Set its formation level in Layout.`);
+        return;
+      }
+      case 'map-drawnLine': {
+        const [tool, from, to] = a as ['section' | 'boundary', [number, number], [number, number]];
+        if (tool === 'section') {
+          this.store.apply('draw section', (d) => setViewSettings(d, { sections: [{ from, to } satisfies SectionLine] }));
+          this.drawer = 'section';
+        } else {
+          if ((this.scenario.boundaries?.length ?? 0) >= 8) return this.say('The scenario holds at most 8 boundaries.');
+          this.store.apply('draw boundary', (d) => {
+            d.boundaries = [...(d.boundaries ?? []), { kind: 'constant-head', from, to }];
+          });
+          this.tab = 'ground';
+          this.say('Boundary added as constant-head; change its kind in Ground.');
+        }
+        this.setTool('select');
+        return;
+      }
+      case 'map-viewChanged':
+        this.scheduleField('fine');
+        return;
+      case 'map-focusExcavation':
+        this.focusExcavation((a as [string])[0]);
+        return;
+    }
+  }
+
+  private addWell(x: number, y: number): void {
+    const s = this.scenario;
+    if (s.wells.length >= 5000) return this.say('The scenario holds at most 5000 wells.');
+    const prefix = this.newWell.kind === 'deep' ? 'DW' : this.newWell.kind === 'ejector' ? 'EJ' : 'WP';
+    const [id] = nextWellIds(prefix, 1, new Set(s.wells.map((w) => w.id)));
+    const well: Well = { id: id!, x, y, radius_m: this.newWell.radius_m, kind: this.newWell.kind, rate_m3_s: this.newWell.rate_m3_s };
+    this.store.apply(`place ${id}`, (d) => void d.wells.push(well));
+    this.wellId = id!;
+    this.controller?.setScenario(this.scenario, { wellId: this.wellId, excavationId: this.excavationId });
+  }
+
+  private deleteWell(id: string): void {
+    this.store.apply(`delete ${id}`, (d) => void (d.wells = d.wells.filter((w) => w.id !== id)));
+    this.wellId = null;
+  }
+
+  private focusExcavation(id: string): void {
+    const s = this.result?.shortfall.find((k) => k.id === id);
+    if (!s) return;
+    this.excavationId = id;
+    this.controller?.panTo(s.worst.x, s.worst.y);
+    this.drawer = 'inspect';
+    void this.runInspect([s.worst.x, s.worst.y]);
+  }
+
+  private pickUnderlayPoint(x: number, y: number): void {
+    const k = this.pickingRef;
+    this.pickingRef = null;
+    this.setTool('select');
+    const under = getViewSettings(this.scenario).underlay;
+    if (k === null || !under) return;
+    const next = structuredClone(under);
+    next.refs[k].site = [x, y];
+    this.store.apply('place underlay', (d) => setViewSettings(d, { underlay: next }));
+    this.tab = 'backdrop';
+  }
+
+  private setTool(tool: MapTool): void {
+    this.tool = tool;
+    this.controller?.setTool(tool);
+  }
+
+  private say(text: string): void {
+    this.notice = text;
+    clearTimeout(this.noticeTimer);
+    this.noticeTimer = window.setTimeout(() => (this.notice = ''), 6000);
+  }
+
+  private onKey = (e: KeyboardEvent): void => {
+    const target = e.target as HTMLElement | null;
+    const typing = target && (target.tagName === 'INPUT' || target.tagName === 'TEXTAREA' || target.tagName === 'SELECT' || target.isContentEditable);
+    const mod = e.ctrlKey || e.metaKey;
+    if (mod && e.key.toLowerCase() === 'z' && !typing) {
+      e.preventDefault();
+      if (e.shiftKey) this.store.redo();
+      else this.store.undo();
+      return;
+    }
+    if (mod && e.key.toLowerCase() === 'y' && !typing) {
+      e.preventDefault();
+      this.store.redo();
+      return;
+    }
+    if (typing || mod) return;
+    if (e.key === 'Escape') {
+      this.controller?.clearDraft();
+      this.setTool('select');
+    } else if (e.key === 'Enter' && this.tool === 'draw-excavation') this.controller?.finishOutline();
+    else if ((e.key === 'Delete' || e.key === 'Backspace') && this.wellId) this.deleteWell(this.wellId);
+    else if (e.key === 'w' || e.key === 'W') this.setTool('add-well');
+    else if (e.key === 'o' || e.key === 'O') this.setTool('draw-excavation');
+    else if (e.key === 'x' || e.key === 'X') this.setTool('section');
+    else if (e.key === 'b' || e.key === 'B') this.setTool('boundary');
+  };
+
+  // ————— files —————
+
+  private async openFile(e: Event): Promise<void> {
+    const input = e.target as HTMLInputElement;
+    const file = input.files?.[0];
+    input.value = '';
+    if (!file) return;
+    let doc: unknown;
+    try {
+      doc = JSON.parse(await file.text());
+    } catch (error) {
+      return this.say(`${file.name} is not valid JSON: ${(error as Error).message}`);
+    }
+    const v = validateScenario(doc);
+    if (!v.ok) {
+      const first = v.issues.slice(0, 3).map((i) => `${i.path} ${i.message}`).join('; ');
+      return this.say(`${file.name} was not opened — ${first}${v.issues.length > 3 ? ` (+${v.issues.length - 3} more)` : ''}. Your current scenario is unchanged.`);
+    }
+    this.demo = '';
+    this.store.load(v.scenario);
+    this.say(`Opened ${file.name}.`);
+  }
+
+  private saveFile(): void {
+    const blob = new Blob([JSON.stringify(this.store.scenario, null, 1)], { type: 'application/json' });
+    const a = document.createElement('a');
+    a.href = URL.createObjectURL(blob);
+    a.download = `${(this.scenario.name || 'scenario').replace(/[^\w.-]+/g, '-').slice(0, 60)}.drydig.json`;
+    a.click();
+    setTimeout(() => URL.revokeObjectURL(a.href), 1000);
+  }
+
+  private setUnits(system: UnitSystem, rate?: string): void {
+    this.store.apply('display units', (d) => setViewSettings(d, { units: { ...getViewSettings(d).units, system, ...(rate ? { rate } : { rate: undefined }) } }));
+  }
+
+  private onDesignResult(e: CustomEvent<{ apply?: boolean; wells?: Array<{ id: string; rate_m3_s: number }>; excavations?: Array<{ id: string; critical?: { x: number; y: number; level_m: number } }> }>): void {
+    const d = e.detail ?? {};
+    const u = this.units;
+    const crit = (d.excavations ?? []).filter((x) => x.critical && Number.isFinite(x.critical.x) && Number.isFinite(x.critical.y))
+      .map((x) => ({ x: x.critical!.x, y: x.critical!.y, label: `${x.id}: critical point, ${formatQuantity(x.critical!.level_m, u.length, { decimals: 2 })}` }));
+    this.controller?.setCriticalPoints(crit);
+    if (d.apply && Array.isArray(d.wells)) {
+      const rates = new Map(d.wells.filter((w) => typeof w.id === 'string' && Number.isFinite(w.rate_m3_s)).map((w) => [w.id, w.rate_m3_s]));
+      this.store.apply('apply design rates', (draft) => {
+        for (const w of draft.wells) {
+          const r = rates.get(w.id);
+          if (r === undefined) continue;
+          w.rate_m3_s = r;
+          delete w.schedule;
+        }
+      });
+      this.say(`Applied design rates to ${rates.size} wells (undo with Ctrl+Z).`);
+    }
+  }
+
+  // ————— render —————
+
+  override render() {
+    const s = this.scenario;
+    const u = this.units;
+    const view = getViewSettings(s);
+    const times = this.times;
+    const ti = Math.min(this.timeIndex, times.length - 1);
+    const pitAtInspect = this.inspect ? s.excavations.find((e) => isPointInPolygon(this.inspect!.point[0], this.inspect!.point[1], e.outline)) : undefined;
+    return html`
+      <header class="dd-top">
+        <div class="dd-brand"><span class="dd-logo" aria-hidden="true"></span><span>drydig</span></div>
+        <input class="dd-name" type="text" aria-label="Scenario name" .value=${s.name} maxlength="200"
+          @change=${(e: Event) => this.store.apply('rename scenario', (d) => void (d.name = (e.target as HTMLInputElement).value))} />
+        <div class="dd-group">
+          <select aria-label="Demo site" name="demo" @change=${(e: Event) => {
+            const key = (e.target as HTMLSelectElement).value;
+            const demo = DEMOS[key];
+            if (!demo) return;
+            this.demo = key;
+            this.store.load(demo.scenario);
+          }}>
+            <option value="" ?selected=${this.demo === ''} disabled>Own scenario</option>
+            ${Object.entries(DEMOS).map(([k, d]) => html`<option value=${k} ?selected=${this.demo === k}>${d.label}</option>`)}
+          </select>
+          <label class="dd-button-like">Open…<input type="file" name="open-scenario" accept=".json,application/json" hidden @change=${(e: Event) => void this.openFile(e)} /></label>
+          <button type="button" name="save" @click=${() => this.saveFile()}>Save</button>
+        </div>
+        <div class="dd-group">
+          <button type="button" name="undo" ?disabled=${!this.store.canUndo} title=${this.store.undoLabel ? `Undo ${this.store.undoLabel} (Ctrl+Z)` : 'Nothing to undo'} @click=${() => this.store.undo()}>↶ Undo</button>
+          <button type="button" name="redo" ?disabled=${!this.store.canRedo} title=${this.store.redoLabel ? `Redo ${this.store.redoLabel} (Ctrl+Shift+Z)` : 'Nothing to redo'} @click=${() => this.store.redo()}>↷ Redo</button>
+        </div>
+        <div class="dd-group dd-tools" role="toolbar" aria-label="Map tools">
+          ${TOOLS.map(([t, label, tip]) => html`<button type="button" name=${`tool-${t}`} class=${this.tool === t ? 'dd-on' : ''} aria-pressed=${this.tool === t} title=${tip} @click=${() => this.setTool(t)}>${label}</button>`)}
+        </div>
+        <div class="dd-group dd-units" role="group" aria-label="Display units">
+          <button type="button" name="units-si" class=${this.unitSystem === 'si' ? 'dd-on' : ''} aria-pressed=${this.unitSystem === 'si'} @click=${() => this.setUnits('si')}>SI</button>
+          <button type="button" name="units-us" class=${this.unitSystem === 'us' ? 'dd-on' : ''} aria-pressed=${this.unitSystem === 'us'} @click=${() => this.setUnits('us')}>US</button>
+          ${this.unitSystem === 'si' ? html`<select name="rate-unit" aria-label="Rate unit" @change=${(e: Event) => this.setUnits('si', (e.target as HTMLSelectElement).value)}>
+            ${['m³/h', 'L/s', 'm³/d'].map((r) => html`<option ?selected=${u.rate === r}>${r}</option>`)}</select>
+            <select name="velocity-unit" aria-label="Conductivity unit" @change=${(e: Event) => this.store.apply('display units', (d) => setViewSettings(d, { units: { ...getViewSettings(d).units, velocity: (e.target as HTMLSelectElement).value } }))}>
+            ${['m/s', 'm/d'].map((r) => html`<option ?selected=${u.velocity === r}>${r}</option>`)}</select>` : nothing}
+        </div>
+      </header>
+      <main class="dd-main">
+        <section class="dd-map-area" aria-label="Plan">
+          <plan-map @map-ready=${(e: CustomEvent<LeafletMapController>) => this.onMapReady(e.detail)}
+            @map-cursor=${this.onMapEvent} @map-click=${this.onMapEvent} @map-selectWell=${this.onMapEvent} @map-selectExcavation=${this.onMapEvent}
+            @map-dragWell=${this.onMapEvent} @map-dragVertex=${this.onMapEvent} @map-insertVertex=${this.onMapEvent} @map-drawnOutline=${this.onMapEvent}
+            @map-drawnLine=${this.onMapEvent} @map-viewChanged=${this.onMapEvent} @map-focusExcavation=${this.onMapEvent}></plan-map>
+          <div class="dd-map-top">
+            ${this.result ? html`<shortfall-badges .shortfall=${this.result.shortfall} .units=${u} ?stale=${this.computing >= 0}
+              @focus-excavation=${(e: CustomEvent<string>) => this.focusExcavation(e.detail)}></shortfall-badges>` : nothing}
+            ${this.issues.length > 0 ? html`<div class="dd-issues" role="alert"><strong>Results paused — the scenario needs fixing:</strong>
+              <ul>${this.issues.slice(0, 5).map((i) => html`<li><code>${i.path || '/'}</code> ${i.message}</li>`)}</ul></div>` : nothing}
+            ${this.engineError ? html`<div class="dd-issues" role="alert"><strong>Not computed:</strong> ${this.engineError}</div>` : nothing}
+            ${this.tool !== 'select' ? html`<div class="dd-tool-hint" role="status">${TOOLS.find((t) => t[0] === this.tool)?.[2] ?? 'Click the map to pick the site point'} — Esc to stop</div>` : nothing}
+          </div>
+          <map-legend .result=${this.result} .units=${u} .staticLevel_m=${s.aquifer.staticLevel_m} .computing=${this.computing}></map-legend>
+          <div class="dd-cursor" aria-live="off">${this.cursor || (this.projection && !this.projection.ok && s.crs ? this.projection.message : 'Site grid, metres')}</div>
+          ${this.notice ? html`<div class="dd-notice" role="status">${this.notice}</div>` : nothing}
+          ${this.drawer ? this.renderDrawer(pitAtInspect ? pitAtInspect.formationLevel_m - pitAtInspect.margin_m : null) : nothing}
+          <p class="dd-map-caution">Idealised model (homogeneous, isotropic, infinite except stated boundaries) — estimates for design; defer to site investigation, local codes and a licensed engineer.</p>
+        </section>
+        <aside class="dd-side" aria-label="Panels">
+          <nav class="dd-tabs" role="tablist">
+            ${(['layout', 'ground', 'results', 'design', 'backdrop'] as Tab[]).map((t) => html`<button type="button" role="tab" name=${`tab-${t}`} aria-selected=${this.tab === t} class=${this.tab === t ? 'dd-on' : ''} @click=${() => (this.tab = t)}>${({ layout: 'Layout', ground: 'Ground', results: 'Results', design: 'Design', backdrop: 'Backdrop' })[t]}</button>`)}
+          </nav>
+          <div class="dd-tab-body" role="tabpanel">${this.renderTab(times, ti, view.contour?.step_m)}</div>
+        </aside>
+      </main>`;
+  }
+
+  private renderTab(times: Array<number | null>, ti: number, step: number | undefined) {
+    const s = this.scenario;
+    const u = this.units;
+    switch (this.tab) {
+      case 'results':
+        return html`<results-panel .result=${this.result} .units=${u} .times=${times} .timeIndex=${ti} .quantity=${this.quantity} .step_m=${step}
+          .error=${this.engineError}
+          @quantity-change=${(e: CustomEvent<ContourQuantity>) => this.store.apply('contour quantity', (d) => setViewSettings(d, { contour: { ...getViewSettings(d).contour, quantity: e.detail } }))}
+          @step-change=${(e: CustomEvent<number | undefined>) => this.store.apply('contour interval', (d) => setViewSettings(d, { contour: { ...getViewSettings(d).contour, step_m: e.detail } }))}
+          @time-change=${(e: CustomEvent<number>) => {
+            this.timeIndex = e.detail;
+            this.scheduleField('coarse');
+            this.scheduleField('fine');
+          }}
+          @focus-excavation=${(e: CustomEvent<string>) => this.focusExcavation(e.detail)}
+          @notify=${(e: CustomEvent<string>) => this.say(e.detail)}></results-panel>`;
+      case 'ground':
+        return html`<ground-panel .store=${this.store} .scenario=${s} .units=${u} @choose-tool=${(e: CustomEvent<MapTool>) => this.setTool(e.detail)}></ground-panel>`;
+      case 'design':
+        return html`<design-panel .scenario=${s} @design-result=${this.onDesignResult}></design-panel>
+          <caution-note .notes=${this.result?.model.notes ?? []} compact></caution-note>`;
+      case 'backdrop':
+        return html`<backdrop-panel .store=${this.store} .scenario=${s} .units=${u} .projection=${this.projection}
+          @pick-underlay-ref=${(e: CustomEvent<0 | 1>) => {
+            this.pickingRef = e.detail;
+            this.setTool('pick-point');
+          }}></backdrop-panel>`;
+      case 'layout':
+      default:
+        return this.renderLayout();
+    }
+  }
+
+  private renderLayout() {
+    const s = this.scenario;
+    const u = this.units;
+    const total = s.wells.reduce((sum, w) => sum + (w.active === false ? 0 : w.rate_m3_s ?? w.schedule?.[0]?.rate_m3_s ?? 0), 0);
+    return html`<div class="dd-layout">
+      <details open class="dd-section-block"><summary><h3>Wells <small>${s.wells.length} · total ${formatQuantity(total, u.rate)}</small></h3></summary>
+        <well-editor .store=${this.store} .scenario=${s} .units=${u} .wellId=${this.wellId}
+          @select-well=${(e: CustomEvent<string>) => (this.wellId = e.detail)} @delete-well=${(e: CustomEvent<string>) => this.deleteWell(e.detail)}></well-editor>
+        <div class="dd-new-well"><span>New wells:</span>
+          <select aria-label="Kind of new wells" @change=${(e: Event) => {
+            const kind = (e.target as HTMLSelectElement).value as WellKind;
+            this.newWell = { ...this.newWell, kind, radius_m: kind === 'deep' ? 0.15 : kind === 'ejector' ? 0.05 : 0.05, rate_m3_s: kind === 'deep' ? 0.01 : 0.0006 };
+          }}>
+            <option value="wellpoint" ?selected=${this.newWell.kind === 'wellpoint'}>Well point</option>
+            <option value="deep" ?selected=${this.newWell.kind === 'deep'}>Deep well</option>
+            <option value="ejector" ?selected=${this.newWell.kind === 'ejector'}>Ejector</option></select>
+          <small>${formatQuantity(this.newWell.rate_m3_s, u.rate)} each, r = ${formatQuantity(this.newWell.radius_m, u.length, { significant: 2 })}</small>
+          <button type="button" class="dd-small" @click=${() => this.setTool('add-well')}>Place…</button></div>
+        <ul class="dd-list dd-well-list" aria-label="Wells">${s.wells.slice(0, 400).map((w) => html`<li>
+          <button type="button" class=${w.id === this.wellId ? 'dd-on' : ''} data-well=${w.id} @click=${() => {
+            this.wellId = w.id;
+            this.controller?.setScenario(this.scenario, { wellId: w.id, excavationId: this.excavationId });
+          }}><strong>${w.id}</strong><span>${w.kind}</span><span>${w.active === false ? 'off' : w.schedule ? 'schedule' : formatQuantity(w.rate_m3_s ?? 0, u.rate)}</span></button></li>`)}
+          ${s.wells.length > 400 ? html`<li class="dd-hint">… ${s.wells.length - 400} more (select them on the map)</li>` : nothing}</ul>
+      </details>
+      <details open class="dd-section-block"><summary><h3>Ring of wells</h3></summary>
+        <ring-generator .store=${this.store} .scenario=${s} .units=${u}
+          @ring-preview=${(e: CustomEvent<{ positions: Array<[number, number]>; path: Array<[number, number]> } | null>) => this.controller?.setRingPreview(e.detail?.positions ?? null, e.detail?.path)}
+          @ring-placed=${(e: CustomEvent<{ count: number; first: string; last: string }>) => this.say(`Placed ${e.detail.count} wells, ${e.detail.first} to ${e.detail.last}.`)}></ring-generator>
+      </details>
+      <details open class="dd-section-block"><summary><h3>Excavations <small>${s.excavations.length}</small></h3></summary>
+        <excavation-editor .store=${this.store} .scenario=${s} .units=${u} .excavationId=${this.excavationId} .projection=${this.projection?.ok ? this.projection : null}
+          @select-excavation=${(e: CustomEvent<string | null>) => {
+            this.excavationId = e.detail;
+            this.controller?.setScenario(this.scenario, { wellId: this.wellId, excavationId: e.detail });
+          }}></excavation-editor>
+      </details>
+    </div>`;
+  }
+
+  private renderDrawer(target_m: number | null) {
+    const u = this.units;
+    const i = this.inspect;
+    return html`<div class="dd-drawer" role="region" aria-label="Inspect and section">
+      <div class="dd-drawer-tabs">
+        <button type="button" class=${this.drawer === 'inspect' ? 'dd-on' : ''} @click=${() => (this.drawer = 'inspect')}>Point</button>
+        <button type="button" class=${this.drawer === 'section' ? 'dd-on' : ''} @click=${() => (this.drawer = 'section')}>Section</button>
+        <button type="button" class="dd-icon dd-close" title="Close" @click=${() => (this.drawer = null)}>×</button>
+      </div>
+      ${this.drawer === 'inspect'
+        ? i ? html`<div class="dd-inspect">
+            <dl class="dd-readout">
+              <div><dt>At</dt><dd>E ${formatQuantity(i.point[0], u.length, { decimals: 2 })}, N ${formatQuantity(i.point[1], u.length, { decimals: 2 })}</dd></div>
+              <div><dt>Time</dt><dd>${formatDuration(i.current.time_s)}</dd></div>
+              <div><dt>${this.scenario.aquifer.kind === 'unconfined' ? 'Water table' : 'Piezometric level'}</dt><dd data-inspect="level">${formatQuantity(i.current.level_m, u.length, { decimals: 2 })}</dd></div>
+              <div><dt>Drawdown</dt><dd data-inspect="drawdown">${formatQuantity(i.current.drawdown_m, u.length, { decimals: 2 })}</dd></div>
+              ${target_m !== null ? html`<div><dt>Against target</dt><dd class=${i.current.level_m > target_m ? 'dd-bad' : 'dd-good'}>${i.current.level_m > target_m ? `${formatQuantity(i.current.level_m - target_m, u.length, { decimals: 2 })} above` : `${formatQuantity(target_m - i.current.level_m, u.length, { decimals: 2 })} below`}</dd></div>` : nothing}
+              ${i.current.flags.length ? html`<div><dt>Flags</dt><dd class="dd-bad">${i.current.flags.join(', ')}</dd></div>` : nothing}
+            </dl>
+            <time-chart .series=${i.series} .units=${u} .staticLevel_m=${this.scenario.aquifer.staticLevel_m} .target_m=${target_m} .current_s=${i.current.time_s}></time-chart>
+            <p class="dd-chart-note">${methodName(i.model.method)} · idealised model, estimates only.</p></div>`
+          : html`<p class="dd-hint">Click the map (Select tool) to see the level there and how it develops with time.</p>`
+        : html`<section-chart .section=${this.section} .scenario=${this.scenario} .units=${u}></section-chart>
+          ${this.section ? html`<p class="dd-chart-note">${methodName(this.section.model.method)} at ${formatDuration(this.section.points[0]?.time_s ?? null)} · idealised model, estimates only.</p>` : nothing}`}
+    </div>`;
+  }
+}
+if (!customElements.get('drydig-app')) customElements.define('drydig-app', DrydigApp);

@@ -1,0 +1,124 @@
+/**
+ * <ring-generator>: places wells along an offset of an excavation's perimeter at a chosen spacing,
+ * previewed on the map (numbered in order) before anything is added. Emits `ring-preview`
+ * (detail: positions and path, or null) while the form changes.
+ */
+import { html, nothing } from 'lit';
+import { LightElement } from './light-element';
+import type { Scenario, WellKind } from '../../shared/schema';
+import { formatQuantity, type DisplayUnits } from '../../shared/units';
+import type { ScenarioStore } from '../state';
+import { layoutWellRing, nextWellIds, type WellRingLayout } from '../layout';
+import { displayValue, parseDisplayNumber } from './unit-context';
+
+export class RingGenerator extends LightElement {
+  static override properties = {
+    store: { attribute: false }, scenario: { attribute: false }, units: { attribute: false },
+    excavationId: { state: true }, offset_m: { state: true }, spacing_m: { state: true }, kind: { state: true },
+    radius_m: { state: true }, rate_m3_s: { state: true }, prefix: { state: true }, replace: { state: true },
+    previewing: { state: true }, error: { state: true },
+  };
+  declare store: ScenarioStore | undefined;
+  declare scenario: Scenario | undefined;
+  declare units: DisplayUnits;
+  declare excavationId: string;
+  declare offset_m: number;
+  declare spacing_m: number;
+  declare kind: WellKind;
+  declare radius_m: number;
+  declare rate_m3_s: number;
+  declare prefix: string;
+  declare replace: boolean;
+  declare previewing: boolean;
+  declare error: string;
+
+  constructor() {
+    super();
+    this.excavationId = '';
+    // Defaults: well points 2 m apart, 1.5 m outside the dig edge — common practice, no single source.
+    this.offset_m = 1.5;
+    this.spacing_m = 2;
+    this.kind = 'wellpoint';
+    this.radius_m = 0.05;
+    this.rate_m3_s = 0.0005;
+    this.prefix = 'R';
+    this.replace = false;
+    this.previewing = false;
+    this.error = '';
+  }
+
+  private get layout(): WellRingLayout | null {
+    const ex = this.scenario?.excavations.find((e) => e.id === this.excavationId) ?? this.scenario?.excavations[0];
+    if (!ex || !(this.spacing_m > 0)) return null;
+    try {
+      return layoutWellRing({ outline: ex.outline, offset_m: this.offset_m, spacing_m: this.spacing_m });
+    } catch {
+      return null;
+    }
+  }
+
+  override updated(changed: Map<string, unknown>): void {
+    if (this.previewing) {
+      const l = this.layout;
+      this.emit('ring-preview', l ? { positions: l.positions, path: l.path } : null);
+    } else if (changed.has('previewing')) this.emit('ring-preview', null);
+  }
+
+  private num(label: string, key: 'offset_m' | 'spacing_m' | 'radius_m' | 'rate_m3_s', unit: DisplayUnits[keyof DisplayUnits]) {
+    return html`<label class="dd-field"><span>${label}</span><span class="dd-input-unit">
+      <input type="text" inputmode="decimal" name=${`ring-${key}`} aria-label=${`Ring ${label.toLowerCase()}`} .value=${displayValue(this[key], unit)}
+        @change=${(e: Event) => {
+          const parsed = parseDisplayNumber((e.target as HTMLInputElement).value, unit, `ring/${key}`, label.toLowerCase());
+          if (!parsed.ok) return void (this.error = parsed.message);
+          if ((key === 'spacing_m' || key === 'radius_m') && parsed.value_si <= 0) return void (this.error = `${label} must be greater than 0`);
+          this.error = '';
+          this[key] = parsed.value_si;
+        }} /><em>${unit}</em></span></label>`;
+  }
+
+  private place(): void {
+    const l = this.layout;
+    const s = this.scenario;
+    if (!l || !s || !this.store) return;
+    const ex = s.excavations.find((e) => e.id === this.excavationId) ?? s.excavations[0]!;
+    const removed = this.replace ? s.wells.filter((w) => w.id.startsWith(this.prefix)).map((w) => w.id) : [];
+    const kept = new Set(s.wells.map((w) => w.id).filter((id) => !removed.includes(id)));
+    if (kept.size + l.positions.length > 5000) return void (this.error = `That would make ${kept.size + l.positions.length} wells; the scenario limit is 5000.`);
+    const ids = nextWellIds(this.prefix, l.positions.length, kept);
+    this.store.apply(`ring of ${l.positions.length} wells around ${ex.id}`, (d) => {
+      if (this.replace) d.wells = d.wells.filter((w) => !removed.includes(w.id));
+      l.positions.forEach(([x, y], k) => d.wells.push({ id: ids[k]!, x, y, radius_m: this.radius_m, kind: this.kind, rate_m3_s: this.rate_m3_s }));
+    });
+    this.previewing = false;
+    this.emit('ring-placed', { count: l.positions.length, first: ids[0], last: ids[ids.length - 1] });
+  }
+
+  override render() {
+    const s = this.scenario;
+    if (!s || s.excavations.length === 0) return html`<p class="dd-hint">Draw or import an excavation first; the ring follows its perimeter.</p>`;
+    const u = this.units;
+    const l = this.layout;
+    return html`<div class="dd-form dd-ring-generator">
+      <label class="dd-field"><span>Around</span><select name="ring-excavation" @change=${(e: Event) => (this.excavationId = (e.target as HTMLSelectElement).value)}>
+        ${s.excavations.map((e) => html`<option value=${e.id} ?selected=${e.id === this.excavationId}>${e.id}</option>`)}</select></label>
+      <div class="dd-form-row">${this.num('Offset', 'offset_m', u.length)}${this.num('Spacing', 'spacing_m', u.length)}</div>
+      <div class="dd-form-row">
+        <label class="dd-field"><span>Kind</span><select name="ring-kind" @change=${(e: Event) => (this.kind = (e.target as HTMLSelectElement).value as WellKind)}>
+          <option value="wellpoint" ?selected=${this.kind === 'wellpoint'}>Well point</option>
+          <option value="deep" ?selected=${this.kind === 'deep'}>Deep well</option>
+          <option value="ejector" ?selected=${this.kind === 'ejector'}>Ejector</option></select></label>
+        ${this.num('Radius', 'radius_m', u.length)}
+      </div>
+      <div class="dd-form-row">${this.num('Rate each', 'rate_m3_s', u.rate)}
+        <label class="dd-field"><span>Id prefix</span><input type="text" name="ring-prefix" maxlength="20" .value=${this.prefix} @change=${(e: Event) => (this.prefix = (e.target as HTMLInputElement).value.trim() || 'R')} /></label></div>
+      <label class="dd-check"><input type="checkbox" ?checked=${this.replace} @change=${(e: Event) => (this.replace = (e.target as HTMLInputElement).checked)} /> Replace wells whose id starts with “${this.prefix}”</label>
+      ${l ? html`<p class="dd-ring-summary">${l.positions.length} wells at ${formatQuantity(l.spacing_m, u.length, { significant: 3 })} along ${formatQuantity(l.perimeter_m, u.length, { significant: 4 })}; total ${formatQuantity(l.positions.length * this.rate_m3_s, u.rate)}.</p>` : nothing}
+      ${this.error ? html`<p class="dd-error" role="alert">${this.error}</p>` : nothing}
+      <div class="dd-actions">
+        <button type="button" name="ring-preview" class=${this.previewing ? 'dd-on' : ''} @click=${() => (this.previewing = !this.previewing)}>${this.previewing ? 'Hide preview' : 'Preview ring'}</button>
+        <button type="button" name="ring-place" class="dd-primary" ?disabled=${!l} @click=${() => this.place()}>Place ${l?.positions.length ?? 0} wells</button>
+      </div>
+    </div>`;
+  }
+}
+if (!customElements.get('ring-generator')) customElements.define('ring-generator', RingGenerator);

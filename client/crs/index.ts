@@ -1,0 +1,2 @@
+export * from './projection-registry';
+export * from './format-lonlat';

@@ -1,0 +1,2 @@
+export * from './geojson-outlines';
+export * from './csv-outline';

@@ -1,0 +1,115 @@
+/**
+ * Web-map tiles (a {z}/{x}/{y} URL template in Web Mercator, EPSG:3857) drawn under a
+ * georeferenced scenario's site grid. Each tile's corners go through the site projection, so
+ * grid convergence is honoured tile by tile. Online only; offline the plan grid stays.
+ */
+import L from 'leaflet';
+import type { SiteProjection } from '../crs';
+import { placeImage } from './affine-image';
+
+const MAX_TILES = 48;
+
+/** Tile x, y at zoom z for a longitude/latitude (the Web Mercator tiling scheme). */
+export function lonLatToTile(lon: number, lat: number, z: number): [number, number] {
+  const n = 2 ** z;
+  const rad = (lat * Math.PI) / 180;
+  return [((lon + 180) / 360) * n, ((1 - Math.log(Math.tan(rad) + 1 / Math.cos(rad)) / Math.PI) / 2) * n];
+}
+
+/** Longitude/latitude of a tile corner. */
+export function tileToLonLat(x: number, y: number, z: number): [number, number] {
+  const n = 2 ** z;
+  const lon = (x / n) * 360 - 180;
+  const lat = (Math.atan(Math.sinh(Math.PI * (1 - (2 * y) / n))) * 180) / Math.PI;
+  return [lon, lat];
+}
+
+export class ProjectedTileLayer extends L.Layer {
+  private box: HTMLDivElement | null = null;
+  private template: string | null = null;
+  private projection: SiteProjection | null = null;
+  private readonly pool = new Map<string, HTMLImageElement>();
+
+  setSource(template: string | null, projection: SiteProjection | null): void {
+    this.template = template && /\{z\}/.test(template) && /\{x\}/.test(template) && /\{y\}/.test(template) ? template : null;
+    this.projection = projection;
+    for (const img of this.pool.values()) img.remove();
+    this.pool.clear();
+    this.update();
+  }
+
+  override onAdd(map: L.Map): this {
+    if (!map.getPane('dd-tiles')) {
+      const pane = map.createPane('dd-tiles');
+      pane.style.zIndex = '220';
+      pane.style.pointerEvents = 'none';
+    }
+    this.box = L.DomUtil.create('div', 'dd-tiles', map.getPane('dd-tiles')) as HTMLDivElement;
+    this.update();
+    return this;
+  }
+
+  override onRemove(): this {
+    this.box?.remove();
+    this.box = null;
+    this.pool.clear();
+    return this;
+  }
+
+  override getEvents() {
+    return { moveend: this.update, zoomend: this.update, viewreset: this.update };
+  }
+
+  private update = (): void => {
+    const map = this._map as L.Map | undefined;
+    const box = this.box;
+    if (!map || !box) return;
+    const proj = this.projection;
+    const template = this.template;
+    if (!proj || !template) {
+      box.style.display = 'none';
+      return;
+    }
+    box.style.display = 'block';
+    const size = map.getSize();
+    const sw = map.containerPointToLatLng([0, size.y]);
+    const ne = map.containerPointToLatLng([size.x, 0]);
+    const [lon0, lat0] = proj.toLonLat(sw.lng, sw.lat);
+    const [lon1, lat1] = proj.toLonLat(ne.lng, ne.lat);
+    const mpp = (ne.lng - sw.lng) / Math.max(1, size.x);
+    const latMid = ((lat0 + lat1) / 2) * (Math.PI / 180);
+    // Ground resolution of zoom z: 2πa·cos φ / (256·2^z) m/px, a = 6 378 137 m (Web Mercator).
+    const z = Math.max(0, Math.min(19, Math.round(Math.log2((40075016.686 * Math.cos(latMid)) / (256 * Math.max(mpp, 1e-3))))));
+    const [tx0, ty1] = lonLatToTile(Math.min(lon0, lon1), Math.min(lat0, lat1), z).map(Math.floor) as [number, number];
+    const [tx1, ty0] = lonLatToTile(Math.max(lon0, lon1), Math.max(lat0, lat1), z).map(Math.floor) as [number, number];
+    const wanted = new Set<string>();
+    for (let ty = ty0 - 1; ty <= ty1 + 1; ty++) {
+      for (let tx = tx0 - 1; tx <= tx1 + 1; tx++) {
+        if (wanted.size >= MAX_TILES) break;
+        const key = `${z}/${tx}/${ty}`;
+        wanted.add(key);
+        let img = this.pool.get(key);
+        if (!img) {
+          img = L.DomUtil.create('img', 'dd-tile', box) as HTMLImageElement;
+          img.alt = '';
+          img.draggable = false;
+          img.referrerPolicy = 'no-referrer';
+          img.src = template.replace('{z}', String(z)).replace('{x}', String(tx)).replace('{y}', String(ty)).replace('{s}', 'a');
+          this.pool.set(key, img);
+        }
+        const lp = (x: number, y: number) => {
+          const [lon, lat] = tileToLonLat(x, y, z);
+          const [sx, sy] = proj.fromLonLat(lon, lat);
+          return map.latLngToLayerPoint([sy, sx]);
+        };
+        placeImage(img, 256, 256, lp(tx, ty), lp(tx + 1, ty), lp(tx, ty + 1));
+      }
+    }
+    for (const [key, img] of this.pool) {
+      if (!wanted.has(key)) {
+        img.remove();
+        this.pool.delete(key);
+      }
+    }
+  };
+}

@@ -1,0 +1,2 @@
+export * from './scenario-store';
+export * from './view-settings';

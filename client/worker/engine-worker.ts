@@ -1,0 +1,59 @@
+/**
+ * The Web Worker that runs the shared engine off the main thread. Jobs run one at a time in
+ * arrival order; a `cancel` message stops a queued job at once and a running field job at its
+ * next strip boundary, so a drag never waits behind a stale fine grid.
+ */
+import { DrydigError } from '../../shared/schema';
+import type { EngineRequest, EngineResponse } from './engine-protocol';
+import { JobCancelled, runFieldJob, runInspectJob, runSectionJob } from './field-job';
+
+const scope = self as unknown as DedicatedWorkerGlobalScope;
+const queue: EngineRequest[] = [];
+const cancelled = new Set<number>();
+let running = false;
+
+const post = (message: EngineResponse) => scope.postMessage(message);
+// A macrotask turn lets queued `cancel` messages reach onmessage between strips.
+const pause = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
+
+scope.onmessage = (event: MessageEvent<EngineRequest>) => {
+  const req = event.data;
+  if (req.kind === 'cancel') {
+    cancelled.add(req.id);
+    return;
+  }
+  queue.push(req);
+  if (!running) void drain();
+};
+
+async function drain(): Promise<void> {
+  running = true;
+  while (queue.length > 0) {
+    const req = queue.shift()!;
+    if (req.kind === 'cancel') continue;
+    if (cancelled.delete(req.id)) {
+      post({ kind: 'cancelled', id: req.id });
+      continue;
+    }
+    try {
+      if (req.kind === 'field') {
+        const result = await runFieldJob(req, {
+          progress: (fraction) => post({ kind: 'progress', id: req.id, fraction }),
+          isCancelled: () => cancelled.has(req.id),
+          pause,
+        });
+        post(result);
+      } else if (req.kind === 'inspect') {
+        post(runInspectJob(req));
+      } else {
+        post(runSectionJob(req));
+      }
+    } catch (error) {
+      if (error instanceof JobCancelled) post({ kind: 'cancelled', id: req.id });
+      else if (error instanceof DrydigError) post({ kind: 'error', id: req.id, message: error.message, issues: error.issues });
+      else post({ kind: 'error', id: req.id, message: `The engine could not compute this: ${(error as Error)?.message ?? String(error)}` });
+    }
+    cancelled.delete(req.id);
+  }
+  running = false;
+}

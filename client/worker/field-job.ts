@@ -1,0 +1,209 @@
+/**
+ * What the engine worker computes, as plain async functions (so tests run them in Node too).
+ * All hydraulics come from `shared/field`; this file only samples, contours and summarises.
+ */
+import { evaluateGrid, evaluatePoints, evaluateSeries } from '../../shared/field';
+import { FLAG_BITS, type GridResult, type GridSpec, type PointFlag } from '../../shared/field/types';
+import { contourExcess, contourGrid, contourMask, niceContourLevels } from '../../shared/contours';
+import { getPolygonArea, isPointInPolygon, openRing } from '../../shared/geometry';
+import type { Excavation, Scenario } from '../../shared/schema';
+import type {
+  ExcavationShortfall, FieldRequest, FieldResult, InspectRequest, InspectResult, SectionRequest, SectionResult,
+} from './engine-protocol';
+
+/** Hooks a long job uses to report progress and to notice it is no longer wanted. */
+export interface JobHooks {
+  progress?: (fraction: number) => void;
+  /** True when the job should stop (a newer request superseded it). */
+  isCancelled?: () => boolean;
+  /** Lets pending messages (a cancel) arrive between strips; default resolves at once. */
+  pause?: () => Promise<void>;
+}
+
+/** Thrown out of a job that was cancelled part-way. */
+export class JobCancelled extends Error {
+  constructor() {
+    super('cancelled');
+  }
+}
+
+const FLAG_NAMES = Object.keys(FLAG_BITS) as PointFlag[];
+
+/** Evaluates the grid in row strips (progress and a cancel check between strips). */
+export async function evaluateGridInStrips(
+  scenario: Scenario, grid: GridSpec, time_s: number | null, strips: number, hooks: JobHooks = {},
+): Promise<GridResult> {
+  const [nx, ny] = grid.counts;
+  const n = Math.max(1, Math.min(strips, ny));
+  if (n === 1) {
+    const r = evaluateGrid({ scenario, grid, time_s });
+    hooks.progress?.(1);
+    return r;
+  }
+  const drawdown = new Float64Array(nx * ny);
+  const level = new Float64Array(nx * ny);
+  const flags = new Uint8Array(nx * ny);
+  const flagCounts = Object.fromEntries(FLAG_NAMES.map((f) => [f, 0])) as Record<PointFlag, number>;
+  let model: GridResult['model'] | undefined;
+  for (let s = 0; s < n; s++) {
+    const j0 = Math.floor((s * ny) / n);
+    const j1 = Math.floor(((s + 1) * ny) / n);
+    if (j1 <= j0) continue;
+    const sub: GridSpec = { origin: [grid.origin[0], grid.origin[1] + j0 * grid.spacing_m[1]], spacing_m: grid.spacing_m, counts: [nx, j1 - j0] };
+    const r = evaluateGrid({ scenario, grid: sub, time_s });
+    drawdown.set(r.drawdown_m, j0 * nx);
+    level.set(r.level_m, j0 * nx);
+    flags.set(r.flags, j0 * nx);
+    for (const f of FLAG_NAMES) flagCounts[f] += r.flagCounts[f] ?? 0;
+    model ??= r.model;
+    hooks.progress?.((s + 1) / n);
+    if (s < n - 1) {
+      await hooks.pause?.();
+      if (hooks.isCancelled?.()) throw new JobCancelled();
+    }
+  }
+  return { grid, time_s, drawdown_m: drawdown, level_m: level, flags, flagCounts, model: model! };
+}
+
+function finiteRange(values: ArrayLike<number>): { min: number; max: number } {
+  let min = Infinity;
+  let max = -Infinity;
+  for (let k = 0; k < values.length; k++) {
+    const v = values[k]!;
+    if (Number.isFinite(v)) {
+      if (v < min) min = v;
+      if (v > max) max = v;
+    }
+  }
+  return { min, max };
+}
+
+/** Points along the outline edges, about `step_m` apart, vertices included. */
+function edgeSamples(outline: ReadonlyArray<readonly [number, number]>, step_m: number): Array<[number, number]> {
+  const pts = openRing(outline);
+  const out: Array<[number, number]> = [];
+  for (let i = 0; i < pts.length; i++) {
+    const a = pts[i]!;
+    const b = pts[(i + 1) % pts.length]!;
+    const len = Math.hypot(b[0] - a[0], b[1] - a[1]);
+    const k = Math.max(1, Math.ceil(len / step_m));
+    for (let m = 0; m < k; m++) out.push([a[0] + ((b[0] - a[0]) * m) / k, a[1] + ((b[1] - a[1]) * m) / k]);
+  }
+  return out;
+}
+
+/**
+ * How an excavation stands at the design time: its own grid over the outline's bounding box plus
+ * points along its edges, because the highest level inside a ring of wells sits on the edge
+ * between wells or at the centre, and a coarse view grid would miss it.
+ */
+export function getExcavationShortfall(scenario: Scenario, excavation: Excavation, pitNodes = 41): ExcavationShortfall {
+  const time_s = scenario.design.time_s;
+  const target = excavation.formationLevel_m - excavation.margin_m;
+  const xs = excavation.outline.map((p) => p[0]);
+  const ys = excavation.outline.map((p) => p[1]);
+  const minX = Math.min(...xs);
+  const minY = Math.min(...ys);
+  const w = Math.max(...xs) - minX;
+  const h = Math.max(...ys) - minY;
+  const spacing = Math.max(w, h, 1e-3) / Math.max(2, pitNodes - 1);
+  const grid: GridSpec = {
+    origin: [minX, minY],
+    spacing_m: [spacing, spacing],
+    counts: [Math.max(2, Math.ceil(w / spacing) + 1), Math.max(2, Math.ceil(h / spacing) + 1)],
+  };
+  const g = evaluateGrid({ scenario, grid, time_s });
+  const excess = contourExcess({ values: g.level_m, grid, threshold: target, outline: excavation.outline });
+  let worst = excess.peak ? { x: excess.peak.x, y: excess.peak.y, level_m: excess.peak.excess + target } : { x: minX, y: minY, level_m: -Infinity };
+  const flagBits = new Set<PointFlag>();
+  const [nx] = grid.counts;
+  for (let k = 0; k < g.flags.length; k++) {
+    const bits = g.flags[k]!;
+    if (bits === 0) continue;
+    const x = grid.origin[0] + (k % nx) * spacing;
+    const y = grid.origin[1] + Math.floor(k / nx) * spacing;
+    if (!isPointInPolygon(x, y, excavation.outline)) continue;
+    for (const f of FLAG_NAMES) if (bits & FLAG_BITS[f]) flagBits.add(f);
+  }
+  const edge = evaluatePoints({ scenario, points: edgeSamples(excavation.outline, spacing / 2), time_s });
+  for (const p of edge.points) {
+    if (p.level_m > worst.level_m) worst = { x: p.x, y: p.y, level_m: p.level_m };
+    for (const f of p.flags) if (f !== 'within-well-radius') flagBits.add(f);
+  }
+  flagBits.delete('within-well-radius');
+  const shortfall = worst.level_m - target;
+  const area = getPolygonArea(excavation.outline);
+  return {
+    id: excavation.id,
+    targetLevel_m: target,
+    time_s,
+    met: shortfall <= 0,
+    worstShortfall_m: shortfall,
+    worst,
+    coordinates: excess.coordinates,
+    area_m2: excess.area_m2,
+    areaFraction: area > 0 ? Math.min(1, excess.area_m2 / area) : 0,
+    flags: [...flagBits],
+  };
+}
+
+/** Contours, flag outlines and shortfall for a FieldRequest. */
+export async function runFieldJob(req: FieldRequest, hooks: JobHooks = {}): Promise<FieldResult> {
+  const started = performance.now();
+  const g = await evaluateGridInStrips(req.scenario, req.grid, req.time_s, req.strips ?? 1, hooks);
+  const values = req.quantity === 'level' ? g.level_m : g.drawdown_m;
+  const range = finiteRange(values);
+  const drawdownRange = finiteRange(g.drawdown_m);
+  const levels = niceContourLevels({ min: range.min, max: range.max, targetCount: 12, step: req.step_m, maxCount: 60 });
+  const contours = contourGrid({ values, grid: req.grid, levels });
+  const flagAreas: FieldResult['flagAreas'] = [];
+  for (const flag of FLAG_NAMES) {
+    if (flag === 'within-well-radius' || !(g.flagCounts[flag] > 0)) continue;
+    const m = contourMask({ flags: g.flags, grid: req.grid, bits: FLAG_BITS[flag] });
+    if (m.count > 0) flagAreas.push({ flag, count: m.count, coordinates: m.coordinates });
+  }
+  if (hooks.isCancelled?.()) throw new JobCancelled();
+  const shortfall = req.scenario.excavations.map((e) => getExcavationShortfall(req.scenario, e, req.pitNodes ?? 41));
+  return {
+    kind: 'field',
+    id: req.id,
+    quantity: req.quantity,
+    time_s: req.time_s,
+    grid: req.grid,
+    contours,
+    levels,
+    range,
+    drawdownRange,
+    flagAreas,
+    flagCounts: { ...g.flagCounts },
+    model: g.model,
+    shortfall,
+    compute_ms: performance.now() - started,
+  };
+}
+
+/** Level and drawdown against time at one point. */
+export function runInspectJob(req: InspectRequest): InspectResult {
+  const { scenario, point } = req;
+  const current = evaluatePoints({ scenario, points: [point], time_s: req.time_s });
+  const series = evaluateSeries({ scenario, point, times_s: req.times_s.filter((t) => t > 0 && Number.isFinite(t)) }).samples;
+  return { kind: 'inspect', id: req.id, point, current: current.points[0]!, series, model: current.model };
+}
+
+/** Level along a section line, `samples` points from `from` to `to`. */
+export function runSectionJob(req: SectionRequest): SectionResult {
+  const n = Math.max(2, Math.min(2000, Math.round(req.samples)));
+  const [x0, y0] = req.from;
+  const [x1, y1] = req.to;
+  const length = Math.hypot(x1 - x0, y1 - y0);
+  const pts: Array<[number, number]> = Array.from({ length: n }, (_, k) => [x0 + ((x1 - x0) * k) / (n - 1), y0 + ((y1 - y0) * k) / (n - 1)]);
+  const r = evaluatePoints({ scenario: req.scenario, points: pts, time_s: req.time_s });
+  return {
+    kind: 'section',
+    id: req.id,
+    from: req.from,
+    to: req.to,
+    points: r.points.map((p, k) => ({ ...p, distance_m: (length * k) / (n - 1) })),
+    model: r.model,
+  };
+}

@@ -1,0 +1,2 @@
+export * from './engine-protocol';
+export * from './engine-client';

@@ -123,8 +123,12 @@ export function runEvaluation(options: RunEvaluationOptions): EvaluateResponse {
 
   const first = models[0];
   if (!first) throw new DrydigError('DRYDIG_ERR_INVALID_REQUEST', '/times_s: give at least one time', [{ path: '/times_s', message: 'must have at least 1 entry' }]);
-  const answer: EvaluateResponse = { model: first.model, models, cautions: [...RESULT_CAUTIONS] };
-  if (points) answer.points = pointResults;
-  if (grid) answer.grids = grids;
-  return answer;
+  // Results first, so a person reading the CLI output sees the numbers before the notes.
+  return {
+    ...(points ? { points: pointResults } : {}),
+    ...(grid ? { grids } : {}),
+    model: first.model,
+    models,
+    cautions: [...RESULT_CAUTIONS],
+  };
 }

@@ -104,7 +104,10 @@ export function getMonitoring(scenario: Scenario): Monitoring | undefined {
   return (scenario as Scenario & { monitoring?: Monitoring }).monitoring;
 }
 
-/** Times of the expected-level table: 0, Δt, 2Δt … to the horizon, at most MAX_SERIES_ROWS rows. */
+/**
+ * Times of the expected-level table: 0, then 1, 3, 6 and 12 h when the interval is longer, then
+ * Δt, 2Δt … to the horizon; at most MAX_SERIES_ROWS (+4 early) rows.
+ */
 export function monitoringTimes(scenario: Scenario): { times_s: number[]; interval_s: number } | null {
   const designTime = scenario.design.time_s;
   if (designTime === null) return null;
@@ -113,8 +116,10 @@ export function monitoringTimes(scenario: Scenario): { times_s: number[]; interv
   const horizon = Math.max(designTime, lastChange > 0 ? lastChange + 7 * DAY_S : 0);
   let interval = getMonitoring(scenario)?.readingInterval_s ?? DAY_S;
   if (horizon / interval > MAX_SERIES_ROWS - 1) interval = Math.ceil(horizon / (MAX_SERIES_ROWS - 1) / 3600) * 3600;
-  const times: number[] = [];
-  for (let t = 0; t < horizon - 1e-6; t += interval) times.push(t);
+  const times: number[] = [0];
+  // Levels fall fastest in the first hours; a few early rows make the curve and the first checks useful.
+  for (const early of [3600, 3 * 3600, 6 * 3600, 12 * 3600]) if (early < interval && early < horizon) times.push(early);
+  for (let t = interval; t < horizon - 1e-6; t += interval) times.push(t);
   times.push(horizon);
   return { times_s: times, interval_s: interval };
 }

@@ -37,19 +37,19 @@ function scenario(): Scenario {
 }
 
 describe('monitoringTimes(scenario)', () => {
-  it('runs daily from 0 to a week past the last rate change', () => {
+  it('runs daily from 0 to a week past the last rate change, with 1, 3, 6 and 12 h rows first', () => {
     const times = monitoringTimes(scenario());
     expect(times?.interval_s).toBe(DAY);
-    expect(times?.times_s[0]).toBe(0);
+    expect(times?.times_s.slice(0, 6)).toEqual([0, 3600, 3 * 3600, 6 * 3600, 12 * 3600, DAY]);
     expect(times?.times_s.at(-1)).toBe(12 * DAY);
-    expect(times?.times_s).toHaveLength(13);
+    expect(times?.times_s).toHaveLength(17);
   });
 
   it('widens the interval so a long horizon stays within 400 rows', () => {
     const s = scenario();
     s.design.time_s = 1000 * DAY;
     const times = monitoringTimes(s);
-    expect(times!.times_s.length).toBeLessThanOrEqual(400);
+    expect(times!.times_s.length).toBeLessThanOrEqual(404);
     expect(times!.interval_s % 3600).toBe(0);
   });
 });
@@ -66,7 +66,7 @@ describe('buildMonitoringPlan({ scenario, engine })', () => {
 
   it('starts at the static level and dates each row from the pumping start', () => {
     expect(inside.series[0]).toMatchObject({ time_s: 0, expectedLevel_m: 10, at: '2027-03-01T07:00:00.000Z' });
-    expect(inside.series[2]!.at).toBe('2027-03-03T07:00:00.000Z');
+    expect(inside.series.find((r) => r.time_s === 2 * DAY)!.at).toBe('2027-03-03T07:00:00.000Z');
   });
 
   it('sets alert = expected + 0.3 m by default, and the designer’s offset when given', () => {
@@ -114,7 +114,7 @@ describe('writeMonitoringCsv(plan)', () => {
     expect(lines[0]).toBe('piezometer_id,time_s,time_d,date_time,expected_level_m,alert_level_m,action_level_m,flags');
     const day1 = lines.find((l) => l.startsWith('PZ-in,86400,'))!.split(',');
     expect(Number(day1[4])).toBe(Number(reference.rows[0]!.level_m.toFixed(3)));
-    expect(lines.filter((l) => l.startsWith('PZ-')).length).toBe(26);
+    expect(lines.filter((l) => l.startsWith('PZ-')).length).toBe(34);
     expect(csv).toContain('caution,');
   });
 });

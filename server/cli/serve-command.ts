@@ -25,7 +25,11 @@ export interface ServeSettings {
   dataDir: string;
   /** Largest request body, bytes. Default 8 MiB. */
   bodyLimit_bytes: number;
+  /** Log level (fatal, error, warn, info, debug, trace, silent). Default: DRYDIG_LOG_LEVEL, else info. */
+  logLevel?: string;
 }
+
+const LOG_LEVELS = ['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'];
 
 function parsePort(text: string, source: string): number {
   if (!/^\d{1,5}$/.test(text.trim()) || Number(text) > 65_535) throw usageError(`${source}: "${text}" is not a port number (0–65535)`);
@@ -45,7 +49,9 @@ export function resolveServeSettings(args: readonly string[], env: Record<string
     if (!/^\d+$/.test(text) || Number(text) < 1024 || Number(text) > 1024 ** 3) throw usageError(`--body-limit: "${text}" must be a whole number of bytes from 1024 to 1073741824`);
     bodyLimit_bytes = Number(text);
   }
-  return { port, host, dataDir: data === ':memory:' ? data : path.resolve(cwd, data), bodyLimit_bytes, help: values.help === 'true' };
+  const logLevel = env.DRYDIG_LOG_LEVEL || 'info';
+  if (!LOG_LEVELS.includes(logLevel)) throw usageError(`DRYDIG_LOG_LEVEL: "${logLevel}" is not one of ${LOG_LEVELS.join(', ')}`);
+  return { port, host, dataDir: data === ':memory:' ? data : path.resolve(cwd, data), bodyLimit_bytes, logLevel, help: values.help === 'true' };
 }
 
 /** Builds the app with logging on and listens; resolves once listening, with the URL. */
@@ -60,7 +66,7 @@ export async function startServer(settings: ServeSettings): Promise<{ app: Fasti
   const app = await buildApp({
     dataDir: settings.dataDir,
     bodyLimit_bytes: settings.bodyLimit_bytes,
-    logger: { level: process.env.DRYDIG_LOG_LEVEL ?? 'info' },
+    logger: { level: settings.logLevel ?? 'info' },
   });
   try {
     await app.listen({ port: settings.port, host: settings.host });

@@ -95,16 +95,24 @@ describe('POST /api/v1/evaluate with points', () => {
 });
 
 describe('POST /api/v1/evaluate with a grid', () => {
-  const cases: Array<{ fixture: 'unconfined' | 'confined'; grid: GridSpec; time_s: number | null }> = [
+  const cases: Array<{ fixture: 'unconfined' | 'confined'; grid: GridSpec; time_s: number | null; rateFactor?: number }> = [
     // Nodes fall on the well line y = −1.5 (within-well-radius) and far beyond Sichardt's R (steady).
     { fixture: 'unconfined', grid: { origin: [-1.5, -1.5], spacing_m: [2, 2], counts: [40, 25] }, time_s: null },
     { fixture: 'unconfined', grid: { origin: [-300, -300], spacing_m: [25, 25], counts: [25, 25] }, time_s: null },
     { fixture: 'unconfined', grid: { origin: [-50, -50], spacing_m: [5, 4], counts: [30, 30] }, time_s: 86_400 },
     // Straddles the constant-head river line x = 389380 (beyond-boundary on the far side).
     { fixture: 'confined', grid: { origin: [389100, 5819300], spacing_m: [10, 10], counts: [40, 25] }, time_s: 604_800 },
+    // Twice the demo rates: a partly dewatered pit (mixed masks) — level = base where dewatered.
+    { fixture: 'unconfined', grid: { origin: [-1.5, -1.5], spacing_m: [1, 1], counts: [44, 24] }, time_s: 1_209_600, rateFactor: 2 },
+    // Three times the demo rates: the head falls below the confined aquifer's top.
+    { fixture: 'confined', grid: { origin: [389150, 5819350], spacing_m: [5, 5], counts: [25, 25] }, time_s: 604_800, rateFactor: 3 },
   ];
-  it.each(cases)('answers the engine\u2019s grid for the $fixture demo rounded to 0.1 mm, with flag runs that decode to its masks (t = $time_s)', async ({ fixture, grid, time_s }) => {
+  const scaled = (fixture: 'unconfined' | 'confined', rateFactor = 1) => {
     const scenario = loadFixture(fixture);
+    return { ...scenario, wells: scenario.wells.map((w) => ({ ...w, rate_m3_s: (w.rate_m3_s ?? 0) * rateFactor })) };
+  };
+  it.each(cases)('answers the engine\u2019s grid for the $fixture demo rounded to 0.1 mm, with flag runs that decode to its masks (t = $time_s, rates × $rateFactor)', async ({ fixture, grid, time_s, rateFactor }) => {
+    const scenario = scaled(fixture, rateFactor);
     const response = await postJson(app, '/api/v1/evaluate', { scenario, grid, times_s: [time_s] });
     expect(response.status).toBe(200);
     const answer = response.json() as unknown as EvaluateAnswer;
@@ -128,13 +136,13 @@ describe('POST /api/v1/evaluate with a grid', () => {
     expect(g.flags).toEqual(direct.flagCounts);
   });
 
-  it('covers flagged grids: the cases above include within-well-radius, beyond-influence-radius and beyond-boundary nodes', async () => {
+  it('covers flagged grids: the cases above include nodes with every flag', async () => {
     const seen = new Set<string>();
-    for (const { fixture, grid, time_s } of cases) {
-      const result = evaluateGrid({ scenario: loadFixture(fixture), grid, time_s });
+    for (const { fixture, grid, time_s, rateFactor } of cases) {
+      const result = evaluateGrid({ scenario: scaled(fixture, rateFactor), grid, time_s });
       for (const [flag, count] of Object.entries(result.flagCounts)) if (count > 0) seen.add(flag);
     }
-    expect([...seen]).toEqual(expect.arrayContaining(['within-well-radius', 'beyond-influence-radius', 'beyond-boundary']));
+    expect([...seen].sort()).toEqual(Object.keys(FLAG_BITS).sort());
     expect(FLAG_BITS['beyond-boundary']).toBe(32);
   });
 

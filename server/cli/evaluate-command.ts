@@ -1,5 +1,5 @@
 /**
- * `drydig evaluate SCENARIO.json --points "x,y;x,y"|FILE.csv [--time T] [--grid …] [--pretty]`:
+ * `drydig evaluate SCENARIO.json --points "x,y;x,y"|FILE.csv [--time T] [--grid …] [--pretty | --csv]`:
  * levels and drawdowns on stdout as JSON (design.md section 4), the same answer the HTTP API
  * gives. Without --time: the scenario's design time (steady state when that is null).
  */
@@ -10,6 +10,7 @@ import { parseOptions, usageError } from './parse-options';
 import { looksLikeInlinePoints, parseInlinePoints, parsePointsCsv, parseStrictNumber, type PlanPoint } from './points-argument';
 import { readScenarioFile, readTextFile } from './read-scenario-file';
 import { parseTimeArgument } from './time-argument';
+import { formatPointsCsv } from './points-csv-output';
 import { EVALUATE_HELP } from './usage-text';
 
 /** Largest points CSV read, bytes. */
@@ -35,7 +36,7 @@ function readPoints(value: string, cwd: string): PlanPoint[] {
 }
 
 export const runEvaluateCommand: CliCommand = async (args, io) => {
-  const { positionals, values } = parseOptions(args, { points: 'value', time: 'value', grid: 'value', pretty: 'flag', help: 'flag' }, 'evaluate');
+  const { positionals, values } = parseOptions(args, { points: 'value', time: 'value', grid: 'value', pretty: 'flag', csv: 'flag', help: 'flag' }, 'evaluate');
   if (values.help) {
     io.stdout(EVALUATE_HELP);
     return 0;
@@ -44,6 +45,8 @@ export const runEvaluateCommand: CliCommand = async (args, io) => {
   if (!file) throw usageError('evaluate: give a scenario file: drydig evaluate SCENARIO.json --points "x,y;x,y"');
   if (extra.length > 0) throw usageError(`evaluate: one scenario file only (also got ${extra.join(' ')})`);
   if (values.points === undefined && values.grid === undefined) throw usageError('evaluate: --points is required (inline "x,y;x,y" or a CSV file), or give --grid');
+  if (values.csv && (values.grid !== undefined || values.points === undefined)) throw usageError('evaluate: --csv writes points only; give --points and leave out --grid');
+  if (values.csv && values.pretty) throw usageError('evaluate: --pretty is for JSON; leave it out with --csv');
 
   // Arguments first, then the (possibly large) scenario, so a typo is reported before any reading.
   const times_s = values.time !== undefined ? parseTimeArgument(values.time) : undefined;
@@ -52,6 +55,6 @@ export const runEvaluateCommand: CliCommand = async (args, io) => {
   const scenario = readScenarioFile(file, io.cwd);
 
   const answer = runEvaluation({ scenario, points, grid, times_s });
-  io.stdout(`${JSON.stringify(answer, null, values.pretty ? 2 : undefined)}\n`);
+  io.stdout(values.csv ? formatPointsCsv(answer) : `${JSON.stringify(answer, null, values.pretty ? 2 : undefined)}\n`);
   return 0;
 };

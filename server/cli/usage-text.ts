@@ -3,7 +3,7 @@
 export const USAGE = `drydig — construction-dewatering well-field designer
 
 Usage:
-  drydig evaluate SCENARIO.json --points "x,y;x,y" | --points FILE.csv [--time T] [--grid G] [--pretty]
+  drydig evaluate SCENARIO.json --points "x,y;x,y" | --points FILE.csv [--time T] [--grid G] [--pretty | --csv]
   drydig design SCENARIO.json [--mode uniform|optimal|layout]
   drydig serve [--port N] [--host H] [--data DIR] [--body-limit BYTES]
   drydig help [COMMAND]
@@ -19,7 +19,7 @@ Results are estimates from idealised aquifer models; confirm them against site i
 local codes and a licensed engineer.
 `;
 
-export const EVALUATE_HELP = `drydig evaluate SCENARIO.json --points POINTS [--time T] [--grid G] [--pretty]
+export const EVALUATE_HELP = `drydig evaluate SCENARIO.json --points POINTS [--time T] [--grid G] [--pretty | --csv]
 
   SCENARIO.json   a scenario file (format drydig.scenario, version 1)
   --points P      inline "x,y;x,y" in site metres, or a CSV file: a header row naming
@@ -30,6 +30,8 @@ export const EVALUATE_HELP = `drydig evaluate SCENARIO.json --points POINTS [--t
                   Default: the scenario's design time (steady state when that is null)
   --grid G        also evaluate a grid "x0,y0,dx,dy,nx,ny" (origin, spacing m, node counts)
   --pretty        indent the JSON
+  --csv           write the points as CSV (x,y,time_s,level_m,drawdown_m,flags) instead of
+                  JSON; "# " comment lines carry the method and the cautions
 
 Prints {"points":[{"x","y","time_s","level_m","drawdown_m","flags"}], "model", "models",
 "cautions"}; one entry per point per time. Flags mark results outside a method's validity.

@@ -5,6 +5,7 @@
  * route another feature adds later appears without touching this file.
  */
 import type { FastifyInstance, FastifyPluginAsync, RouteOptions } from 'fastify';
+import { Type } from '@sinclair/typebox';
 import { ERROR_TABLE } from '../../shared/schema';
 import { readPackageVersion } from './health';
 import { RESULT_CAUTIONS } from '../evaluation';
@@ -221,6 +222,13 @@ export const openapiRoutes: FastifyPluginAsync = async (app) => {
       schema: {
         summary: 'This description (OpenAPI 3.1), generated from the route schemas',
         tags: ['service'],
+        response: {
+          200: Type.Object(
+            { openapi: Type.Literal('3.1.0'), info: Type.Object({ title: Type.String(), version: Type.String() }, { additionalProperties: true }) },
+            { additionalProperties: true, description: 'An OpenAPI 3.1 document.' },
+          ),
+          '4xx': ErrorResponseSchema,
+        },
       },
     },
     async () => {

@@ -70,6 +70,23 @@ describe('drydig evaluate (in-process)', () => {
     grid.drawdown_m.forEach((d, k) => expect(Math.abs(d - direct.drawdown_m[k]!)).toBeLessThanOrEqual(0.5e-4 + 1e-12));
   });
 
+  it('--csv writes the same numbers as CSV, which drydig reads back as points', async () => {
+    const json = JSON.parse((await run(['evaluate', 'confined.json', '--points', '389215,5819415;389500,5819415', '--time', '1d,steady'])).out) as {
+      points: Array<{ x: number; y: number; time_s: number | null; level_m: number; drawdown_m: number; flags: string[] }>;
+    };
+    const { code, out } = await run(['evaluate', 'confined.json', '--points', '389215,5819415;389500,5819415', '--time', '1d,steady', '--csv']);
+    expect(code).toBe(0);
+    const rows = out.trimEnd().split('\n').filter((l) => !l.startsWith('#'));
+    expect(rows[0]).toBe('x,y,time_s,level_m,drawdown_m,flags');
+    expect(rows.slice(1).map((r) => r.split(','))).toEqual(
+      json.points.map((p) => [String(p.x), String(p.y), p.time_s === null ? 'steady' : String(p.time_s), String(p.level_m), String(p.drawdown_m), p.flags.join(' ')]),
+    );
+    expect(out).toContain('# Estimates from idealised models');
+    writeFileSync(path.join(dir, 'roundtrip.csv'), out);
+    const again = JSON.parse((await run(['evaluate', 'confined.json', '--points', 'roundtrip.csv', '--time', '1d'])).out) as { points: Array<{ x: number; y: number }> };
+    expect(again.points.map((p) => [p.x, p.y])).toEqual([[389215, 5819415], [389500, 5819415], [389215, 5819415], [389500, 5819415]]);
+  });
+
   const bad: Array<{ name: string; args: string[]; line: RegExp }> = [
     { name: 'a missing scenario file', args: ['evaluate', 'nowhere.json', '--points', '1,2'], line: /^DRYDIG_ERR_FILE: scenario file nowhere\.json does not exist$/ },
     { name: 'a folder for the scenario', args: ['evaluate', '.', '--points', '1,2'], line: /^DRYDIG_ERR_FILE: scenario file \. is a folder/ },
@@ -85,6 +102,7 @@ describe('drydig evaluate (in-process)', () => {
     { name: 'a misspelt option', args: ['evaluate', 'unconfined.json', '--point', '1,2'], line: /^DRYDIG_ERR_CLI_USAGE: evaluate: unknown option --point/ },
     { name: 'a bad grid', args: ['evaluate', 'unconfined.json', '--grid', '0,0,0,1,2,2'], line: /^DRYDIG_ERR_CLI_USAGE: --grid: spacings/ },
     { name: 'an unknown command', args: ['evalute', 'unconfined.json'], line: /^DRYDIG_ERR_CLI_USAGE: unknown command "evalute"/ },
+    { name: '--csv with a grid', args: ['evaluate', 'unconfined.json', '--points', '1,2', '--grid', '0,0,1,1,2,2', '--csv'], line: /^DRYDIG_ERR_CLI_USAGE: evaluate: --csv writes points only/ },
   ];
   it.each(bad)('exits 2 with one stderr line for $name', async ({ args, line }) => {
     const { code, out, err } = await run(args);

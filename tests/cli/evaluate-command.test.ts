@@ -24,6 +24,9 @@ beforeAll(() => {
   delete noS.aquifer.storativity;
   writeFileSync(path.join(dir, 'no-storativity.json'), JSON.stringify(noS));
   writeFileSync(path.join(dir, 'bad-points.csv'), 'x,y\n1,2\n3,north\n');
+  const threeLines = loadFixture('unconfined');
+  threeLines.boundaries = [0, 1, 2].map((k) => ({ kind: 'no-flow' as const, from: [-100 - k * 10, -500] as [number, number], to: [-100 - k * 10, 500] as [number, number] }));
+  writeFileSync(path.join(dir, 'three-boundaries.json'), JSON.stringify(threeLines));
 });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
@@ -92,6 +95,7 @@ describe('drydig evaluate (in-process)', () => {
     { name: 'a folder for the scenario', args: ['evaluate', '.', '--points', '1,2'], line: /^DRYDIG_ERR_FILE: scenario file \. is a folder/ },
     { name: 'malformed JSON', args: ['evaluate', 'broken.json', '--points', '1,2'], line: /^DRYDIG_ERR_MALFORMED_JSON: broken\.json is not well-formed JSON \(line 4, column \d+\)$/ },
     { name: 'an invalid scenario', args: ['evaluate', 'no-storativity.json', '--points', '1,2'], line: /^DRYDIG_ERR_INVALID_SCENARIO: \/aquifer\/storativity: is required for a confined aquifer$/ },
+    { name: 'boundaries the engine refuses', args: ['evaluate', 'three-boundaries.json', '--points', '1,2'], line: /^DRYDIG_ERR_UNSUPPORTED_BOUNDARIES: \/boundaries\/2: / },
     { name: 'bad inline points', args: ['evaluate', 'unconfined.json', '--points', '1,2;3'], line: /^DRYDIG_ERR_CLI_USAGE: --points: point 2/ },
     { name: 'a bad CSV cell', args: ['evaluate', 'unconfined.json', '--points', 'bad-points.csv'], line: /^DRYDIG_ERR_FILE: bad-points\.csv line 3, column y: "north" is not a finite number$/ },
     { name: 'a missing points file', args: ['evaluate', 'unconfined.json', '--points', 'none.csv'], line: /^DRYDIG_ERR_FILE: points file none\.csv does not exist$/ },

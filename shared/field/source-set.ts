@@ -23,7 +23,7 @@ export type SourceKind = 'theis' | 'thiem' | 'hantush' | 'de-glee';
 
 /** Structure-of-arrays source list. Contribution of source k at squared distance r² (r² ≥ r2min[k]):
  * - theis:   amp·W(r²·coef)
- * - thiem:   amp·(lnR2 − ln r²)/2 for r² < r2cut, else 0 (R² = r2cut)
+ * - thiem:   amp·ln(r2cut/r²)/2 for r² < r2cut, else 0 (R² = r2cut)
  * - hantush: amp·W(r²·coef, sqrt(r²)·invB)
  * - de-glee: amp·K0(sqrt(r²)·invB)
  */
@@ -44,8 +44,6 @@ export interface SourceSet {
   well: Int32Array;
   /** 1 for a real well, 0 for an image. */
   real: Uint8Array;
-  /** Steady Thiem: ln(R²). */
-  lnR2: number;
   /** Leaky: 1/B, 1/m. */
   invB: number;
 }
@@ -142,7 +140,6 @@ export function buildSourceSet({ scenario, model, geometry, terms, stepsOf }: Bu
     r2cut: new Float64Array(n),
     well: new Int32Array(n),
     real: new Uint8Array(n),
-    lnR2: R > 0 ? Math.log(R * R) : 0,
     invB: 1 / B,
   };
   raw.forEach((r, k) => {

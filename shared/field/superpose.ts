@@ -26,7 +26,7 @@ export function superposeAtPoint(set: SourceSet, x: number, y: number, out: Poin
   let sum = 0;
   let within = false;
   let reached = false;
-  const { kind, lnR2, invB } = set;
+  const { kind, invB } = set;
   for (let k = 0; k < set.count; k++) {
     if (onlyWell >= 0 && set.well[k] !== onlyWell) continue;
     const dx = x - set.x[k]!;
@@ -45,7 +45,7 @@ export function superposeAtPoint(set: SourceSet, x: number, y: number, out: Poin
         sum += amp * theisWellFunction(r2 * set.coef[k]!);
         break;
       case 'thiem':
-        sum += amp * 0.5 * (lnR2 - Math.log(r2));
+        sum += amp * 0.5 * Math.log(set.r2cut[k]! / r2);
         break;
       case 'hantush':
         sum += amp * hantushWellFunction(r2 * set.coef[k]!, Math.sqrt(r2) * invB);
@@ -66,7 +66,7 @@ export function superposeAtPoint(set: SourceSet, x: number, y: number, out: Poin
  * for wells with column ≥ 0 (one pass over the sources for a whole matrix row).
  */
 export function superposeByWell(set: SourceSet, x: number, y: number, row: Float64Array, rowOffset: number, column: Int32Array): void {
-  const { kind, lnR2, invB } = set;
+  const { kind, invB } = set;
   for (let k = 0; k < set.count; k++) {
     const col = column[set.well[k]!]!;
     if (col < 0) continue;
@@ -83,7 +83,7 @@ export function superposeByWell(set: SourceSet, x: number, y: number, row: Float
         v = amp * theisWellFunction(r2 * set.coef[k]!);
         break;
       case 'thiem':
-        v = amp * 0.5 * (lnR2 - Math.log(r2));
+        v = amp * 0.5 * Math.log(set.r2cut[k]! / r2);
         break;
       case 'hantush':
         v = amp * hantushWellFunction(r2 * set.coef[k]!, Math.sqrt(r2) * invB);
@@ -120,7 +120,7 @@ export function superposeOnGrid(set: SourceSet, grid: GridSpec): GridSum {
   const withinWell = new Uint8Array(n);
   const reached = new Uint8Array(n);
   const dx2 = new Float64Array(nx);
-  const { kind, lnR2, invB } = set;
+  const { kind, invB } = set;
 
   for (let k = 0; k < set.count; k++) {
     const sx = set.x[k]!;
@@ -165,7 +165,7 @@ export function superposeOnGrid(set: SourceSet, grid: GridSpec): GridSum {
             // Rounding at the rim of the span can put r² a hair past R²: that node gets nothing.
             if (r2 >= r2cut) continue;
             if (r2 < r2min) r2 = r2min;
-            value[row + i]! += amp * 0.5 * (lnR2 - Math.log(r2));
+            value[row + i]! += amp * 0.5 * Math.log(r2cut / r2);
             reached[row + i] = 1;
           }
           break;

@@ -8,6 +8,7 @@
 import type { FastifyError, FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import { DrydigError, ERROR_TABLE, summariseIssues, type ErrorCode, type FieldIssue } from '../shared/schema';
 import type { ErrorResponse } from './request-schemas';
+import { redactTokens } from './security';
 
 /** Longest request URL echoed back in a 404 message, characters. */
 const MAX_ECHOED_URL_CHARS = 200;
@@ -144,8 +145,10 @@ export function classifyError(error: unknown): { status: number; body: ErrorResp
   return { status: ERROR_TABLE[code].status, body: buildErrorBody(code, message), internal: false };
 }
 
+/** "GET /path" for messages and log lines: share tokens redacted, long URLs cut. */
 function describeRequest(request: FastifyRequest): string {
-  const url = request.url.length > MAX_ECHOED_URL_CHARS ? `${request.url.slice(0, MAX_ECHOED_URL_CHARS)}…` : request.url;
+  const redacted = redactTokens(request.url);
+  const url = redacted.length > MAX_ECHOED_URL_CHARS ? `${redacted.slice(0, MAX_ECHOED_URL_CHARS)}…` : redacted;
   return `${request.method} ${url}`;
 }
 

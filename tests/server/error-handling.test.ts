@@ -6,6 +6,7 @@ import Fastify from 'fastify';
 import { describe, expect, it } from 'vitest';
 import { buildErrorBody, classifyError, installErrorHandling, issuesFromValidation } from '../../server/error-handling';
 import { DrydigError, ERROR_TABLE } from '../../shared/schema';
+import { withRedactedLogging } from '../../server/security';
 
 describe('issuesFromValidation(errors) turns ajv errors into JSON-pointer issues', () => {
   const cases = [
@@ -94,6 +95,23 @@ describe('installErrorHandling(app)', () => {
     const logged = lines.join('');
     expect(logged).toContain('hunter2');
     expect(logged).toContain('unexpected error on GET /boom');
+  });
+
+  it('keeps share tokens out of the log line and the 404 message', async () => {
+    const lines: string[] = [];
+    const stream = new Writable({ write(chunk, _enc, done) { lines.push(String(chunk)); done(); } });
+    // As buildApp logs: Fastify's own request lines go through the redacting serializers.
+    const app = Fastify({ logger: withRedactedLogging({ level: 'info', stream }) });
+    installErrorHandling(app);
+    app.get('/api/v1/links/:token/boom', async () => {
+      throw new Error('broken');
+    });
+    await app.inject({ method: 'GET', url: '/api/v1/links/SECRETTOKEN123/boom' });
+    const missing = await app.inject({ method: 'GET', url: '/api/v1/links/SECRETTOKEN456/nothing' });
+    await app.close();
+    expect(lines.join('')).toContain('unexpected error on GET /api/v1/links/[token]/boom');
+    expect(lines.join('')).not.toContain('SECRETTOKEN123');
+    expect(missing.body).not.toContain('SECRETTOKEN456');
   });
 
   it('answers 500 for a response that does not fit its own schema, without leaking the value', async () => {

@@ -203,6 +203,9 @@ export interface DesignResult {
     /** Refinement rounds (control points added where the check grid showed a higher level). */
     rounds: number;
     objective: number | null;
+    /** Layout mode: how the integer search ended ('optimal' within the gap, or 'time-limit'). */
+    layoutStatus?: string;
+    /** Layout mode: relative gap between the chosen layout's cost and the best bound. */
     mipGap?: number;
     solveTime_ms: number;
   };

@@ -18,7 +18,7 @@
 import { solveLinearProgram, type LinearRow } from './linear-program';
 
 /** What a well-limit row stands for (the binding reason when it is tight). */
-export type LimitKind = 'wetted-screen' | 'suction-lift';
+export type LimitKind = 'wetted-screen' | 'suction-lift' | 'interval';
 
 export interface LimitRow {
   /** The well whose limit this is. */
@@ -39,6 +39,8 @@ export interface RateProblem {
   limits: LimitRow[];
   /** Upper bound on each rate, m³/s (Sichardt full-screen capacity, or 0 when the well cannot pump). */
   upper: Float64Array;
+  /** Lower bound on each rate, m³/s (linearisation intervals; default 0). */
+  lower?: Float64Array;
   /** Why each upper bound is what it is. */
   upperKind: Array<'capacity' | 'suction-lift' | 'wetted-screen'>;
 }
@@ -86,7 +88,7 @@ function controlRows(p: RateProblem, rowIndices: number[], shortfallColumn: numb
   return rows;
 }
 
-function limitRows(p: RateProblem, bigM?: { installColumn: (j: number) => number; upper_L_s: Float64Array }): LinearRow[] {
+function limitRows(p: RateProblem): LinearRow[] {
   const rows: LinearRow[] = [];
   for (const lim of p.limits) {
     let max = 0;
@@ -94,26 +96,14 @@ function limitRows(p: RateProblem, bigM?: { installColumn: (j: number) => number
     const scale = max > 0 ? max / L_PER_M3 : 1;
     const columns: number[] = [];
     const coefficients: number[] = [];
-    let maxActivity = 0;
     lim.coefficients.forEach((c, j) => {
       const a = c / L_PER_M3;
       if (Math.abs(a) > 1e-12 * scale) {
         columns.push(j);
         coefficients.push(a / scale);
-        if (bigM && a > 0) maxActivity += a * bigM.upper_L_s[j]!;
       }
     });
-    let upper = lim.rhs / scale;
-    if (bigM) {
-      // A well not installed has no limit of its own: relax its rows by M·(1 − y).
-      const M = Math.max(0, maxActivity - lim.rhs) / scale;
-      if (M > 0) {
-        columns.push(bigM.installColumn(lim.wellIndex));
-        coefficients.push(M);
-        upper += M;
-      }
-    }
-    rows.push({ columns, coefficients, lower: -Infinity, upper });
+    rows.push({ columns, coefficients, lower: -Infinity, upper: lim.rhs / scale });
   }
   return rows;
 }
@@ -135,6 +125,7 @@ export function findCriticalRow(p: RateProblem, rates: Float64Array): number {
   return at;
 }
 
+const lowerBounds = (p: RateProblem) => Array.from({ length: p.nWells }, (_, j) => (p.lower?.[j] ?? 0) * L_PER_M3);
 const allRows = (p: RateProblem) => Array.from({ length: p.required.length }, (_, i) => i);
 
 /**
@@ -147,7 +138,7 @@ export async function solveOptimalRates(p: RateProblem): Promise<RateSolution> {
   const rows = [...controlRows(p, allRows(p), null), ...limitRows(p)];
   const lp = await solveLinearProgram({
     cost: new Array<number>(n).fill(1),
-    lower: new Array<number>(n).fill(0),
+    lower: lowerBounds(p),
     upper: Array.from(p.upper, (u) => u * L_PER_M3),
     rows,
   });
@@ -168,7 +159,7 @@ export async function solveBestAchievableRates(p: RateProblem): Promise<RateSolu
   const z = n;
   const rows = [...controlRows(p, allRows(p), z), ...limitRows(p)];
   const upper = [...Array.from(p.upper, (u) => u * L_PER_M3), Infinity];
-  const lower = new Array<number>(n + 1).fill(0);
+  const lower = [...lowerBounds(p), 0];
   const first = await solveLinearProgram({ cost: [...new Array<number>(n).fill(0), 1], lower, upper, rows });
   if (first.status !== 'optimal') return { status: 'error', rates: new Float64Array(n), objective: null, detail: first.detail, criticalRow: -1 };
   const zStar = Math.max(0, first.x[z]!);
@@ -253,15 +244,21 @@ export interface LayoutCosts {
 
 /**
  * Layout choice (MIP): binary y_j installs candidate j; minimise wellCost·Σy + (cost per m³ ·
- * duration)·ΣQ subject to the control rows, Q_j ≤ cap_j·y_j, and each installed well's limits
- * (rows of wells not installed are relaxed by a big-M term). Infeasible with every candidate
+ * duration)·ΣQ subject to the control rows, Q_j ≤ cap_j·y_j, and the well limits. Stops at a
+ * relative gap of `mipRelativeGap` (default 2 % of the cost: rings of near-identical candidates
+ * have many near-equal layouts and proving the last fraction of a percent takes minutes) or
+ * after `timeLimit_s` (default 20 s) with the
+ * best layout found (status 'time-limit', gap reported). Infeasible with every candidate
  * installed → best achievable rates with all installed.
  */
-export async function solveLayout(p: RateProblem, costs: LayoutCosts, timeLimit_s = 60): Promise<RateSolution> {
+export async function solveLayout(p: RateProblem, costs: LayoutCosts, timeLimit_s = 20, mipRelativeGap = 0.02): Promise<RateSolution> {
   const n = p.nWells;
   const upper_L_s = Float64Array.from(p.upper, (u) => u * L_PER_M3);
-  const installColumn = (j: number) => n + j;
-  const rows = [...controlRows(p, allRows(p), null), ...limitRows(p, { installColumn, upper_L_s })];
+  // Limit rows stay on for candidates not installed: their face level, with no pumping of their
+  // own, stands above that of installed neighbours, so the rows rarely bind — and when they do,
+  // keeping them errs on the safe side. A big-M relaxation instead would weaken the LP bound
+  // so much that branch-and-bound stalls on rings of identical candidates.
+  const rows = [...controlRows(p, allRows(p), null), ...limitRows(p)];
   for (let j = 0; j < n; j++) rows.push({ columns: [j, n + j], coefficients: [1, -Math.max(upper_L_s[j]!, 0)], lower: -Infinity, upper: 0 });
   const perLitre = (costs.pumpedVolumeCost_per_m3 * costs.duration_s) / L_PER_M3;
   // A tiny cost per litre keeps rates least among equal-cost layouts when pumping is free.
@@ -273,7 +270,7 @@ export async function solveLayout(p: RateProblem, costs: LayoutCosts, timeLimit_
     rows,
     integer: Array.from({ length: n }, (_, j) => n + j),
     timeLimit_s,
-    mipRelativeGap: 1e-4,
+    mipRelativeGap,
   });
   if (mip.status === 'optimal' || mip.status === 'time-limit') {
     const rates = Float64Array.from({ length: n }, (_, j) => Math.max(0, mip.x[j]!) / L_PER_M3);
@@ -301,6 +298,7 @@ export function findBindingLimits(p: RateProblem, rates: Float64Array): Array<'c
   const out: Array<'capacity' | 'suction-lift' | 'wetted-screen' | null> = new Array(p.nWells).fill(null);
   for (let j = 0; j < p.nWells; j++) if (rates[j]! >= p.upper[j]! * (1 - TIGHT) && p.upper[j]! >= 0 && rates[j]! > 0) out[j] = p.upperKind[j]!;
   for (const lim of p.limits) {
+    if (lim.kind === 'interval') continue;
     let act = 0;
     lim.coefficients.forEach((c, j) => (act += c * rates[j]!));
     const tol = TIGHT * Math.max(Math.abs(lim.rhs), 1e-3);

@@ -29,7 +29,7 @@ import {
   type RateSolution,
 } from './rate-problem';
 import { sichardtCapacity, wettedScreenLength } from './sichardt-capacity';
-import { buildDesignWells, buildLimitRows } from './well-limits';
+import { buildDesignWells, buildLimitRows, narrowIntervals } from './well-limits';
 import { summariseDesign } from './bid-summary';
 import { applyDesignRates, designResponse, variableConversions, type DesignContext } from './design-context';
 import { computeTimes } from './design-times';
@@ -40,7 +40,9 @@ import { computeTimes } from './design-times';
  */
 export const DESIGN_TOLERANCE_M = 1e-4;
 /** Most refinement rounds (each adds the check points still above target). */
-export const MAX_REFINEMENT_ROUNDS = 6;
+export const MAX_REFINEMENT_ROUNDS = 8;
+/** Most rounds that narrow the linearisation intervals of the well limits. */
+export const MAX_TIGHTENING_ROUNDS = 3;
 /** Most check points added per round. */
 const MAX_ADDED_PER_ROUND = 400;
 
@@ -92,7 +94,10 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     ]);
   }
   const designTime_s = scenario.design.time_s;
-  const limitTime_s = designTime_s === null ? null : Math.max(designTime_s, options.duration_s);
+  // Well limits hold in the design state (design time). Constant rates kept on beyond it draw the
+  // wells lower still; that is checked at the end of pumping and reported as a caution.
+  const limitTime_s = designTime_s;
+  const endTime_s = designTime_s === null ? null : Math.max(designTime_s, options.duration_s);
   const ctx: DesignContext = {
     scenario,
     options,
@@ -124,7 +129,10 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     wells.map((w) => [w.x, w.y] as const),
     limitTime_s,
   );
-  const { limits, upper, upperKind } = buildLimitRows({ aquifer: a, wells, faceResponse, variableForLevel: ctx.variableForLevel });
+  const limitInput = { aquifer: a, wells, faceResponse, variableForLevel: ctx.variableForLevel, levelForVariable: ctx.levelForVariable };
+  let limitSet = buildLimitRows(limitInput);
+  // Layout: the set chosen by the first MIP; later rounds refine its rates by LP.
+  let chosen: Uint8Array | null = null;
 
   // Requirement rows: "level ≤ target − tolerance" ⇔ Σ a_ij·Q_j ≥ variable(target − tolerance).
   const requiredFor = (p: ControlPoint) => ctx.variableForLevel(p.targetLevel_m - DESIGN_TOLERANCE_M);
@@ -145,44 +153,90 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   const buildProblem = (): RateProblem => {
     const response = new Float64Array(rowResponses.length * nW);
     rowResponses.forEach((r, i) => response.set(r, i * nW));
-    return { nWells: nW, response, required: Float64Array.from(rowRequired), limits, upper, upperKind };
+    const keep = (j: number) => chosen === null || chosen[j] === 1;
+    return {
+      nWells: nW,
+      response,
+      required: Float64Array.from(rowRequired),
+      limits: limitSet.limits.filter((l) => keep(l.wellIndex)),
+      upper: limitSet.upper.map((u, j) => (keep(j) ? u : 0)),
+      lower: limitSet.lower.map((v, j) => (keep(j) ? v : 0)),
+      upperKind: limitSet.upperKind,
+    };
   };
 
+  // Layout cost per m³: the option's cost plus the energy to lift it, estimated with the head from
+  // the deepest target to ground (ρ·g·H/η per m³, in kWh: / 3.6e6 J).
+  const deepestTarget = Math.min(...scenario.excavations.map(getExcavationTargetLevel), a.staticLevel_m);
+  const headEstimate_m = Math.max(0, scenario.groundLevel_m - deepestTarget) + options.dischargeHead_m + options.frictionAllowance_m;
+  const layoutCostPerM3 = options.pumpedVolumeCost_per_m3 + (options.energyPrice_per_kWh * 1000 * 9.80665 * headEstimate_m) / (options.pumpEfficiency * 3.6e6);
+  let layoutSearch: { status: string; mipGap?: number } | null = null;
   const solve = async (p: RateProblem): Promise<RateSolution> => {
     if (nW === 0) return { status: 'infeasible', rates: new Float64Array(0), objective: 0, detail: 'no wells', criticalRow: -1 };
     if (p.required.length === 0) return { status: 'optimal', rates: new Float64Array(nW), objective: 0, detail: 'no lowering needed', criticalRow: -1 };
     if (mode === 'uniform') return solveUniformRate(p);
-    if (mode === 'layout')
-      return solveLayout(p, { wellCost: options.wellCost, pumpedVolumeCost_per_m3: options.pumpedVolumeCost_per_m3, duration_s: options.duration_s });
+    if (mode === 'layout' && chosen !== null) return { ...(await solveOptimalRates(p)), installed: chosen };
+    if (mode === 'layout') {
+      const layout = await solveLayout(p, { wellCost: options.wellCost, pumpedVolumeCost_per_m3: layoutCostPerM3, duration_s: options.duration_s });
+      layoutSearch = { status: layout.status, ...(layout.mipGap !== undefined ? { mipGap: layout.mipGap } : {}) };
+      return layout;
+    }
     return solveOptimalRates(p);
   };
 
   let problem = buildProblem();
   let solution: RateSolution;
   let rounds = 0;
+  let tighteningRounds = 0;
+  let restarted = false;
   let solveTime_ms = 0;
+  // Confined/leaky rows are exact in the levels; only well loss and unconfined chords can be tightened.
+  const canTighten = mode !== 'uniform' && (a.kind === 'unconfined' || wells.some((w) => w.wellLoss_s2_m5 > 0));
   const checkLevel = (i: number, rates: Float64Array) => ctx.levelForVariable(dot(checkResponse, i, nW, rates));
   for (;;) {
-    progress('solving', 0.2 + 0.05 * rounds);
+    progress('solving', Math.min(0.5, 0.2 + 0.04 * rounds));
     const t0 = Date.now();
     solution = await solve(problem);
     solveTime_ms += Date.now() - t0;
     rounds++;
+    if (mode === 'layout' && chosen === null && solution.installed && (solution.status === 'optimal' || solution.status === 'time-limit'))
+      chosen = solution.installed;
     if (solution.status === 'error' || rounds >= MAX_REFINEMENT_ROUNDS) break;
-    const violated: Array<{ i: number; over: number }> = [];
-    checkPoints.forEach((p, i) => {
-      if (inDesign.has(i) || !Number.isFinite(requiredFor(p))) return;
-      const over = checkLevel(i, solution.rates) - p.targetLevel_m;
-      if (over > 0) violated.push({ i, over });
-    });
-    // When the solve is infeasible the best-achievable rates leave many points above target; adding
-    // them cannot help, so refine only a feasible solution.
-    if (violated.length === 0 || solution.status === 'infeasible') break;
-    violated.sort((x, y) => y.over - x.over);
-    for (const { i } of violated.slice(0, MAX_ADDED_PER_ROUND)) {
-      inDesign.add(i);
-      addRow(checkResponse.subarray(i * nW, (i + 1) * nW), checkPoints[i]!);
+    if (solution.status === 'infeasible' && (tighteningRounds > 0 || (mode === 'layout' && rounds > 1)) && !restarted) {
+      // Narrowed intervals, or a layout chosen before control points were added, can exclude a
+      // feasible design: start again once from the wide intervals and a fresh layout choice.
+      restarted = true;
+      tighteningRounds = MAX_TIGHTENING_ROUNDS;
+      limitSet = buildLimitRows(limitInput);
+      chosen = null;
+      problem = buildProblem();
+      continue;
     }
+    let changed = false;
+    // When the solve is infeasible the best-achievable rates leave many points above target; adding
+    // them cannot help, so refine control points only for a feasible solution.
+    if (solution.status !== 'infeasible') {
+      const violated: Array<{ i: number; over: number }> = [];
+      checkPoints.forEach((p, i) => {
+        if (inDesign.has(i) || !Number.isFinite(requiredFor(p))) return;
+        const over = checkLevel(i, solution.rates) - p.targetLevel_m;
+        if (over > 0) violated.push({ i, over });
+      });
+      violated.sort((x, y) => y.over - x.over);
+      for (const { i } of violated.slice(0, MAX_ADDED_PER_ROUND)) {
+        inDesign.add(i);
+        addRow(checkResponse.subarray(i * nW, (i + 1) * nW), checkPoints[i]!);
+      }
+      changed = violated.length > 0;
+    }
+    const anyBinding = findBindingLimits(problem, solution.rates).some((b) => b !== null);
+    if (canTighten && tighteningRounds < MAX_TIGHTENING_ROUNDS && (anyBinding || solution.status === 'infeasible') && solution.rates.some((q) => q > 0)) {
+      const faceValues = Float64Array.from(wells, (_, j) => dot(faceResponse, j, nW, solution.rates));
+      limitSet = buildLimitRows({ ...limitInput, intervals: narrowIntervals(limitSet.intervals, faceValues, solution.rates) });
+      tighteningRounds++;
+      changed = true;
+    }
+    if (!changed) break;
     problem = buildProblem();
   }
   const rates = solution.rates;
@@ -372,8 +426,23 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     'Idealised model (homogeneous, isotropic aquifer, infinite except the stated straight boundaries, fully penetrating wells): treat rates and levels as estimates; confirm by site investigation and pumping tests, follow local codes, and have the design checked by a licensed engineer.',
     'Well limits are checked with linear, conservative rows: unconfined pumping levels use the chord of the Dupuit level curve and well loss C·Q² its secant, so capacities and suction-lift margins are under-, never over-stated; the reported pumping levels are the engine’s exact values.',
   ];
-  if (limitTime_s !== null && limitTime_s > (designTime_s ?? 0))
-    cautions.push(`Well limits are checked at the end of pumping (${fmt(limitTime_s / 86400)} days), when the wells stand lowest, not only at the design time.`);
+  if (endTime_s !== null && designTime_s !== null && endTime_s > designTime_s && rates.some((q) => q > 0)) {
+    const late = wellLevels({ scenario: solved, time_s: endTime_s });
+    const over = wells.filter((w, j) => {
+      const q = rates[j]!;
+      if (!(q > 0)) return false;
+      const pl = late[w.scenarioIndex]!.pumpingLevel_m;
+      const cap = sichardtCapacity({ radius_m: w.radius_m, wettedLength_m: wettedScreenLength(w.screenTop_m, w.screenBottom_m, pl), conductivity_m_s: a.conductivity_m_s });
+      return pl < w.minimumLevel_m || q > cap;
+    });
+    if (over.length > 0)
+      cautions.push(
+        `Kept at the design rates to the end of pumping (${fmt(endTime_s / 86400)} days), ${over.length} well(s) would pass their suction-lift or wetted-screen limit (${over
+          .slice(0, 8)
+          .map((w) => w.id)
+          .join(', ')}${over.length > 8 ? ', …' : ''}): plan to reduce the rates once the target is reached, and check the levels as pumping goes on.`,
+      );
+  }
   const flagged = (flag: string) => pointResults.filter((p) => p.flags.includes(flag as never)).length;
   if (flagged('large-drawdown') > 0)
     cautions.push(`${flagged('large-drawdown')} check point(s) are drawn down more than about 25 % of the saturated thickness: Dupuit–Jacob results degrade there; treat levels as approximate.`);
@@ -387,6 +456,12 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     cautions.push(`Suction-lift limit ${options.suctionLiftLimit_m} m below the header is common practice (well points work to about 5–6 m), not a property of the site.`);
   if (designTime_s === null)
     cautions.push(`Steady design: allow about ${Math.round((options.initialRateFactor - 1) * 100)} % more flow for the first ${fmt(options.initialPeriod_s / 86400)} days while storage drains (UFC 3-220-05).`);
+  // Assigned inside solve(); TypeScript cannot see that.
+  const layoutInfo = layoutSearch as { status: string; mipGap?: number } | null;
+  if (layoutInfo !== null)
+    cautions.push(
+      `Layout choice by mixed-integer programming: ${layoutInfo.status === 'time-limit' ? 'the search stopped at its time limit' : 'the search stopped'} with the chosen layout's cost within ${fmt(100 * (layoutInfo.mipGap ?? 0), 2)} % of the best possible; costs per well and per m³ are the options' placeholders unless you set them.`,
+    );
   if (mode === 'uniform' && solution.status === 'optimal')
     cautions.push('Uniform mode: every well pumps the same rate; wells at the ends of a line carry more load in reality.');
 
@@ -411,7 +486,7 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
       status: solution.status,
       rounds,
       objective: solution.objective,
-      ...(solution.mipGap !== undefined ? { mipGap: solution.mipGap } : {}),
+      ...(layoutInfo !== null ? { layoutStatus: layoutInfo.status, ...(layoutInfo.mipGap !== undefined ? { mipGap: layoutInfo.mipGap } : {}) } : {}),
       solveTime_ms: Math.max(solveTime_ms, 0),
     },
     cautions,

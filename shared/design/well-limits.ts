@@ -11,11 +11,14 @@
  *
  * Linearisation, both conservative:
  * - level(v) is linear for confined/leaky aquifers (static − v) and concave for unconfined
- *   (base + sqrt(H² − 2H·v)), so on [0, v(L)] it lies above its chord
- *   static − (static − L)·v / v(L). Using the chord under-states the level in the well, by at most
- *   a few decimetres at mid-range drawdown and by nothing at the limit itself.
- * - C·Q² ≤ C·Q̄·Q for 0 ≤ Q ≤ Q̄ (the secant); Q̄ is the full-screen capacity, or
- *   sqrt((static − screen bottom)/C) when smaller, which no feasible rate can exceed.
+ *   (base + sqrt(H² − 2H·v)), so on an interval [v_lo, v_hi] it lies above its chord. The first
+ *   solve takes [0, v(limit)]: the chord under-states the level in the well, by up to a few
+ *   decimetres at mid-range drawdown and by nothing at the limit itself.
+ * - C·Q² ≤ C·((q_lo + q_hi)·Q − q_lo·q_hi) on [q_lo, q_hi] (the secant); first [0, Q̄] with Q̄ the
+ *   full-screen capacity, or sqrt((static − screen bottom)/C) when smaller, which no feasible
+ *   rate can exceed.
+ * Later rounds narrow both intervals around the previous solution (`narrowIntervals`): a bounded
+ * number of LP solves, each conservative, each no worse than the one before.
  */
 import type { Aquifer, Scenario, Well, WellKind } from '../schema';
 import { sichardtEntranceVelocity } from './sichardt-capacity';
@@ -93,6 +96,20 @@ export function buildDesignWells({ scenario, indices, startOf, headerLevel_m, su
   });
 }
 
+/**
+ * Where the linearisation is taken, per well: the chord of level(v) over [vLo, vHi] and the
+ * secant of Q² over [qLo, qHi]. Both lie below / above the curve only inside their interval, so
+ * the interval itself is added as rows. Narrower intervals around a previous solution give a
+ * tighter (still conservative) row that the previous solution also satisfies, so each
+ * tightening round can only lower the objective.
+ */
+export interface LimitInterval {
+  vLo: number;
+  vHi: number;
+  qLo_m3_s: number;
+  qHi_m3_s: number;
+}
+
 export interface BuildLimitRowsOptions {
   aquifer: Aquifer;
   wells: DesignWell[];
@@ -100,28 +117,37 @@ export interface BuildLimitRowsOptions {
   faceResponse: Float64Array;
   /** The superposed variable that gives a level exactly (drawdown or s_c). */
   variableForLevel: (level_m: number) => number;
+  /** The level for a superposed variable (exact). */
+  levelForVariable: (v: number) => number;
+  /** Linearisation intervals per well; absent: from no drawdown to the limit, and 0 to the capacity. */
+  intervals?: Array<LimitInterval | null>;
 }
 
 export interface WellLimitRows {
   limits: LimitRow[];
   upper: Float64Array;
   upperKind: Array<'capacity' | 'suction-lift' | 'wetted-screen'>;
+  /** Lower bounds on the rates from the intervals, m³/s. */
+  lower: Float64Array;
+  /** The intervals used (to be narrowed in the next round). */
+  intervals: LimitInterval[];
 }
 
 /** Linear, conservative rows for every well's floor and Sichardt limit (see the file comment). */
-export function buildLimitRows({ aquifer, wells, faceResponse, variableForLevel }: BuildLimitRowsOptions): WellLimitRows {
+export function buildLimitRows({ aquifer, wells, faceResponse, variableForLevel, levelForVariable, intervals }: BuildLimitRowsOptions): WellLimitRows {
   const n = wells.length;
   const staticLevel = aquifer.staticLevel_m;
   const limits: LimitRow[] = [];
   const upper = new Float64Array(n);
+  const lower = new Float64Array(n);
+  const used: LimitInterval[] = [];
   const upperKind: WellLimitRows['upperKind'] = [];
   wells.forEach((w, j) => {
     let cap = Math.min(w.fullScreenCapacity_m3_s, MAX_WELL_RATE_M3_S);
     let kind: WellLimitRows['upperKind'][number] = 'capacity';
     const C = w.wellLoss_s2_m5;
-    const lowestFloor = w.screenBottom_m;
     if (C > 0) {
-      const byLoss = Math.sqrt(Math.max(0, staticLevel - lowestFloor) / C);
+      const byLoss = Math.sqrt(Math.max(0, staticLevel - w.screenBottom_m) / C);
       if (byLoss < cap) {
         cap = byLoss;
         kind = 'wetted-screen';
@@ -131,25 +157,64 @@ export function buildLimitRows({ aquifer, wells, faceResponse, variableForLevel 
       cap = 0;
       kind = 'suction-lift';
     }
-    upper[j] = cap;
+    const vFloor = variableForLevel(Math.max(w.minimumLevel_m, w.screenBottom_m));
+    const given = intervals?.[j] ?? null;
+    const iv: LimitInterval = given ?? { vLo: 0, vHi: vFloor, qLo_m3_s: 0, qHi_m3_s: cap };
+    const qHi = Math.min(iv.qHi_m3_s, cap);
+    const qLo = Math.min(iv.qLo_m3_s, qHi);
+    upper[j] = qHi;
+    lower[j] = qLo;
     upperKind.push(kind);
+    used.push({ ...iv, qLo_m3_s: qLo, qHi_m3_s: qHi });
     const face = faceResponse.subarray(j * n, (j + 1) * n);
-    const secant = C * cap;
+    // Well loss C·Q² ≤ C·((qLo + qHi)·Q − qLo·qHi) on [qLo, qHi].
+    const lossSlope = C * (qLo + qHi);
+    const lossConst = C * qLo * qHi;
+    // Level at the face ≥ A − B·v on [vLo, vHi] (exact for confined/leaky: A = static, B = 1).
+    const chord = (vLo: number, vHi: number) => {
+      if (aquifer.kind !== 'unconfined' || !(vHi > vLo)) return { A: staticLevel, B: 1 };
+      const hLo = levelForVariable(vLo);
+      const hHi = levelForVariable(vHi);
+      const B = (hLo - hHi) / (vHi - vLo);
+      return { A: hLo + B * vLo, B };
+    };
 
-    if (w.floorKind === 'suction-lift' && w.minimumLevel_m < staticLevel) {
+    if (w.floorKind === 'suction-lift' && w.minimumLevel_m < staticLevel && cap > 0) {
       const L = w.minimumLevel_m;
-      const kappa = (staticLevel - L) / variableForLevel(L);
-      const coefficients = Float64Array.from(face, (b) => kappa * b);
-      coefficients[j] = coefficients[j]! + secant;
-      limits.push({ wellIndex: j, kind: 'suction-lift', coefficients, rhs: staticLevel - L });
+      const { A, B } = chord(Math.min(iv.vLo, variableForLevel(L)), Math.min(iv.vHi, variableForLevel(L)));
+      const coefficients = Float64Array.from(face, (b) => B * b);
+      coefficients[j] = coefficients[j]! + lossSlope;
+      limits.push({ wellIndex: j, kind: 'suction-lift', coefficients, rhs: A - L + lossConst });
     }
     if (w.screenBottom_m < staticLevel && cap > 0) {
       const alpha = w.capacityPerMetre_m2_s;
-      const kappa = (staticLevel - w.screenBottom_m) / variableForLevel(w.screenBottom_m);
-      const coefficients = Float64Array.from(face, (b) => alpha * kappa * b);
-      coefficients[j] = coefficients[j]! + 1 + alpha * secant;
-      limits.push({ wellIndex: j, kind: 'wetted-screen', coefficients, rhs: alpha * (staticLevel - w.screenBottom_m) });
+      const vBottom = variableForLevel(w.screenBottom_m);
+      const { A, B } = chord(Math.min(iv.vLo, vBottom), Math.min(iv.vHi, vBottom));
+      const coefficients = Float64Array.from(face, (b) => alpha * B * b);
+      coefficients[j] = coefficients[j]! + 1 + alpha * lossSlope;
+      limits.push({ wellIndex: j, kind: 'wetted-screen', coefficients, rhs: alpha * (A - w.screenBottom_m + lossConst) });
+    }
+    if (aquifer.kind === 'unconfined' && cap > 0) {
+      // The chord holds only on [vLo, vHi]: keep the face variable there.
+      if (iv.vHi < vFloor) limits.push({ wellIndex: j, kind: 'interval', coefficients: Float64Array.from(face), rhs: iv.vHi });
+      if (iv.vLo > 0) limits.push({ wellIndex: j, kind: 'interval', coefficients: Float64Array.from(face, (b) => -b), rhs: -iv.vLo });
     }
   });
-  return { limits, upper, upperKind };
+  return { limits, upper, upperKind, lower, intervals: used };
+}
+
+/**
+ * Narrower intervals around a solution (face variable v*, rate Q*): [0.7·v*, v* + 0.6·(v_limit − v*)]
+ * and [0.7·Q*, Q* + 0.6·(cap − Q*)]. They contain the solution, so it stays feasible.
+ */
+export function narrowIntervals(previous: LimitInterval[], faceValues: Float64Array, rates: Float64Array): LimitInterval[] {
+  return previous.map((iv, j) => {
+    const v = Math.max(0, faceValues[j]!);
+    const q = Math.max(0, rates[j]!);
+    const vHi = Math.min(iv.vHi, Math.max(v, v + 0.6 * (iv.vHi - v)));
+    const vLo = Math.min(Math.max(iv.vLo, 0.7 * v), v);
+    const qHi = Math.min(iv.qHi_m3_s, Math.max(q, q + 0.6 * (iv.qHi_m3_s - q)));
+    const qLo = Math.min(Math.max(iv.qLo_m3_s, 0.7 * q), q);
+    return { vLo, vHi, qLo_m3_s: qLo, qHi_m3_s: qHi };
+  });
 }

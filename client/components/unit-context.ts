@@ -27,8 +27,10 @@ export function displayValue(value_si: number | undefined, unit: UnitId | null, 
   if (value_si === undefined || !Number.isFinite(value_si)) return '';
   const v = unit ? fromSi(value_si, unit) : value_si;
   const a = Math.abs(v);
-  if (a !== 0 && (a < 1e-3 || a >= 1e6)) return v.toExponential(significant - 1).replace(/\.?0+e/, 'e');
-  return formatNumber(v, { significant: Math.max(significant, a >= 1000 ? 7 : significant) });
+  if (a !== 0 && a < 1e-3) return v.toExponential(significant - 1).replace(/\.?0+e/, 'e');
+  // Coordinates and levels: keep millimetres however large the number (UTM northings are 7 digits).
+  if (a >= 100) return String(Number(v.toFixed(3)));
+  return formatNumber(v, { significant: Math.max(significant, 4) });
 }
 
 /** The display unit of a quantity. */

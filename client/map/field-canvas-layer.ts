@@ -84,7 +84,7 @@ export class FieldCanvasLayer extends CanvasOverlay {
           f.fillStyle = bandColour(area.level, levels[i + 1] ?? r.range.max);
           f.fill('evenodd');
         });
-        ctx.globalAlpha = 0.42;
+        ctx.globalAlpha = 0.34;
         ctx.drawImage(scratch, 0, 0, size.x, size.y);
         ctx.globalAlpha = 1;
       }

@@ -59,7 +59,7 @@ export class LeafletMapController {
   private readonly handleLayer = L.layerGroup();
   private readonly markLayer = L.layerGroup();
   private readonly draftLayer = L.layerGroup();
-  private sectionLine: L.Polyline | null = null;
+  private readonly sectionLayer = L.layerGroup();
   private ringPreview: L.LayerGroup = L.layerGroup();
   private inspectMarker: L.CircleMarker | null = null;
   private tool: MapTool = 'select';
@@ -91,7 +91,7 @@ export class LeafletMapController {
     this.tiles.addTo(this.map);
     this.underlay.addTo(this.map);
     this.field.addTo(this.map);
-    for (const layer of [this.excavationLayer, this.boundaryLayer, this.ringPreview, this.markLayer, this.wellLayer, this.handleLayer, this.draftLayer]) layer.addTo(this.map);
+    for (const layer of [this.excavationLayer, this.boundaryLayer, this.sectionLayer, this.ringPreview, this.markLayer, this.wellLayer, this.handleLayer, this.draftLayer]) layer.addTo(this.map);
     this.setImperialScale(false);
     L.control.zoom({ position: 'topleft' }).addTo(this.map);
     this.map.removeControl(this.map.zoomControl);
@@ -149,17 +149,17 @@ export class LeafletMapController {
   }
 
   setSection(line: SectionLine | null): void {
-    this.sectionLine?.remove();
-    this.sectionLine = null;
+    this.sectionLayer.clearLayers();
     if (!line) return;
-    this.sectionLine = L.polyline([[line.from[1], line.from[0]], [line.to[1], line.to[0]]], {
+    L.polyline([[line.from[1], line.from[0]], [line.to[1], line.to[0]]], {
       color: SELECTION_COLOUR, weight: 2.5, dashArray: '8 4', className: 'dd-section-line', interactive: false,
-    }).addTo(this.map);
+    }).addTo(this.sectionLayer);
     for (const [p, label] of [[line.from, 'A'], [line.to, 'B']] as const) {
       L.marker([p[1], p[0]], {
         interactive: false,
+        keyboard: false,
         icon: L.divIcon({ className: 'dd-section-end', html: label, iconSize: [18, 18] }),
-      }).addTo(this.sectionLine as unknown as L.LayerGroup).addTo(this.map);
+      }).addTo(this.sectionLayer);
     }
   }
 

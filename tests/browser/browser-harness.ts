@@ -1,0 +1,98 @@
+/**
+ * Shared set-up of the browser tests: the real server in-process (`buildApp` serving the built
+ * client from `client/dist`, storage in memory) on 127.0.0.1 and a random port, and Debian's
+ * Chromium driven by playwright-core, headless. Screenshots go under `artifacts/browser/`.
+ */
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import type { FastifyInstance } from 'fastify';
+import { buildApp } from '../../server/app';
+
+export const ARTIFACTS_DIR = path.resolve('artifacts/browser');
+
+/** A running server and browser page. */
+export interface BrowserSession {
+  url: string;
+  page: Page;
+  browser: Browser;
+  app: FastifyInstance;
+  /** Page errors and console errors seen so far (a test asserts there are none). */
+  errors: string[];
+  screenshot(name: string): Promise<string>;
+  close(): Promise<void>;
+}
+
+/** Starts the server and a page at `/`, waiting until the first field is on the map. */
+export async function openPlanMap(options: { viewport?: { width: number; height: number } } = {}): Promise<BrowserSession> {
+  const app = await buildApp({ clientDir: 'client/dist', dataDir: ':memory:' });
+  await app.listen({ host: '127.0.0.1', port: 0 });
+  const address = app.server.address();
+  const port = typeof address === 'object' && address ? address.port : 0;
+  const url = `http://127.0.0.1:${port}/`;
+  const browser = await chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'],
+  });
+  const page = await browser.newPage({ viewport: options.viewport ?? { width: 1440, height: 900 }, deviceScaleFactor: 1 });
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(`pageerror: ${e.message}`));
+  page.on('console', (m) => {
+    if (m.type() === 'error') errors.push(`console: ${m.text()}`);
+  });
+  // No internet: any request leaving 127.0.0.1 is a bug (everything must be bundled).
+  await page.route('**/*', (route) => {
+    const u = new URL(route.request().url());
+    if (u.hostname === '127.0.0.1' || u.protocol === 'data:' || u.protocol === 'blob:') return route.continue();
+    errors.push(`external request: ${u.href}`);
+    return route.abort();
+  });
+  await page.goto(url);
+  await waitForField(page);
+  mkdirSync(ARTIFACTS_DIR, { recursive: true });
+  return {
+    url, page, browser, app, errors,
+    async screenshot(name) {
+      const file = path.join(ARTIFACTS_DIR, `${name}.png`);
+      await page.screenshot({ path: file });
+      return file;
+    },
+    async close() {
+      await browser.close();
+      await app.close();
+    },
+  };
+}
+
+/** Waits until a field result has been drawn and no fine computation is pending. */
+export async function waitForField(page: Page, afterCount = 0, timeout_ms = 30_000): Promise<void> {
+  await page.waitForFunction(
+    (n) => {
+      const h = (window as unknown as { __drydig?: { fieldsDrawn: number; busy(): boolean } }).__drydig;
+      return !!h && h.fieldsDrawn > n && !h.busy();
+    },
+    afterCount,
+    { timeout: timeout_ms, polling: 50 },
+  );
+}
+
+/** Number of field results drawn so far. */
+export async function fieldsDrawn(page: Page): Promise<number> {
+  return page.evaluate(() => (window as unknown as { __drydig: { fieldsDrawn: number } }).__drydig.fieldsDrawn);
+}
+
+/** Page position of a site point (from the read-only test hook). */
+export async function pagePoint(page: Page, x: number, y: number): Promise<{ x: number; y: number }> {
+  const p = await page.evaluate(([a, b]) => (window as unknown as { __drydig: { pagePoint(x: number, y: number): { x: number; y: number } | null } }).__drydig.pagePoint(a!, b!), [x, y]);
+  if (!p) throw new Error('map not ready');
+  return p;
+}
+
+/** Waits until the computation settles after an action (a new fine field is drawn). */
+export async function settle(page: Page, before: number): Promise<void> {
+  await waitForField(page, before);
+  // One more quiet period: a coarse result may be followed by the fine one.
+  await page.waitForTimeout(250);
+  await waitForField(page, 0);
+}

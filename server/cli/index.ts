@@ -50,7 +50,7 @@ export async function runCli(argv: readonly string[], io: CliIo = processIo()): 
     }
     const load = COMMANDS[command];
     if (!load) {
-      io.stderr(`DRYDIG_ERR_CLI_USAGE: unknown command "${oneLine(command).slice(0, 80)}"; run drydig --help for the commands\n`);
+      io.stderr(`DRYDIG_ERR_CLI_USAGE: unknown command "${oneLine(command).slice(0, 80)}"; commands: ${Object.keys(COMMANDS).join(', ')}, help (drydig --help shows their options)\n`);
       return EXIT_BAD_INPUT;
     }
     const run = await load();

@@ -38,12 +38,12 @@ export function estimateHeaderLength(points: ReadonlyArray<readonly [number, num
     steps.push(bestD);
     current = best;
   }
-  // Close the ring when the last well is about one spacing from the first (a ring main).
+  // Close the ring when the last well is about one spacing (≤ 1.5 × median) from the first (a ring main).
   const sorted = [...steps].sort((p, q) => p - q);
   const median = sorted[Math.floor(sorted.length / 2)]!;
   const closing = Math.hypot(points[current]![0] - points[0]![0], points[current]![1] - points[0]![1]);
   const limit = 5 * Math.max(median, 1e-9);
-  return steps.filter((d) => d <= limit).reduce((s, d) => s + d, 0) + (n > 2 && closing <= limit ? closing : 0);
+  return steps.filter((d) => d <= limit).reduce((s, d) => s + d, 0) + (n > 2 && closing <= 1.5 * median ? closing : 0);
 }
 
 export interface SummariseDesignOptions {

@@ -47,6 +47,8 @@ export interface GenerateControlPointsOptions {
   userPoints?: readonly DesignControlPoint[];
   /** JSON pointer of the user points for messages. Default '/designOptions/controlPoints'. */
   userPointsPath?: string;
+  /** JSON pointer of the spacing for messages. Default '/designOptions/controlSpacing_m'. */
+  spacingPath?: string;
 }
 
 /**
@@ -60,6 +62,7 @@ export function generateControlPoints({
   densify = 1,
   userPoints = [],
   userPointsPath = '/designOptions/controlPoints',
+  spacingPath = '/designOptions/controlSpacing_m',
 }: GenerateControlPointsOptions): ControlPoint[] {
   const points: ControlPoint[] = [];
   const lowestTargetAt = (x: number, y: number, fallback: number): number => {
@@ -72,8 +75,8 @@ export function generateControlPoints({
     if (points.length > MAX_CONTROL_POINTS)
       throw new DrydigError(
         'DRYDIG_ERR_INVALID_REQUEST',
-        `/designOptions/controlSpacing_m: the control spacing gives more than ${MAX_CONTROL_POINTS} control points; use a coarser spacing`,
-        [{ path: '/designOptions/controlSpacing_m', message: `gives more than ${MAX_CONTROL_POINTS} control points; use a coarser spacing` }],
+        `${spacingPath}: the control spacing gives more than ${MAX_CONTROL_POINTS} control points; use a coarser spacing`,
+        [{ path: spacingPath, message: `gives more than ${MAX_CONTROL_POINTS} control points; use a coarser spacing` }],
       );
   };
 

@@ -39,6 +39,9 @@ export interface ResolvedDesignOptions {
   duration_s: number;
   stages: DesignStage[];
   outOfServiceWell: string | null;
+  /** JSON pointers the control points and spacing came from (for messages). */
+  controlPointsPath: string;
+  controlSpacingPath: string;
 }
 
 /**
@@ -143,6 +146,8 @@ export function resolveDesignOptions({ scenario, overrides, overridesPath = '/op
     duration_s: merged.duration_s ?? d.duration_s,
     stages: merged.stages ?? [],
     outOfServiceWell: merged.outOfServiceWell ?? null,
+    controlPointsPath: `${origin('controlPoints')}/controlPoints`,
+    controlSpacingPath: `${origin('controlSpacing_m')}/controlSpacing_m`,
   };
 
   const issues: FieldIssue[] = [];

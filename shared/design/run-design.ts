@@ -110,13 +110,15 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   };
 
   progress('control points', 0.05);
-  const designPoints = generateControlPoints({ excavations: scenario.excavations, spacing_m: options.controlSpacing_m, userPoints: options.controlPoints });
-  const checkPoints = generateControlPoints({
+  const pointOptions = {
     excavations: scenario.excavations,
     spacing_m: options.controlSpacing_m,
-    densify: 2,
     userPoints: options.controlPoints,
-  });
+    userPointsPath: options.controlPointsPath,
+    spacingPath: options.controlSpacingPath,
+  };
+  const designPoints = generateControlPoints(pointOptions);
+  const checkPoints = generateControlPoints({ ...pointOptions, densify: 2 });
   const xy = (p: ControlPoint) => [p.x, p.y] as const;
 
   progress('unit responses', 0.1);

@@ -143,3 +143,30 @@ describe('runDesign on the demo sites', () => {
     expect(oos.met).toBe(worst <= 0);
   });
 });
+
+describe('runDesign with a staged start and other aquifer kinds', () => {
+  it('honours wells switched on later: the staged schedule reaches every target at the design time', async () => {
+    const s = fixture('demo-deepwells-confined');
+    const result = await runDesign({ scenario: s, mode: 'optimal', options: { stages: [{ wellIds: ['DW5', 'DW6'], start_s: 2 * 86400 }] } });
+    expect(result.feasible, JSON.stringify(result.reasons)).toBe(true);
+    expect(result.wells.find((w) => w.id === 'DW5')!.start_s).toBe(2 * 86400);
+    checkReachesTargets(s, result);
+  });
+
+  it('designs a leaky aquifer (Hantush–Jacob) that the engine then confirms', async () => {
+    const s = singleWellScenario();
+    s.aquifer = { ...s.aquifer, kind: 'leaky', leakageFactor_m: 300 };
+    const result = await runDesign({ scenario: s, mode: 'optimal' });
+    expect(result.feasible).toBe(true);
+    checkReachesTargets(s, result);
+  });
+
+  it('designs a steady unconfined ring and reports no time to target but a recovery time', async () => {
+    const s = ringScenario({ kind: 'unconfined', n: 8, ringRadius_m: 20, pitRadius_m: 12 });
+    const result = await runDesign({ scenario: s, mode: 'optimal' });
+    expect(result.excavations[0]!.timeToTarget_s).toBeNull();
+    expect(result.excavations[0]!.recoveryToFormation_s).toBeGreaterThan(0);
+    expect(result.summary.initialRate_m3_s).toBeCloseTo(result.totalRate_m3_s * 1.3, 12);
+    expect(result.cautions.some((c) => /UFC 3-220-05/.test(c))).toBe(true);
+  });
+});

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { evaluatePoints, theisDrawdown, type PointFlag } from '../../../shared/field';
+import { evaluatePoints, theisDrawdown } from '../../../shared/field';
 import { theisWellFunction } from '../../../shared/wells';
 import { DrydigError } from '../../../shared/schema';
 import reference from './reference/field-reference.json';
@@ -157,9 +157,6 @@ describe('evaluatePoints for a leaky aquifer', () => {
 });
 
 describe('evaluatePoints flags', () => {
-  const flagsAt = (scenario: ReturnType<typeof scenarioWith>, p: [number, number], time_s?: number | null): PointFlag[] =>
-    evaluatePoints({ scenario, points: [p], time_s }).points[0]!.flags;
-
   it('evaluatePoints flags a dewatered unconfined point and reports it at the base, never NaN', () => {
     const s = scenarioWith({ aquifer: unconfinedAquifer(), wells: [well('W1', 0, 0, { rate_m3_s: 0.2 })] });
     const p = evaluatePoints({ scenario: s, points: [[1, 0]] }).points[0]!;

@@ -6,7 +6,7 @@ Independent of the TypeScript code: each case writes the published formula out d
 - de Glee (1930): s = Q/(2 pi T) K0(r/B)                              (mpmath.besselk)
 - Image wells (Ferris et al. 1962, USGS WSP 1536-E) for two perpendicular lines and for a strip
   between two parallel lines, written in the lines' own coordinates (xi across, eta along), the
-  strip series summed to |n| = 400 (terms beyond underflow far below 1e-30 m).
+  strip series summed to |n| = 3000 (terms beyond underflow far below 1e-30 m).
 
 Run: python3 tests/shared/field/reference/field_reference.py > tests/shared/field/reference/field-reference.json
 """
@@ -76,7 +76,7 @@ def main():
     d, xi0 = mp.mpf(40), mp.mpf(12)
     Qs, Ts, Ss, ts = mp.mpf("0.005"), mp.mpf("0.002"), mp.mpf("0.0001"), mp.mpf(5 * 86400)
     s1, s2 = 1, -1
-    M = 400
+    M = 3000
     strip = []
     for pxi, peta in [(0, 0), (20, 10), (40, 5), (5, -30), (39, 60), (12, 0.5)]:
         pxi, peta = mp.mpf(pxi), mp.mpf(peta)

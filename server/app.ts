@@ -2,8 +2,8 @@
  * The Fastify application factory. `buildApp()` wires plugins; `main.ts` only listens, so tests
  * drive the app with `inject`. Each feature is one plugin under `/api/v1/<feature>`.
  */
-import Fastify, { type FastifyInstance } from 'fastify';
-import { installErrorHandling } from './error-handling';
+import Fastify, { type FastifyInstance, type FastifyReply } from 'fastify';
+import { classifyError, installErrorHandling } from './error-handling';
 import { healthRoutes } from './routes/health';
 import { evaluateRoutes } from './routes/evaluate';
 import { installRouteCatalog, openapiRoutes } from './routes/openapi';
@@ -41,6 +41,12 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
     logger: withRedactedLogging(options.logger ?? false),
     bodyLimit: bodyLimit_bytes,
     ajv: { customOptions: { allErrors: false, coerceTypes: false, removeAdditional: false } },
+    // Errors the router raises before any handler (malformed %-escapes, over-long parameters)
+    // leave in the same JSON error shape as every other failure.
+    frameworkErrors: (error, _request, reply) => {
+      const { status, body } = classifyError(error);
+      void (reply as FastifyReply).status(status).type('application/json; charset=utf-8').send(body);
+    },
   });
   installErrorHandling(app);
   // Before any plugin, so every route (whoever adds it) lands in the OpenAPI description.

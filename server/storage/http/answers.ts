@@ -76,6 +76,11 @@ export async function storeReading(
   if (!monitoring.piezometers.some((p) => p.id === body.piezometerId))
     throw bad('/piezometerId', `no piezometer "${body.piezometerId}" in the monitoring plan (known: ${monitoring.piezometers.map((p) => p.id).slice(0, 10).join(', ')})`);
   if (!Number.isFinite(body.level_m)) throw bad('/level_m', 'must be a finite number');
+  // A level below the aquifer base, or far above ground, is a typing or datum mistake, not a reading.
+  const lowest = latest.scenario.aquifer.base_m - 1;
+  const highest = latest.scenario.groundLevel_m + 30;
+  if (body.level_m < lowest || body.level_m > highest)
+    throw bad('/level_m', `${body.level_m} m is outside the plausible range ${lowest} to ${highest} m; enter the level in m above site datum (not a depth below ground)`);
   const measuredAt = body.measuredAt ?? new Date().toISOString();
   if (!isIsoDateTime(measuredAt)) throw bad('/measuredAt', 'must be an ISO 8601 date-time with a zone, e.g. 2027-03-04T08:30:00Z');
   let time_s = body.time_s;

@@ -1,0 +1,16 @@
+/**
+ * The service as a separate process for the reliability tests: `node --import tsx
+ * tests/reliability/reliability-server.ts DATA_DIR`. Listens on 127.0.0.1 and a random port, writes
+ * `LISTENING <port>` on stdout, and keeps the write limit high so bursts test storage, not limits.
+ */
+import { buildApp } from '../../server/app';
+
+const dataDir = process.argv[2];
+if (!dataDir) {
+  process.stderr.write('usage: reliability-server.ts DATA_DIR\n');
+  process.exit(2);
+}
+const app = await buildApp({ dataDir, clientDir: false, security: { writeMax: 1_000_000 } });
+await app.listen({ host: '127.0.0.1', port: 0 });
+const address = app.server.address();
+process.stdout.write(`LISTENING ${typeof address === 'object' && address ? address.port : 0}\n`);

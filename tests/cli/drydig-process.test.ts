@@ -75,6 +75,16 @@ describe('node bin/drydig.js evaluate', () => {
     expect(stderr.trim()).toBe('DRYDIG_ERR_INVALID_SCENARIO: /aquifer/specificYield: is required for an unconfined aquifer');
   });
 
+  it('stops quietly when the reader closes the pipe early (drydig evaluate … | head)', async () => {
+    const child = spawn(process.execPath, [bin, 'evaluate', 'site.json', '--points', '20,10', '--grid', '0,0,1,1,400,400'], { cwd: dir, stdio: ['ignore', 'pipe', 'pipe'] });
+    let stderr = '';
+    child.stderr.on('data', (c: Buffer) => (stderr += c.toString()));
+    child.stdout.once('data', () => child.stdout.destroy());
+    const code = await new Promise<number | null>((resolve) => child.once('exit', resolve));
+    expect(stderr).toBe('');
+    expect(code).toBe(0);
+  });
+
   it('--help exits 0 with the usage on stdout', async () => {
     const { code, stdout } = await drydig(['--help']);
     expect(code).toBe(0);

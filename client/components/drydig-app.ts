@@ -58,6 +58,8 @@ export interface DrydigTestHook {
   result(): { id: number; levels: number; shortfall: Array<{ id: string; met: boolean; worstShortfall_m: number }>; time_s: number | null } | null;
   pagePoint(x: number, y: number): { x: number; y: number } | null;
   latencies_ms: number[];
+  /** Worker compute time of each result drawn, ms, with its kind. */
+  computes: Array<{ mode: 'coarse' | 'fine'; compute_ms: number; at: number }>;
   fieldsDrawn: number;
   busy(): boolean;
 }
@@ -92,7 +94,8 @@ export class DrydigApp extends LightElement {
   private controller: LeafletMapController | null = null;
   private fineTimer = 0;
   private coarseFrame = 0;
-  private pendingInputAt: number | null = null;
+  /** Times of drag inputs not yet reflected on screen (for the input-to-contours measure). */
+  private unshownInputs: number[] = [];
   private lastDrawnId = 0;
   private engineKey = '';
   private pickingRef: 0 | 1 | null = null;
@@ -129,6 +132,7 @@ export class DrydigApp extends LightElement {
       },
       pagePoint: (x, y) => this.controller?.pagePoint(x, y) ?? null,
       latencies_ms: [],
+      computes: [],
       fieldsDrawn: 0,
       busy: () => this.computing >= 0 || this.fineTimer !== 0,
     };
@@ -185,6 +189,15 @@ export class DrydigApp extends LightElement {
   }
 
   private onStoreChange(s: Scenario, kind: ChangeKind): void {
+    if (kind === 'preview') {
+      // Mid-drag: only the map and the computation follow; the panels catch up on commit, so
+      // a 200-well list is not re-rendered on every pointer move.
+      this.unshownInputs.push(performance.now());
+      performance.mark('dd-input');
+      this.controller?.setScenario(s, { wellId: this.wellId, excavationId: this.excavationId });
+      this.scheduleField('coarse');
+      return;
+    }
     this.scenario = s;
     if (kind === 'load') {
       this.wellId = null;
@@ -203,14 +216,8 @@ export class DrydigApp extends LightElement {
     if (this.excavationId && !s.excavations.some((e) => e.id === this.excavationId)) this.excavationId = null;
     this.syncMap();
     this.validate();
-    if (kind === 'preview') {
-      this.pendingInputAt ??= performance.now();
-      performance.mark('dd-input');
-      this.scheduleField('coarse');
-    } else {
-      this.scheduleField('coarse');
-      this.scheduleField('fine');
-    }
+    this.scheduleField('coarse');
+    this.scheduleField('fine');
   }
 
   private validate(): void {
@@ -272,14 +279,13 @@ export class DrydigApp extends LightElement {
       this.engineError = '';
       return;
     }
-    const inputAt = mode === 'coarse' ? this.pendingInputAt : null;
-    if (mode === 'coarse') this.pendingInputAt = null;
+    const issuedAt = performance.now();
     const grid = c.viewGrid(mode === 'coarse' ? COARSE_NODES : FINE_NODES);
     const view = getViewSettings(this.scenario);
     try {
       const res = await engine.field(
         {
-          scenario: this.scenario, grid, time_s: this.time_s, quantity: this.quantity, step_m: view.contour?.step_m,
+          scenario: this.store.scenario, grid, time_s: this.time_s, quantity: this.quantity, step_m: view.contour?.step_m,
           pitNodes: mode === 'coarse' ? 17 : 41, strips: mode === 'coarse' ? 1 : 6,
         },
         mode === 'fine' ? (f) => (this.computing = f < 1 ? f : -1) : undefined,
@@ -291,10 +297,16 @@ export class DrydigApp extends LightElement {
       this.result = res;
       c.setField(res, this.fieldStyle(res));
       this.hook.fieldsDrawn++;
-      if (inputAt !== null) {
+      this.hook.computes.push({ mode, compute_ms: res.compute_ms, at: performance.now() });
+      // Latency of the oldest input this result reflects (inputs before the request was issued);
+      // inputs dropped with a superseded request are counted in the next result drawn.
+      const reflected = this.unshownInputs.filter((t) => t <= issuedAt);
+      if (reflected.length > 0) {
         const end = performance.now();
-        performance.measure('dd-input-to-contours', { start: inputAt, end });
-        this.hook.latencies_ms.push(end - inputAt);
+        const start = Math.min(...reflected);
+        performance.measure('dd-input-to-contours', { start, end });
+        this.hook.latencies_ms.push(end - start);
+        this.unshownInputs = this.unshownInputs.filter((t) => t > issuedAt);
       }
     } catch (error) {
       this.computing = -1;

@@ -298,14 +298,20 @@ export class LeafletMapController {
       } else {
         const ll = m.getLatLng();
         if (ll.lat !== w.y || ll.lng !== w.x) m.setLatLng([w.y, w.x]);
+      }
+      // Restyle only what changed: during a drag one marker moves and 199 stay as they are.
+      const key = `${w.kind}|${w.active}|${w.rate_m3_s ?? w.schedule?.[0]?.rate_m3_s}|${this.selection.wellId === w.id}`;
+      const tagged = m as L.CircleMarker & { ddKey?: string };
+      if (tagged.ddKey !== key) {
+        tagged.ddKey = key;
         m.setStyle(this.wellStyle(w));
         m.setRadius(WELL_RADIUS_PX[w.kind] + (this.selection.wellId === w.id ? 2 : 0));
-        // className only applies on creation; keep the selection class in step for CSS and tests.
         const el = m.getElement();
+        // className only applies on creation; keep the selection class in step for CSS and tests.
         el?.classList.toggle('dd-selected', this.selection.wellId === w.id);
+        el?.setAttribute('data-well-id', w.id);
+        m.setTooltipContent(`${escapeHtml(w.id)} · ${w.kind}${w.active === false ? ' (inactive)' : ''}`);
       }
-      m.setTooltipContent(`${escapeHtml(w.id)} · ${w.kind}${w.active === false ? ' (inactive)' : ''}`);
-      m.getElement()?.setAttribute('data-well-id', w.id);
     }
     for (const [id, m] of this.wells) {
       if (!seen.has(id)) {

@@ -1,7 +1,120 @@
-/** Placeholder for `drydig design`: filled in by the design issue. */
+/**
+ * `drydig design SCENARIO.json [--mode uniform|optimal|layout] [options…] [--pretty | --csv]`:
+ * design rates that bring every excavation to its target, printed as the JSON contract of
+ * design.md section 4 (plus capacities, times, checks, the bid summary, cautions). Options
+ * stored in the scenario's `designOptions` apply; flags override them field by field.
+ */
+import { runDesign, designResultToCsv } from '../../shared/design';
+import type { DesignMode, DesignOptions } from '../../shared/schema';
 import type { CliCommand } from './cli-io';
+import { parseOptions, usageError } from './parse-options';
+import { parseStrictNumber } from './points-argument';
+import { parseJsonText, readScenarioFile, readTextFile } from './read-scenario-file';
+import { parseTimeValue } from './time-argument';
 
-export const runDesignCommand: CliCommand = async (_args, io) => {
-  io.stderr('DRYDIG_ERR_CLI_USAGE: `drydig design` is not built yet\n');
-  return 2;
+export const DESIGN_HELP = `drydig design SCENARIO.json [--mode uniform|optimal|layout] [options] [--pretty | --csv]
+
+  --mode M             uniform: one rate for every active well; optimal (default): least total
+                       pumping per well (linear programming); layout: choose which wells
+                       (active or not) to install and their rates at least cost (MIP)
+  --options FILE.json  design options as JSON (same fields as the scenario's designOptions)
+  --spacing M          control-point spacing, m (default: pit's shorter side / 8)
+  --suction-lift M     well points: deepest pumping level below the header, m (default 5.5)
+  --header-level M     header elevation, m (default: ground level)
+  --efficiency E       pump wire-to-water efficiency, 0–1 (default 0.6)
+  --discharge-head M   discharge head, m (default 3)
+  --friction M         friction allowance, m (default 2)
+  --safety-factor F    factor on the flow for pumps and discharge (default 1.25)
+  --pump-capacity Q    rated flow of one pump, m³/s (default 0.02)
+  --standby-ratio R    standby pumps per duty pump (default 0.5)
+  --energy-price P     per kWh (default 0.2, a placeholder)
+  --well-cost C        per well installed (default 5000, a placeholder)
+  --volume-cost C      per m³ pumped besides energy (default 0.1, a placeholder)
+  --duration T         pumping duration: seconds or 90d, 12h … (default 90d)
+  --out-of-service ID  the well to take out in the standby check (default: the worst one)
+  --pretty             indent the JSON
+  --csv                write the summary, wells and excavations as CSV instead of JSON
+
+Prints {"mode","feasible","totalRate_m3_s","wells":[{"id","rate_m3_s",…}],
+"excavations":[{"id","targetLevel_m","met","worstShortfall_m","critical":{"x","y","level_m"}}],
+"reasons":[…], …}. feasible:false comes with reasons and the best achievable levels.
+Results are estimates from idealised models; confirm with site investigation, local codes and a
+licensed engineer.
+`;
+
+const NUMBER_FLAGS: Record<string, keyof DesignOptions> = {
+  spacing: 'controlSpacing_m',
+  'suction-lift': 'suctionLiftLimit_m',
+  'header-level': 'headerLevel_m',
+  efficiency: 'pumpEfficiency',
+  'discharge-head': 'dischargeHead_m',
+  friction: 'frictionAllowance_m',
+  'safety-factor': 'safetyFactor',
+  'pump-capacity': 'pumpCapacity_m3_s',
+  'standby-ratio': 'standbyRatio',
+  'energy-price': 'energyPrice_per_kWh',
+  'well-cost': 'wellCost',
+  'volume-cost': 'pumpedVolumeCost_per_m3',
 };
+
+const MODES: readonly DesignMode[] = ['uniform', 'optimal', 'layout'];
+
+export const runDesignCommand: CliCommand = async (args, io) => {
+  const spec = {
+    mode: 'value',
+    options: 'value',
+    duration: 'value',
+    'out-of-service': 'value',
+    pretty: 'flag',
+    csv: 'flag',
+    help: 'flag',
+    ...Object.fromEntries(Object.keys(NUMBER_FLAGS).map((k) => [k, 'value'])),
+  } as const;
+  const { positionals, values } = parseOptions(args, spec, 'design');
+  if (values.help) {
+    io.stdout(DESIGN_HELP);
+    return 0;
+  }
+  const [file, ...extra] = positionals;
+  if (!file) throw usageError('design: give a scenario file: drydig design SCENARIO.json [--mode uniform|optimal|layout]');
+  if (extra.length > 0) throw usageError(`design: one scenario file only (also got ${extra.join(' ')})`);
+  if (values.csv && values.pretty) throw usageError('design: --pretty is for JSON; leave it out with --csv');
+  let mode: DesignMode | undefined;
+  if (values.mode !== undefined) {
+    if (!MODES.includes(values.mode as DesignMode)) throw usageError(`design: --mode must be one of ${MODES.join(', ')} (got "${values.mode}")`);
+    mode = values.mode as DesignMode;
+  }
+
+  // Flags first, then files, so a typo is reported before any reading.
+  const overrides: Record<string, unknown> = {};
+  for (const [flag, key] of Object.entries(NUMBER_FLAGS)) {
+    const text = values[flag];
+    if (text === undefined) continue;
+    const n = parseStrictNumber(text);
+    if (n === undefined) throw usageError(`design: --${flag} must be a number (got "${text}")`);
+    overrides[key] = n;
+  }
+  if (values.duration !== undefined) {
+    const t = parseTimeValue(values.duration);
+    if (t === null) throw usageError('design: --duration must be a time (e.g. 7776000 or 90d), not "steady"');
+    overrides.duration_s = t;
+  }
+  if (values['out-of-service'] !== undefined) overrides.outOfServiceWell = values['out-of-service'];
+  let fileOptions: Record<string, unknown> = {};
+  if (values.options !== undefined) {
+    const parsed = parseJsonText(readTextFile(values.options, io.cwd, 'design options file'), values.options);
+    if (typeof parsed !== 'object' || parsed === null || Array.isArray(parsed)) throw usageError(`design: ${values.options} must hold a JSON object of design options`);
+    fileOptions = parsed as Record<string, unknown>;
+  }
+  const scenario = readScenarioFile(file, io.cwd);
+  const options = { ...fileOptions, ...overrides };
+
+  const result = await runDesign({ scenario, mode, options: Object.keys(options).length > 0 ? options : undefined, optionsPath: '/options' });
+  io.stdout(values.csv ? designResultToCsv(result) : `${JSON.stringify(result, jsonNumbers, values.pretty ? 2 : undefined)}\n`);
+  return 0;
+};
+
+/** JSON cannot carry Infinity or NaN; write null (fields that can be unbounded say so in their docs). */
+function jsonNumbers(_key: string, value: unknown): unknown {
+  return typeof value === 'number' && !Number.isFinite(value) ? null : value;
+}

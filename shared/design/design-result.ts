@@ -44,8 +44,8 @@ export interface DesignWellResult {
   capacity_m3_s: number;
   /** Sichardt capacity with the whole screen wetted, m³/s. */
   fullScreenCapacity_m3_s: number;
-  /** rate / capacity (−). */
-  utilisation: number;
+  /** rate / capacity (−); null when the screen is dry but the well is given a rate. */
+  utilisation: number | null;
   /** Pumping level in the well at the limit-check time (well loss included), m. */
   pumpingLevel_m: number;
   /** Lowest pumping level allowed (suction lift for well points, screen bottom otherwise), m. */

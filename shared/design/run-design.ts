@@ -273,7 +273,7 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
       start_s: w.start_s,
       capacity_m3_s: capacity,
       fullScreenCapacity_m3_s: w.fullScreenCapacity_m3_s,
-      utilisation: capacity > 0 ? q / capacity : q > 0 ? Infinity : 0,
+      utilisation: capacity > 0 ? q / capacity : q > 0 ? null : 0,
       pumpingLevel_m: level.pumpingLevel_m,
       minimumPumpingLevel_m: w.minimumLevel_m,
       limit: q > 0 ? binding[j]! : null,
@@ -586,7 +586,7 @@ function outOfServiceCheck(ctx: DesignContext, checkPoints: ControlPoint[], chec
       worstWell = j;
     }
   });
-  if (worstWell < 0) return null;
+  if (worstWell < 0 || !Number.isFinite(worstValue)) return null;
   const chosen = ctx.options.outOfServiceWell !== null ? ctx.wells.findIndex((w) => w.id === ctx.options.outOfServiceWell) : -1;
   const j = chosen >= 0 ? chosen : worstWell;
   const value = chosen >= 0 ? worstWithout(chosen) : worstValue;
@@ -594,7 +594,7 @@ function outOfServiceCheck(ctx: DesignContext, checkPoints: ControlPoint[], chec
     wellId: ctx.wells[j]!.id,
     chosenBy: chosen >= 0 ? 'option' : 'worst-case',
     met: value <= 0,
-    worstShortfall_m: value,
+    worstShortfall_m: Number.isFinite(value) ? value : worstValue,
     worstWellId: ctx.wells[worstWell]!.id,
     worstWellShortfall_m: worstValue,
   };

@@ -20,12 +20,12 @@ export interface SichardtRadiusOptions {
  */
 export function sichardtRadius({ drawdown_m, conductivity_m_s }: SichardtRadiusOptions): number {
   if (!(drawdown_m > 0) || !Number.isFinite(drawdown_m)) {
-    throw new DrydigError('DRYDIG_ERR_INVALID_REQUEST', `Sichardt radius needs a design drawdown > 0 m, got ${drawdown_m}`, [
+    throw new DrydigError('DRYDIG_ERR_INVALID_REQUEST', `/drawdown_m: Sichardt radius needs a design drawdown > 0 m, got ${drawdown_m}`, [
       { path: '/drawdown_m', message: 'must be a finite number > 0' },
     ]);
   }
   if (!(conductivity_m_s > 0) || !Number.isFinite(conductivity_m_s)) {
-    throw new DrydigError('DRYDIG_ERR_INVALID_REQUEST', `Sichardt radius needs a conductivity > 0 m/s, got ${conductivity_m_s}`, [
+    throw new DrydigError('DRYDIG_ERR_INVALID_REQUEST', `/conductivity_m_s: Sichardt radius needs a conductivity > 0 m/s, got ${conductivity_m_s}`, [
       { path: '/conductivity_m_s', message: 'must be a finite number > 0' },
     ]);
   }

@@ -1,0 +1,103 @@
+import { describe, expect, it } from 'vitest';
+import { ScenarioStore, getViewSettings, setViewSettings } from '../../../client/state';
+import demo from '../../../fixtures/demo-wellpoints-unconfined.json';
+import type { Scenario } from '../../../shared/schema';
+
+const base = demo as unknown as Scenario;
+
+describe('ScenarioStore keeps one scenario with undo and redo', () => {
+  it('apply() records one undo step per edit and undo()/redo() walk it', () => {
+    const store = new ScenarioStore(base);
+    store.apply('move WP01', (d) => void (d.wells[0]!.x = 5));
+    store.apply('rename', (d) => void (d.name = 'B'));
+    expect(store.scenario.name).toBe('B');
+    expect(store.undoLabel).toBe('rename');
+    store.undo();
+    expect(store.scenario.name).toBe(base.name);
+    expect(store.scenario.wells[0]!.x).toBe(5);
+    store.undo();
+    expect(store.scenario.wells[0]!.x).toBe(-1.5);
+    expect(store.canUndo).toBe(false);
+    store.redo();
+    store.redo();
+    expect(store.scenario.name).toBe('B');
+    expect(store.canRedo).toBe(false);
+  });
+
+  it('an edit after an undo clears the redo history', () => {
+    const store = new ScenarioStore(base);
+    store.apply('a', (d) => void (d.name = 'A'));
+    store.undo();
+    store.apply('b', (d) => void (d.name = 'B'));
+    expect(store.canRedo).toBe(false);
+  });
+
+  it('an edit that changes nothing records no step', () => {
+    const store = new ScenarioStore(base);
+    store.apply('nothing', () => undefined);
+    expect(store.canUndo).toBe(false);
+  });
+
+  it('preview() then commit() makes a whole drag one undo step', () => {
+    const store = new ScenarioStore(base);
+    const kinds: string[] = [];
+    store.subscribe((_, kind) => kinds.push(kind));
+    for (let k = 1; k <= 5; k++) store.preview((d) => void (d.wells[0]!.x = k));
+    store.commit('move WP01');
+    expect(store.scenario.wells[0]!.x).toBe(5);
+    expect(kinds).toEqual(['preview', 'preview', 'preview', 'preview', 'preview', 'edit']);
+    store.undo();
+    expect(store.scenario.wells[0]!.x).toBe(-1.5);
+    expect(store.canUndo).toBe(false);
+  });
+
+  it('cancelGesture() restores the state before the drag', () => {
+    const store = new ScenarioStore(base);
+    store.preview((d) => void (d.wells[0]!.x = 99));
+    store.cancelGesture();
+    expect(store.scenario.wells[0]!.x).toBe(-1.5);
+    expect(store.canUndo).toBe(false);
+  });
+
+  it('snapshots are deep copies: changing a returned scenario does not change history', () => {
+    const store = new ScenarioStore(base);
+    store.apply('a', (d) => void (d.wells[0]!.x = 1));
+    store.undo();
+    expect(base.wells[0]!.x).toBe(-1.5);
+    expect(store.scenario).not.toBe(base);
+  });
+
+  it('keeps at most historyLimit steps', () => {
+    const store = new ScenarioStore(base, { historyLimit: 3 });
+    for (let k = 0; k < 10; k++) store.apply(`n${k}`, (d) => void (d.name = `n${k}`));
+    let undos = 0;
+    while (store.canUndo) {
+      store.undo();
+      undos++;
+    }
+    expect(undos).toBe(3);
+    expect(store.scenario.name).toBe('n6');
+  });
+
+  it('load() replaces the scenario and clears history', () => {
+    const store = new ScenarioStore(base);
+    store.apply('a', (d) => void (d.name = 'A'));
+    store.load({ ...base, name: 'other' });
+    expect(store.scenario.name).toBe('other');
+    expect(store.canUndo).toBe(false);
+  });
+});
+
+describe('view settings live in the optional top-level "view" object', () => {
+  it('getViewSettings returns {} for a scenario without one, and for a malformed one', () => {
+    expect(getViewSettings(base)).toEqual({});
+    expect(getViewSettings({ ...base, view: 'nonsense' } as unknown as Scenario)).toEqual({});
+  });
+  it('setViewSettings merges into the draft without touching contract fields', () => {
+    const draft = structuredClone(base);
+    setViewSettings(draft, { units: { system: 'us' } });
+    setViewSettings(draft, { contour: { quantity: 'level' } });
+    expect(getViewSettings(draft)).toEqual({ units: { system: 'us' }, contour: { quantity: 'level' } });
+    expect(draft.wells).toEqual(base.wells);
+  });
+});

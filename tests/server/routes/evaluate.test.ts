@@ -97,11 +97,11 @@ describe('POST /api/v1/evaluate with points', () => {
 describe('POST /api/v1/evaluate with a grid', () => {
   const cases: Array<{ fixture: 'unconfined' | 'confined'; grid: GridSpec; time_s: number | null; rateFactor?: number }> = [
     // Nodes fall on the well line y = −1.5 (within-well-radius) and far beyond Sichardt's R (steady).
-    { fixture: 'unconfined', grid: { origin: [-1.5, -1.5], spacing_m: [2, 2], counts: [40, 25] }, time_s: null },
-    { fixture: 'unconfined', grid: { origin: [-300, -300], spacing_m: [25, 25], counts: [25, 25] }, time_s: null },
-    { fixture: 'unconfined', grid: { origin: [-50, -50], spacing_m: [5, 4], counts: [30, 30] }, time_s: 86_400 },
+    { fixture: 'unconfined', grid: { origin: [-1.5, -1.5], spacing_m: [2, 2], counts: [40, 25] }, time_s: null, rateFactor: 1 },
+    { fixture: 'unconfined', grid: { origin: [-300, -300], spacing_m: [25, 25], counts: [25, 25] }, time_s: null, rateFactor: 1 },
+    { fixture: 'unconfined', grid: { origin: [-50, -50], spacing_m: [5, 4], counts: [30, 30] }, time_s: 86_400, rateFactor: 1 },
     // Straddles the constant-head river line x = 389380 (beyond-boundary on the far side).
-    { fixture: 'confined', grid: { origin: [389100, 5819300], spacing_m: [10, 10], counts: [40, 25] }, time_s: 604_800 },
+    { fixture: 'confined', grid: { origin: [389100, 5819300], spacing_m: [10, 10], counts: [40, 25] }, time_s: 604_800, rateFactor: 1 },
     // Twice the demo rates: a partly dewatered pit (mixed masks) — level = base where dewatered.
     { fixture: 'unconfined', grid: { origin: [-1.5, -1.5], spacing_m: [1, 1], counts: [44, 24] }, time_s: 1_209_600, rateFactor: 2 },
     // Three times the demo rates: the head falls below the confined aquifer's top.

@@ -3,7 +3,7 @@
  * together (levels in order, parameters the aquifer kind needs, unique ids, sound outlines).
  * Every issue names the JSON pointer of the field at fault.
  */
-import { Value, type ValueError } from '@sinclair/typebox/value';
+import { Value, ValueErrorType, type ValueError } from '@sinclair/typebox/value';
 import { ScenarioSchema, type Scenario } from './scenario-schema';
 import { DrydigError, summariseIssues, type FieldIssue } from './error-table';
 import { findSelfIntersection, getPolygonArea } from '../geometry/polygon';
@@ -37,9 +37,8 @@ function structuralIssues(input: unknown): FieldIssue[] {
     // TypeBox reports a union failure on the parent and on each branch; keep the first per path.
     if (seen.has(error.path)) continue;
     seen.add(error.path);
-    const schema = error.schema as Record<string, unknown>;
-    if (schema.additionalProperties === false && error.message.includes('additional')) {
-      issues.push({ path: error.path, message: 'has an unknown field (check spelling and units in the name)' });
+    if (error.type === ValueErrorType.ObjectAdditionalProperties) {
+      issues.push({ path: error.path, message: 'is not a field of this object (check its spelling and the unit in its name)' });
     } else {
       issues.push({ path: error.path, message: describeStructuralError(error) });
     }

@@ -81,3 +81,10 @@ describe('parseScenario', () => {
     }
   });
 });
+
+describe('validateScenario on unknown fields', () => {
+  it('says a misspelt field is not a field of its object', () => {
+    const issue = firstIssue(variant(demoUnconfined, (s) => { s.aquifer.conductivity = 1e-4; }));
+    expect(issue).toEqual({ path: '/aquifer/conductivity', message: expect.stringMatching(/^is not a field of this object/) });
+  });
+});

@@ -1,214 +1,193 @@
 /**
  * The design result: the JSON contract of design.md section 4 (mode, feasible, totalRate_m3_s,
  * wells, excavations, reasons) plus capacities, times, checks, the pump and bid summary,
- * cautions and model notes. All SI; names carry units.
+ * cautions and model notes. All SI; names carry units. One TypeBox schema; the TypeScript types
+ * derive from it, and the HTTP route answers with it (so the OpenAPI document lists it).
  */
-import type { DesignMode } from '../schema';
-import type { ControlPointKind } from './control-points';
+import { Type, type Static } from '@sinclair/typebox';
+import { DesignModeSchema } from '../schema';
 
-/** Why a target cannot be met (stable codes; `message` says it in words). */
-export type DesignReasonCode =
-  | 'well-capacity'
-  | 'wetted-screen'
-  | 'suction-lift'
-  | 'constant-head-boundary'
-  | 'target-below-aquifer-base'
-  | 'no-well-influence'
-  | 'no-active-wells'
-  | 'solver';
+const Num = (description: string) => Type.Number({ description });
+const NullableNum = (description: string) => Type.Union([Type.Number(), Type.Null()], { description });
 
-export interface DesignReason {
-  code: DesignReasonCode;
-  message: string;
-  /** Wells whose limit binds, when the reason is a well limit. */
-  wellIds?: string[];
-  /** Excavation concerned, when one. */
-  excavationId?: string;
-}
+export const DesignReasonCodeSchema = Type.Union(
+  [
+    Type.Literal('well-capacity'),
+    Type.Literal('wetted-screen'),
+    Type.Literal('suction-lift'),
+    Type.Literal('constant-head-boundary'),
+    Type.Literal('target-below-aquifer-base'),
+    Type.Literal('no-well-influence'),
+    Type.Literal('no-active-wells'),
+    Type.Literal('solver'),
+  ],
+  { description: 'Why a target cannot be met (stable codes; the message says it in words).' },
+);
+export type DesignReasonCode = Static<typeof DesignReasonCodeSchema>;
 
-/** Which limit caps a well's rate in the solution (null: none binding). */
-export type WellLimit = 'capacity' | 'wetted-screen' | 'suction-lift' | null;
+export const DesignReasonSchema = Type.Object({
+  code: DesignReasonCodeSchema,
+  message: Type.String(),
+  wellIds: Type.Optional(Type.Array(Type.String(), { description: 'Wells whose limit binds.' })),
+  excavationId: Type.Optional(Type.String()),
+});
+export type DesignReason = Static<typeof DesignReasonSchema>;
 
-export interface DesignWellResult {
-  id: string;
-  kind: 'wellpoint' | 'deep' | 'ejector';
-  x: number;
-  y: number;
-  /** Design rate, m³/s (0 for a well not used). */
-  rate_m3_s: number;
-  /** Layout mode: chosen for installation. Other modes: true for every design well. */
-  installed: boolean;
-  /** Time the well is switched on, s (staged start; 0 otherwise). */
-  start_s: number;
-  /** Sichardt capacity with the wetted screen at the verified pumping level, m³/s. */
-  capacity_m3_s: number;
-  /** Sichardt capacity with the whole screen wetted, m³/s. */
-  fullScreenCapacity_m3_s: number;
-  /** rate / capacity (−); null when the screen is dry but the well is given a rate. */
-  utilisation: number | null;
-  /** Pumping level in the well at the limit-check time (well loss included), m. */
-  pumpingLevel_m: number;
-  /** Lowest pumping level allowed (suction lift for well points, screen bottom otherwise), m. */
-  minimumPumpingLevel_m: number;
-  /** Limit binding in the solve. */
-  limit: WellLimit;
-  /** Total dynamic head for this well's pump (deep wells, ejectors), m. */
-  head_m: number | null;
-  flags: string[];
-}
+export const WellLimitSchema = Type.Union([Type.Literal('capacity'), Type.Literal('wetted-screen'), Type.Literal('suction-lift'), Type.Null()], {
+  description: 'Limit binding in the solve: Sichardt capacity with the whole screen wetted, Sichardt with the wetted screen left, suction lift; null: none.',
+});
+export type WellLimit = Static<typeof WellLimitSchema>;
 
-export interface DesignCriticalPoint {
-  x: number;
-  y: number;
-  level_m: number;
-  targetLevel_m: number;
-  kind: ControlPointKind;
-}
+export const ControlPointKindSchema = Type.Union([Type.Literal('vertex'), Type.Literal('edge'), Type.Literal('grid'), Type.Literal('user')]);
 
-export interface DesignExcavationResult {
-  id: string;
-  targetLevel_m: number;
-  formationLevel_m: number;
-  met: boolean;
-  /** Highest computed level inside the excavation minus its target, m (≤ 0 when met). */
-  worstShortfall_m: number;
-  /** Where that highest level is. */
-  critical: DesignCriticalPoint;
-  /** Time at which the whole excavation first reaches its target, s (null: not within the design time, or steady). */
-  timeToTarget_s: number | null;
-  /** All pumps stop at the design time: time until the first control point rises back to formation level, s. */
-  recoveryToFormation_s: number | null;
-  /** Same at the critical point, s. */
-  criticalRecoveryToFormation_s: number | null;
-  /** Control points used (design set; check points are twice as dense). */
-  controlPointCount: number;
-  checkPointCount: number;
-}
+export const DesignWellResultSchema = Type.Object({
+  id: Type.String(),
+  kind: Type.Union([Type.Literal('wellpoint'), Type.Literal('deep'), Type.Literal('ejector')]),
+  x: Num('Easting, m.'),
+  y: Num('Northing, m.'),
+  rate_m3_s: Num('Design rate, m³/s (0 for a well not used).'),
+  installed: Type.Boolean({ description: 'Layout mode: chosen for installation; other modes: true.' }),
+  start_s: Num('Time the well is switched on, s (staged start; 0 otherwise).'),
+  capacity_m3_s: Num('Sichardt capacity with the wetted screen at the verified pumping level, m³/s.'),
+  fullScreenCapacity_m3_s: Num('Sichardt capacity with the whole screen wetted, m³/s.'),
+  utilisation: NullableNum('rate / capacity (−); null when the screen is dry but the well has a rate.'),
+  pumpingLevel_m: Num('Pumping level in the well at the design time (well loss included), m.'),
+  minimumPumpingLevel_m: Num('Lowest pumping level allowed (suction lift for well points, screen bottom otherwise), m.'),
+  limit: WellLimitSchema,
+  head_m: NullableNum('Total dynamic head of this well’s pump (deep wells, ejectors), m.'),
+  flags: Type.Array(Type.String()),
+});
+export type DesignWellResult = Static<typeof DesignWellResultSchema>;
 
-export interface DesignControlPointResult {
-  x: number;
-  y: number;
-  kind: ControlPointKind;
-  excavationId: string | null;
-  targetLevel_m: number;
-  level_m: number;
-  /** First time the point reaches its target, s (null: not by the design time, or steady). */
-  timeToTarget_s: number | null;
-  flags: string[];
-}
+export const DesignCriticalPointSchema = Type.Object({
+  x: Num('Easting, m.'),
+  y: Num('Northing, m.'),
+  level_m: Num('Computed level there at the design time, m.'),
+  targetLevel_m: Num('Target level there, m.'),
+  kind: ControlPointKindSchema,
+});
+export type DesignCriticalPoint = Static<typeof DesignCriticalPointSchema>;
 
-export interface LevelTimePoint {
-  time_s: number;
-  level_m: number;
-}
+export const DesignExcavationResultSchema = Type.Object({
+  id: Type.String(),
+  targetLevel_m: Num('Formation level − margin, m.'),
+  formationLevel_m: Num('Formation level, m.'),
+  met: Type.Boolean(),
+  worstShortfall_m: Num('Highest computed level inside the excavation minus its target, m (≤ 0 when met).'),
+  critical: DesignCriticalPointSchema,
+  timeToTarget_s: NullableNum('Time the whole excavation first reaches its target, s (null: not by the design time, or a steady design).'),
+  recoveryToFormation_s: NullableNum('Every pump stops at the design time: time until the first control point rises back to formation level, s.'),
+  criticalRecoveryToFormation_s: NullableNum('The same at the critical point, s.'),
+  controlPointCount: Num('Control points used (design grid plus points added in refinement).'),
+  checkPointCount: Num('Check points (twice as dense) the result was verified on.'),
+});
+export type DesignExcavationResult = Static<typeof DesignExcavationResultSchema>;
 
-export interface DesignTimeSeries {
-  x: number;
-  y: number;
-  excavationId: string;
-  targetLevel_m: number;
-  formationLevel_m: number;
-  /** Pumping continues: level at the critical point, from the first minute to the end of the chart. */
-  pumping: LevelTimePoint[];
-  /** All pumps stop at `stop_s`: recovery at the critical point. */
-  recovery: LevelTimePoint[];
-  stop_s: number;
-}
+export const DesignControlPointResultSchema = Type.Object({
+  x: Num('Easting, m.'),
+  y: Num('Northing, m.'),
+  kind: ControlPointKindSchema,
+  excavationId: Type.Union([Type.String(), Type.Null()]),
+  targetLevel_m: Num('Target level, m.'),
+  level_m: Num('Computed level at the design time, m.'),
+  timeToTarget_s: NullableNum('First time the point reaches its target, s (null: not by the design time, or steady).'),
+  flags: Type.Array(Type.String()),
+});
+export type DesignControlPointResult = Static<typeof DesignControlPointResultSchema>;
 
-export interface OutOfServiceCheck {
-  /** Well taken out (the chosen one, or the one whose loss hurts most). */
-  wellId: string;
-  chosenBy: 'option' | 'worst-case';
-  /** Every target still met with the other wells at their design rates. */
-  met: boolean;
-  /** Highest level minus target over all excavations with that well out, m. */
-  worstShortfall_m: number;
-  /** Worst case over every single well out of service. */
-  worstWellId: string;
-  worstWellShortfall_m: number;
-}
+export const LevelTimePointSchema = Type.Object({ time_s: Num('Time since pumping started, s.'), level_m: Num('Level, m.') });
+export type LevelTimePoint = Static<typeof LevelTimePointSchema>;
 
-export interface PumpSummary {
-  /** Computed total flow, m³/s. */
-  totalRate_m3_s: number;
-  /** Total × safety factor, m³/s: what the pumps and discharge are sized for. */
-  designFlow_m3_s: number;
-  safetyFactor: number;
-  /** Steady designs: initial rate for the first weeks (× initialRateFactor), m³/s; null for transient designs. */
-  initialRate_m3_s: number | null;
-  initialPeriod_s: number | null;
-  /** Well-point / ejector header systems: head at the header pump, m (null when none). */
-  headerSystemHead_m: number | null;
-  /** Largest deep-well total dynamic head, m (null when none). */
-  maxWellHead_m: number | null;
-  hydraulicPower_kW: number;
-  inputPower_kW: number;
-  /** Input power at the safety-factored flow, kW. */
-  installedPower_kW: number;
-  pumpCapacity_m3_s: number;
-  dutyPumps: number;
-  standbyPumps: number;
-  /** Deep wells whose rate × safety factor exceeds the pump capacity. */
-  undersizedPumpWellIds: string[];
-  duration_s: number;
-  energy_kWh: number;
-  /** Discharge volume over the duration, m³ (for the discharge permit). */
-  dischargeVolume_m3: number;
-  energyCost: number;
-  pumpedVolumeCost: number;
-  wellCost: number;
-  totalCost: number;
-  quantities: {
-    wells: number;
-    wellsByKind: Record<'wellpoint' | 'deep' | 'ejector', number>;
-    screen_m: number;
-    header_m: number;
-  };
-}
+export const DesignTimeSeriesSchema = Type.Object({
+  x: Num('Easting of the critical point, m.'),
+  y: Num('Northing, m.'),
+  excavationId: Type.String(),
+  targetLevel_m: Num('Target level, m.'),
+  formationLevel_m: Num('Formation level, m.'),
+  pumping: Type.Array(LevelTimePointSchema, { description: 'Pumping continues: level at the critical point.' }),
+  recovery: Type.Array(LevelTimePointSchema, { description: 'Every pump stops at stop_s: recovery at the critical point.' }),
+  stop_s: Num('Time the pumps stop in the recovery curve, s.'),
+});
+export type DesignTimeSeries = Static<typeof DesignTimeSeriesSchema>;
 
-export interface QuickCheck {
-  excavationId: string;
-  /** Equivalent-well estimate of the total inflow, m³/s (null when the method does not apply). */
-  equivalentWellInflow_m3_s: number | null;
-  /** Equivalent radius sqrt(A/π), m. */
-  equivalentRadius_m: number | null;
-  /** Superposition total (all design wells), m³/s. */
-  superpositionTotal_m3_s: number;
-  /** superposition / equivalent well (−). Far from 1 deserves a second look. */
-  ratio: number | null;
-  note: string;
-}
+export const OutOfServiceCheckSchema = Type.Object({
+  wellId: Type.String({ description: 'Well taken out (the chosen one, or the one whose loss hurts most).' }),
+  chosenBy: Type.Union([Type.Literal('option'), Type.Literal('worst-case')]),
+  met: Type.Boolean({ description: 'Every target still met by the other wells at their design rates.' }),
+  worstShortfall_m: Num('Highest level minus target with that well out, m.'),
+  worstWellId: Type.String({ description: 'The well whose loss hurts most.' }),
+  worstWellShortfall_m: Num('Highest level minus target with that well out, m.'),
+});
+export type OutOfServiceCheck = Static<typeof OutOfServiceCheckSchema>;
 
-export interface DesignResult {
-  mode: DesignMode;
-  feasible: boolean;
-  totalRate_m3_s: number;
-  wells: DesignWellResult[];
-  excavations: DesignExcavationResult[];
-  reasons: DesignReason[];
-  /** Design time, s; null for steady state. */
-  designTime_s: number | null;
-  /** Time at which well limits were checked (the end of pumping for transient designs), s. */
-  limitCheckTime_s: number | null;
-  /** The design uses this many control points (after refinement) and checks this many. */
-  controlPoints: DesignControlPointResult[];
-  timeSeries: DesignTimeSeries | null;
-  outOfService: OutOfServiceCheck | null;
-  summary: PumpSummary;
-  quickCheck: QuickCheck[];
-  /** Layout mode: ids chosen for installation. */
-  chosenWellIds?: string[];
-  solver: {
-    status: string;
-    /** Refinement rounds (control points added where the check grid showed a higher level). */
-    rounds: number;
-    objective: number | null;
-    /** Layout mode: how the integer search ended ('optimal' within the gap, or 'time-limit'). */
-    layoutStatus?: string;
-    /** Layout mode: relative gap between the chosen layout's cost and the best bound. */
-    mipGap?: number;
-    solveTime_ms: number;
-  };
-  cautions: string[];
-  modelNotes: string[];
-}
+export const PumpSummarySchema = Type.Object({
+  totalRate_m3_s: Num('Computed total flow, m³/s.'),
+  designFlow_m3_s: Num('Total × safety factor, m³/s: what pumps and discharge are sized for.'),
+  safetyFactor: Num('−'),
+  initialRate_m3_s: NullableNum('Steady designs: rate for the first weeks while storage drains, m³/s.'),
+  initialPeriod_s: NullableNum('Steady designs: length of that period, s.'),
+  headerSystemHead_m: NullableNum('Well-point header pump head, m.'),
+  maxWellHead_m: NullableNum('Largest deep-well total dynamic head, m.'),
+  hydraulicPower_kW: Num('ρ·g·Q·H summed, kW.'),
+  inputPower_kW: Num('ρ·g·Q·H/η summed, kW.'),
+  installedPower_kW: Num('Input power at the safety-factored flow, kW.'),
+  pumpCapacity_m3_s: Num('Rated flow of one pump set, m³/s.'),
+  dutyPumps: Num('Duty pumps: one per deep well plus ⌈header flow / capacity⌉.'),
+  standbyPumps: Num('Standby pumps.'),
+  undersizedPumpWellIds: Type.Array(Type.String(), { description: 'Deep wells whose rate × safety factor exceeds the pump capacity.' }),
+  duration_s: Num('Pumping duration, s.'),
+  energy_kWh: Num('Energy over the duration, kWh.'),
+  dischargeVolume_m3: Num('Discharge volume over the duration, m³ (for the permit).'),
+  energyCost: Num('Bid currency.'),
+  pumpedVolumeCost: Num('Bid currency.'),
+  wellCost: Num('Bid currency.'),
+  totalCost: Num('Bid currency.'),
+  quantities: Type.Object({
+    wells: Num('Wells used.'),
+    wellsByKind: Type.Object({ wellpoint: Type.Number(), deep: Type.Number(), ejector: Type.Number() }),
+    screen_m: Num('Screen length, m.'),
+    header_m: Num('Well-point header length, m.'),
+  }),
+});
+export type PumpSummary = Static<typeof PumpSummarySchema>;
+
+export const QuickCheckSchema = Type.Object({
+  excavationId: Type.String(),
+  equivalentWellInflow_m3_s: NullableNum('Equivalent-well estimate of the total inflow, m³/s (null when it does not apply).'),
+  equivalentRadius_m: NullableNum('sqrt(A/π), m.'),
+  superpositionTotal_m3_s: Num('Superposition total of the design, m³/s.'),
+  ratio: NullableNum('superposition / equivalent well (−); far from 1 deserves a second look.'),
+  note: Type.String(),
+});
+export type QuickCheck = Static<typeof QuickCheckSchema>;
+
+export const DesignResultSchema = Type.Object(
+  {
+    mode: DesignModeSchema,
+    feasible: Type.Boolean({ description: 'Every target met within every well limit, verified by the field engine.' }),
+    totalRate_m3_s: Num('Sum of the design rates, m³/s.'),
+    wells: Type.Array(DesignWellResultSchema),
+    excavations: Type.Array(DesignExcavationResultSchema),
+    reasons: Type.Array(DesignReasonSchema, { description: 'Why targets cannot be met (empty when feasible).' }),
+    designTime_s: NullableNum('Design time, s; null for steady state.'),
+    limitCheckTime_s: NullableNum('Time the well limits were checked at, s.'),
+    controlPoints: Type.Array(DesignControlPointResultSchema),
+    timeSeries: Type.Union([DesignTimeSeriesSchema, Type.Null()]),
+    outOfService: Type.Union([OutOfServiceCheckSchema, Type.Null()]),
+    summary: PumpSummarySchema,
+    quickCheck: Type.Array(QuickCheckSchema),
+    chosenWellIds: Type.Optional(Type.Array(Type.String(), { description: 'Layout mode: wells chosen for installation.' })),
+    solver: Type.Object({
+      status: Type.String(),
+      rounds: Num('Solve rounds (control points added where the check grid stood above target; limit linearisation narrowed).'),
+      objective: NullableNum('Objective of the last solve.'),
+      layoutStatus: Type.Optional(Type.String({ description: 'Layout mode: how the integer search ended.' })),
+      mipGap: Type.Optional(Num('Layout mode: relative gap between the chosen layout’s cost and the best bound.')),
+      solveTime_ms: Num('Time in the LP/MIP solver, ms.'),
+    }),
+    cautions: Type.Array(Type.String()),
+    modelNotes: Type.Array(Type.String()),
+  },
+  { description: 'A design (design.md section 4) with its checks, bid summary and cautions.' },
+);
+export type DesignResult = Static<typeof DesignResultSchema>;

@@ -43,6 +43,11 @@ export const DESIGN_TOLERANCE_M = 1e-4;
 export const MAX_REFINEMENT_ROUNDS = 8;
 /** Most rounds that narrow the linearisation intervals of the well limits. */
 export const MAX_TIGHTENING_ROUNDS = 3;
+/**
+ * Largest unit-response matrix one design may build (check points × design wells): 5 million
+ * entries is 40 MB of Float64 and a few seconds of well-function evaluations.
+ */
+export const MAX_RESPONSE_ENTRIES = 5_000_000;
 /** Most check points added per round. */
 const MAX_ADDED_PER_ROUND = 400;
 
@@ -120,6 +125,14 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   const designPoints = generateControlPoints(pointOptions);
   const checkPoints = generateControlPoints({ ...pointOptions, densify: 2 });
   const xy = (p: ControlPoint) => [p.x, p.y] as const;
+  if (checkPoints.length * nW > MAX_RESPONSE_ENTRIES) {
+    const path = options.controlSpacingPath;
+    throw new DrydigError(
+      'DRYDIG_ERR_INVALID_REQUEST',
+      `${path}: ${checkPoints.length} check points × ${nW} wells is more than the ${MAX_RESPONSE_ENTRIES} unit responses one design may use; give a coarser control spacing or fewer candidate wells`,
+      [{ path, message: `gives ${checkPoints.length} check points for ${nW} wells; use a coarser spacing or fewer candidate wells` }],
+    );
+  }
 
   progress('unit responses', 0.1);
   const checkResponse = designResponse(ctx, checkPoints.map(xy), designTime_s);

@@ -83,12 +83,28 @@ export function thiemDrawdown(o: ThiemOptions): number {
   return (o.rate_m3_s / (2 * Math.PI * o.transmissivity_m2_s)) * Math.log(o.influenceRadius_m / o.distance_m);
 }
 
+/** Options of {@link unconfinedDrawdownFromPotential}. */
+export interface PotentialDrawdownOptions {
+  /** Static saturated thickness H, m. */
+  saturatedThickness_m: number;
+  /** Discharge-potential drawdown s_c, m. */
+  potentialDrawdown_m: number;
+}
+
+/** Options of {@link jacobCorrectedDrawdown}. */
+export interface JacobCorrectionOptions {
+  /** Static saturated thickness H, m. */
+  saturatedThickness_m: number;
+  /** Unconfined drawdown s, m. */
+  drawdown_m: number;
+}
+
 /**
  * Unconfined drawdown from the discharge-potential drawdown: s = H − sqrt(H² − 2H·s_c), the
  * exact inverse of Jacob's (1944) correction s_c = s − s²/(2H). Where 2H·s_c ≥ H² the aquifer is
  * dewatered: drawdown H, flag `dewatered`.
  */
-export function unconfinedDrawdownFromPotential({ saturatedThickness_m: H, potentialDrawdown_m }: { saturatedThickness_m: number; potentialDrawdown_m: number }): SingleWellResult {
+export function unconfinedDrawdownFromPotential({ saturatedThickness_m: H, potentialDrawdown_m }: PotentialDrawdownOptions): SingleWellResult {
   need(H, 'saturatedThickness_m');
   const disc = H * H - 2 * H * potentialDrawdown_m;
   if (disc <= 0) return { drawdown_m: H, flags: ['dewatered', 'large-drawdown'] };
@@ -97,7 +113,7 @@ export function unconfinedDrawdownFromPotential({ saturatedThickness_m: H, poten
 }
 
 /** Jacob (1944) correction: s_c = s − s²/(2H), the confined-equivalent drawdown of an unconfined one. */
-export function jacobCorrectedDrawdown({ saturatedThickness_m: H, drawdown_m: s }: { saturatedThickness_m: number; drawdown_m: number }): number {
+export function jacobCorrectedDrawdown({ saturatedThickness_m: H, drawdown_m: s }: JacobCorrectionOptions): number {
   need(H, 'saturatedThickness_m');
   return s - (s * s) / (2 * H);
 }
@@ -114,8 +130,14 @@ export interface UnconfinedOptions {
   distance_m: number;
 }
 
+/** Options of {@link dupuitThiemDrawdown}. */
+export interface DupuitThiemOptions extends UnconfinedOptions {
+  /** Radius of influence R, m. */
+  influenceRadius_m: number;
+}
+
 /** Dupuit–Thiem: H² − h² = Q/(πK)·ln(R/r) for r < R (Dupuit 1863, Thiem 1906). */
-export function dupuitThiemDrawdown(o: UnconfinedOptions & { influenceRadius_m: number }): SingleWellResult {
+export function dupuitThiemDrawdown(o: DupuitThiemOptions): SingleWellResult {
   need(o.conductivity_m_s, 'conductivity_m_s');
   const T = o.conductivity_m_s * o.saturatedThickness_m;
   const sc = thiemDrawdown({ rate_m3_s: o.rate_m3_s, transmissivity_m2_s: T, distance_m: o.distance_m, influenceRadius_m: o.influenceRadius_m });
@@ -123,16 +145,30 @@ export function dupuitThiemDrawdown(o: UnconfinedOptions & { influenceRadius_m: 
   return unconfinedDrawdownFromPotential({ saturatedThickness_m: o.saturatedThickness_m, potentialDrawdown_m: sc });
 }
 
+/** Options of {@link unconfinedTheisDrawdown}. */
+export interface UnconfinedTheisOptions extends UnconfinedOptions {
+  /** Specific yield Sy (−). */
+  specificYield: number;
+  /** Time since pumping started, s (≤ 0 gives 0). */
+  time_s: number;
+}
+
 /** Unconfined transient: Theis on the discharge potential with T = K·H, S = Sy, then the exact back-transform. */
-export function unconfinedTheisDrawdown(o: UnconfinedOptions & { specificYield: number; time_s: number }): SingleWellResult {
+export function unconfinedTheisDrawdown(o: UnconfinedTheisOptions): SingleWellResult {
   need(o.conductivity_m_s, 'conductivity_m_s');
   const T = o.conductivity_m_s * o.saturatedThickness_m;
   const sc = theisDrawdown({ rate_m3_s: o.rate_m3_s, transmissivity_m2_s: T, storativity: o.specificYield, distance_m: o.distance_m, time_s: o.time_s });
   return unconfinedDrawdownFromPotential({ saturatedThickness_m: o.saturatedThickness_m, potentialDrawdown_m: sc });
 }
 
+/** Options of {@link hantushJacobDrawdown}: those of Theis plus the leakage factor. */
+export interface HantushJacobOptions extends TheisOptions {
+  /** Leakage factor B = sqrt(T·c), m. */
+  leakageFactor_m: number;
+}
+
 /** Hantush & Jacob (1955): s = Q/(4πT)·W(u, r/B). 0 for t ≤ 0. */
-export function hantushJacobDrawdown(o: TheisOptions & { leakageFactor_m: number }): number {
+export function hantushJacobDrawdown(o: HantushJacobOptions): number {
   need(o.leakageFactor_m, 'leakageFactor_m');
   need(o.transmissivity_m2_s, 'transmissivity_m2_s');
   need(o.storativity, 'storativity');
@@ -142,8 +178,20 @@ export function hantushJacobDrawdown(o: TheisOptions & { leakageFactor_m: number
   return (o.rate_m3_s / (4 * Math.PI * o.transmissivity_m2_s)) * hantushWellFunction(u, o.distance_m / o.leakageFactor_m);
 }
 
+/** Options of {@link deGleeDrawdown}. */
+export interface DeGleeOptions {
+  /** Pumping rate Q, m³/s. */
+  rate_m3_s: number;
+  /** Transmissivity T, m²/s. */
+  transmissivity_m2_s: number;
+  /** Distance r, m (> 0). */
+  distance_m: number;
+  /** Leakage factor B = sqrt(T·c), m. */
+  leakageFactor_m: number;
+}
+
 /** de Glee (1930), steady leaky: s = Q/(2πT)·K0(r/B). */
-export function deGleeDrawdown(o: { rate_m3_s: number; transmissivity_m2_s: number; distance_m: number; leakageFactor_m: number }): number {
+export function deGleeDrawdown(o: DeGleeOptions): number {
   need(o.leakageFactor_m, 'leakageFactor_m');
   need(o.transmissivity_m2_s, 'transmissivity_m2_s');
   need(o.distance_m, 'distance_m');

@@ -72,6 +72,7 @@ export function getModelRateSteps(scenario: Scenario, model: FieldModel, wellInd
   return getWellRateSteps(w);
 }
 
+/** The inner-loop kind of a model's method (unconfined methods superpose like their confined forms). */
 export function getSourceKind(model: FieldModel): SourceKind {
   switch (model.method) {
     case 'theis':

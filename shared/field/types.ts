@@ -63,6 +63,7 @@ export interface PointResult {
   flags: PointFlag[];
 }
 
+/** Options of `evaluatePoints`. */
 export interface EvaluatePointsOptions {
   scenario: Scenario;
   points: ReadonlyArray<readonly [number, number]>;
@@ -70,6 +71,7 @@ export interface EvaluatePointsOptions {
   time_s?: number | null;
 }
 
+/** Result of `evaluatePoints`: one PointResult per input point, in order, and the model used. */
 export interface EvaluatePointsResult {
   points: PointResult[];
   model: ModelInfo;
@@ -82,6 +84,7 @@ export interface GridSpec {
   counts: readonly [number, number];
 }
 
+/** Options of `evaluateGrid`. */
 export interface EvaluateGridOptions {
   scenario: Scenario;
   grid: GridSpec;

@@ -18,6 +18,7 @@ import { resolveSiteProjection, formatLonLat, type ProjectionProblem, type SiteP
 import type { LeafletMapController, MapTool } from '../map';
 import { nextWellIds } from '../layout';
 import { formatDuration } from './time-format';
+import { stepDecimals } from './step-decimals';
 import { methodName } from './results-panel';
 import './plan-map';
 import './map-legend';
@@ -263,7 +264,7 @@ export class DrydigApp extends LightElement {
   private fieldStyle(r: FieldResult | null) {
     const u = this.units;
     const step = r && r.levels.length > 1 ? Math.abs(r.levels[1]! - r.levels[0]!) : 1;
-    const decimals = step >= 1 ? 0 : step >= 0.1 ? 1 : 2;
+    const decimals = stepDecimals(step);
     return {
       formatLevel: (v: number) => formatQuantity(v, u.length, { decimals, withUnit: false }),
       staticLevel_m: this.scenario.aquifer.staticLevel_m,

@@ -10,6 +10,7 @@ import { formatQuantity, type DisplayUnits } from '../../shared/units';
 import { drawdownColour } from '../map/colour-scale';
 import { FLAG_LABELS } from './flag-labels';
 import { formatDuration } from './time-format';
+import { stepDecimals } from './step-decimals';
 
 export class MapLegend extends LightElement {
   static override properties = {
@@ -26,7 +27,8 @@ export class MapLegend extends LightElement {
     super();
     this.result = null;
     this.staticLevel_m = 0;
-    this.collapsed = false;
+    // On a phone the key starts folded so the plan stays visible.
+    this.collapsed = typeof window !== 'undefined' && window.innerWidth < 820;
     this.computing = -1;
   }
 
@@ -67,6 +69,6 @@ export class MapLegend extends LightElement {
 
 function levelDecimals(levels: number[]): number {
   const step = levels.length > 1 ? Math.abs(levels[1]! - levels[0]!) : 1;
-  return step >= 1 ? 1 : step >= 0.1 ? 2 : 3;
+  return Math.max(1, stepDecimals(step));
 }
 if (!customElements.get('map-legend')) customElements.define('map-legend', MapLegend);

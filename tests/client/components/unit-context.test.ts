@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { displayValue, parseDisplayNumber } from '../../../client/components/unit-context';
+import { stepDecimals } from '../../../client/components/step-decimals';
 
 describe('parseDisplayNumber(text, unit, pointer, label) turns typed text into SI', () => {
   it.each([
@@ -29,5 +30,11 @@ describe('displayValue(value_si, unit) shows SI values in form units', () => {
     [undefined, 'm', ''],
   ] as const)('%s in %s → "%s"', (v, unit, expected) => {
     expect(displayValue(v, unit)).toBe(expected);
+  });
+});
+
+describe('stepDecimals(step) gives the decimals contour labels need', () => {
+  it.each([[0.25, 2], [0.5, 1], [2.5, 1], [2, 0], [0.1, 1], [0.05, 2], [0.001, 3]])('stepDecimals(%d) = %d', (step, d) => {
+    expect(stepDecimals(step)).toBe(d);
   });
 });

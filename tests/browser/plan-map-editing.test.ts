@@ -1,0 +1,167 @@
+/**
+ * More of the plan map in a real browser: the time control, drawing an outline and a boundary,
+ * deleting a well by keyboard, the design panel's result (critical points, applying rates with
+ * undo) and the site-plan underlay. Each file runs its own server on a random 127.0.0.1 port.
+ */
+import { readFileSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { fieldsDrawn, openPlanMap, pagePoint, settle, type BrowserSession } from './browser-harness';
+
+let s: BrowserSession;
+let page: Page;
+
+async function loadDemo(p: Page, key: 'wellpoints' | 'deepwells'): Promise<void> {
+  const before = await fieldsDrawn(p);
+  await p.selectOption('select[name="demo"]', key);
+  await settle(p, before);
+}
+
+async function clickSite(p: Page, x: number, y: number): Promise<void> {
+  const q = await pagePoint(p, x, y);
+  await p.mouse.click(q.x, q.y);
+}
+
+async function badge(p: Page, id: string): Promise<string> {
+  return (await p.locator(`.dd-map-top .dd-badge[data-excavation="${id}"]`).innerText()).replace(/\s+/g, ' ');
+}
+
+beforeAll(async () => {
+  s = await openPlanMap();
+  page = s.page;
+});
+
+afterAll(async () => {
+  await s?.close();
+});
+
+describe('editing on the plan map', () => {
+  it('the time control steps through log-spaced times up to the design time', async () => {
+    await page.click('button[name="tab-results"]');
+    expect(await page.locator('output[name="time-label"]').innerText()).toBe('14 d');
+    const range0 = await page.locator('results-panel .dd-facts').first().innerText();
+    const before = await fieldsDrawn(page);
+    // Earliest time: design time / 1000 = 1 209 600 s / 1000 = 20.2 min.
+    await page.locator('input[name="time"]').evaluate((el: HTMLInputElement) => {
+      el.value = '0';
+      el.dispatchEvent(new Event('input', { bubbles: true }));
+    });
+    await settle(page, before);
+    expect(await page.locator('output[name="time-label"]').innerText()).toBe('20.2 min');
+    expect(await page.locator('map-legend .dd-legend-head span').innerText()).toBe('20.2 min');
+    const range1 = await page.locator('results-panel .dd-facts').first().innerText();
+    expect(range1).not.toBe(range0);
+    // Less drawdown after 20 minutes than after 14 days (Theis: s grows with t).
+    const maxOf = (t: string) => Number(/to (\d+\.\d\d)/.exec(t)![1]);
+    expect(maxOf(range1)).toBeLessThan(maxOf(range0));
+    // The badges stay at the design time whatever time the contours show.
+    expect(await badge(page, 'pit-A')).toMatch(/design time 14 d/);
+    await s.screenshot('12-early-time');
+  });
+
+  it('draws an excavation outline corner by corner and gives it a badge', async () => {
+    await loadDemo(page, 'wellpoints');
+    await page.click('button[name="tool-draw-excavation"]');
+    for (const [x, y] of [[55, 0], [70, 0], [70, 15], [55, 15]] as const) await clickSite(page, x, y);
+    const before = await fieldsDrawn(page);
+    await clickSite(page, 55, 0); // back on the first corner closes it
+    await settle(page, before);
+    expect(await page.locator('path.dd-excavation').count()).toBe(2);
+    await expect.poll(() => page.locator('.dd-map-top .dd-badge[data-excavation="pit-2"]').count()).toBe(1);
+    // It starts with the last excavation's levels; set its formation deeper and see the badge follow.
+    await page.click('button[name="tab-layout"]');
+    const b0 = await badge(page, 'pit-2');
+    await page.fill('excavation-editor input[name="formationLevel_m"]', '5');
+    const before2 = await fieldsDrawn(page);
+    await page.locator('excavation-editor input[name="formationLevel_m"]').blur();
+    await settle(page, before2);
+    expect(await page.locator('excavation-editor .dd-facts').innerText()).toMatch(/Target level 4\.50\sm/);
+    expect(await badge(page, 'pit-2')).not.toBe(b0);
+    await s.screenshot('13-outline-drawn');
+  });
+
+  it('draws a boundary, switches it to no-flow, and the results change', async () => {
+    await loadDemo(page, 'wellpoints');
+    const b0 = await badge(page, 'pit-A');
+    await page.click('button[name="tool-boundary"]');
+    await clickSite(page, -12, -20);
+    const before = await fieldsDrawn(page);
+    await clickSite(page, -12, 40);
+    await settle(page, before);
+    expect(await page.locator('path.dd-boundary-constant-head').count()).toBe(1);
+    expect(await page.locator('ground-panel .dd-boundary-row').count()).toBe(1);
+    const b1 = await badge(page, 'pit-A');
+    expect(b1).not.toBe(b0); // a river 10 m from the pit feeds it
+    const before2 = await fieldsDrawn(page);
+    await page.selectOption('ground-panel .dd-boundary-row select', 'no-flow');
+    await settle(page, before2);
+    expect(await page.locator('path.dd-boundary-no-flow').count()).toBe(1);
+    expect(await badge(page, 'pit-A')).not.toBe(b1);
+    await s.screenshot('14-boundary');
+  });
+
+  it('shows the ground model in the chosen units and refuses an impossible value', async () => {
+    await page.click('button[name="tab-ground"]');
+    await page.fill('ground-panel input[name="specificYield"]', '1.5');
+    await page.locator('ground-panel input[name="specificYield"]').blur();
+    await expect.poll(() => page.locator('ground-panel .dd-error').innerText()).toMatch(/\/aquifer\/specificYield: Specific yield Sy is a fraction below 1/);
+    expect(await page.locator('ground-panel .dd-facts').innerText()).toMatch(/Transmissivity T = K·H = 0\.0037\sm²\/s/);
+  });
+
+  it('deletes the selected well with the Delete key, undoably', async () => {
+    await loadDemo(page, 'deepwells');
+    await page.click('button[name="tab-layout"]');
+    await page.click('.dd-well-list button[data-well="DW6"]');
+    await page.locator('plan-map').hover({ position: { x: 40, y: 300 } });
+    await page.keyboard.press('Delete');
+    await expect.poll(() => page.locator('path.dd-well').count()).toBe(5);
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.locator('path.dd-well').count()).toBe(6);
+  });
+
+  it('marks the design critical points and applies the solved rates as one undo step', async () => {
+    await page.click('button[name="tab-design"]');
+    expect(await page.locator('.dd-tab-body caution-note').innerText()).toMatch(/licensed engineer/);
+    const detail = {
+      mode: 'uniform', feasible: true, totalRate_m3_s: 0.12,
+      wells: ['DW1', 'DW2', 'DW3', 'DW4', 'DW5', 'DW6'].map((id) => ({ id, rate_m3_s: 0.02 })),
+      excavations: [{ id: 'basement', targetLevel_m: 6.5, met: true, worstShortfall_m: -0.1, critical: { x: 389230, y: 5819415, level_m: 6.4 } }],
+      reasons: [], apply: true,
+    };
+    const before = await fieldsDrawn(page);
+    await page.locator('design-panel').evaluate((el, d) => el.dispatchEvent(new CustomEvent('design-result', { detail: d, bubbles: true, composed: true })), detail);
+    await settle(page, before);
+    expect(await page.locator('path.dd-critical').count()).toBe(1);
+    await expect.poll(() => page.locator('.dd-notice').innerText()).toMatch(/Applied design rates to 6 wells/);
+    await page.click('button[name="tab-layout"]');
+    expect(await page.locator('.dd-well-list button[data-well="DW1"]').innerText()).toMatch(/72\s*m³\/h/); // 0.02 m³/s × 3600
+    await page.click('button[name="undo"]');
+    await expect.poll(() => page.locator('.dd-well-list button[data-well="DW1"]').innerText()).toMatch(/43\.2\s*m³\/h/);
+  });
+
+  it('places a site-plan image by two reference points', async () => {
+    await page.click('button[name="tab-backdrop"]');
+    const png = readFileSync('node_modules/leaflet/dist/images/layers-2x.png'); // any PNG will do: 52 × 52 px
+    await page.setInputFiles('backdrop-panel input[name="underlay-file"]', { name: 'plan.png', mimeType: 'image/png', buffer: png });
+    await expect.poll(() => page.locator('img.dd-underlay').count()).toBe(1);
+    await expect.poll(() => page.locator('backdrop-panel .dd-facts').innerText()).toMatch(/Scale 0\.1 m\/px · rotation 0\.00°/);
+    // Second reference: the image's top-right corner 10 m north of the first → 52 px over 10 m, turned 90°.
+    const refs = page.locator('backdrop-panel fieldset.dd-ref').nth(1).locator('input');
+    const e0 = Number(await page.locator('backdrop-panel fieldset.dd-ref').nth(0).locator('input').nth(2).inputValue());
+    const n0 = Number(await page.locator('backdrop-panel fieldset.dd-ref').nth(0).locator('input').nth(3).inputValue());
+    // Northing first: each edit must leave two distinct points, or it is refused.
+    await refs.nth(3).fill(String(n0 + 10));
+    await refs.nth(3).blur();
+    await refs.nth(2).fill(String(e0));
+    await refs.nth(2).blur();
+    await expect.poll(() => page.locator('backdrop-panel .dd-facts').innerText()).toMatch(/rotation 90\.00°/);
+    const transform = await page.locator('img.dd-underlay').evaluate((el) => (el as HTMLElement).style.transform);
+    expect(transform).toMatch(/^matrix\(/);
+    expect(await page.locator('img.dd-underlay').evaluate((el) => getComputedStyle(el).display)).toBe('block');
+    // Kept in the scenario under "view" (so it travels with the saved file).
+    const kept = await page.evaluate(() => (window as unknown as { __drydig: { scenario(): { view?: { underlay?: { width_px: number } } } } }).__drydig.scenario().view?.underlay?.width_px);
+    expect(kept).toBe(52);
+    await s.screenshot('15-underlay');
+    expect(s.errors).toEqual([]);
+  });
+});

@@ -4,7 +4,7 @@
  */
 import type { Scenario } from '../../shared/schema';
 import type { MonitoringPlan, SetoutRow } from '../../shared/exports';
-import type { DesignResult } from '../../shared/design/design-result';
+import type { DesignResult } from '../../shared/design';
 
 export interface LinkView {
   link: { linkId: string; mode: 'view' | 'edit'; pinnedRevision: number | null; label: string; createdAt: string };
@@ -22,6 +22,7 @@ export interface LinkView {
   modelNotes: string[];
   computeError: string | null;
   design: DesignResult | null;
+  designError: string | null;
   cautions: string[];
 }
 

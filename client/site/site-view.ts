@@ -275,6 +275,7 @@ export class SiteView extends LitElement {
         })}</tbody></table></div>
       ${d?.reasons.length ? html`<ul class="bad">${d.reasons.map((r) => html`<li>${r.message}</li>`)}</ul>` : nothing}
       ${v.computeError ? html`<p class="bad">Levels could not be computed: ${v.computeError}</p>` : nothing}
+      ${!d ? html`<p class="note">No design check is available${v.designError ? `: ${v.designError}` : ''}; the rates shown are the plan's own.</p>` : nothing}
       ${v.flagCounts && Object.values(v.flagCounts).some((n) => n > 0)
         ? html`<p class="alert">Parts of the plan lie outside a method's comfortable validity (${Object.entries(v.flagCounts).filter(([, n]) => n > 0).map(([k]) => k).join(', ')}); treat levels there with care.</p>`
         : nothing}

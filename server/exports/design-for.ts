@@ -1,11 +1,33 @@
 /**
- * The design result shown in the report and the site view. Wired to the design solver once its
- * public entry exists; until then nothing is attached and the report says so.
+ * The design check shown in the report and the site view: the shared design solver run on the
+ * stored revision, in the scenario's own mode and options. A revision never changes, so the result
+ * is cached by the revision's checksum (the promise, so parallel requests share one solve).
  */
 import type { Scenario } from '../../shared/schema';
-import type { DesignResult } from '../../shared/design/design-result';
+import { runDesign, type DesignResult } from '../../shared/design';
+import { DrydigError } from '../../shared/schema';
 
-/** Design result for a revision (by checksum), or null when none is available. */
-export function designFor(_sha256: string, _scenario: Scenario): DesignResult | null {
-  return null;
+/** A design result, or why there is none. */
+export interface DesignOutcome {
+  design: DesignResult | null;
+  /** Why the solver gave no result (bad options, a problem too large), in words. */
+  error: string | null;
+}
+
+const MAX_CACHED = 32;
+const cache = new Map<string, Promise<DesignOutcome>>();
+
+/** Design for a revision (by checksum): solved once, then served from the cache. */
+export function designFor(sha256: string, scenario: Scenario): Promise<DesignOutcome> {
+  const hit = cache.get(sha256);
+  if (hit) return hit;
+  const pending = runDesign({ scenario })
+    .then((design): DesignOutcome => ({ design, error: null }))
+    .catch((error: unknown): DesignOutcome => ({
+      design: null,
+      error: error instanceof DrydigError ? error.message : 'the design solver could not run on this scenario',
+    }));
+  cache.set(sha256, pending);
+  if (cache.size > MAX_CACHED) cache.delete(cache.keys().next().value as string);
+  return pending;
 }

@@ -38,7 +38,7 @@ const TYPES: Record<ExportFormat, { type: string; ext: string; inline: boolean }
 };
 
 /** Renders the export body (exported for tests and the CLI). */
-export function renderExport(format: ExportFormat, source: ExportSource): string {
+export async function renderExport(format: ExportFormat, source: ExportSource): Promise<string> {
   const { record } = source;
   const scenario = record.scenario;
   const projection = createSiteProjection(scenario);
@@ -55,12 +55,14 @@ export function renderExport(format: ExportFormat, source: ExportSource): string
       return writeMonitoringCsv(monitoringPlanFor(scenario, source.readings));
     case 'report-html': {
       const plan = planResultsFor(record.sha256, scenario);
+      const design = await designFor(record.sha256, scenario);
       return writeReportHtml({
         scenario,
         projection,
         revision: record,
         results: plan.results,
-        design: designFor(record.sha256, scenario),
+        design: design.design,
+        designError: design.error,
         monitoring: monitoringPlanFor(scenario, source.readings),
       });
     }
@@ -68,9 +70,9 @@ export function renderExport(format: ExportFormat, source: ExportSource): string
 }
 
 /** Sends the export with Content-Type and Content-Disposition. */
-export function sendExport(reply: FastifyReply, format: ExportFormat, source: ExportSource): FastifyReply {
+export async function sendExport(reply: FastifyReply, format: ExportFormat, source: ExportSource): Promise<FastifyReply> {
   const spec = TYPES[format];
-  const body = renderExport(format, source);
+  const body = await renderExport(format, source);
   const filename = `${fileSlug(source.record.scenario.name)}-rev${source.record.revision}.${spec.ext}`;
   return reply
     .header('content-type', spec.type)

@@ -65,7 +65,7 @@ const routes = async (app: FastifyInstance) => {
     const { record, link } = opened;
     const projection = createSiteProjection(record.scenario);
     const plan = planResultsFor(record.sha256, record.scenario);
-    const design = designFor(record.sha256, record.scenario);
+    const design = await designFor(record.sha256, record.scenario);
     reply.header('cache-control', 'no-store');
     return {
       link: linkInfo(link),
@@ -84,8 +84,9 @@ const routes = async (app: FastifyInstance) => {
       method: plan.results?.model.method ?? null,
       modelNotes: plan.results?.model.notes ?? [],
       computeError: plan.error ?? null,
-      design,
-      cautions: DESIGN_CAUTIONS,
+      design: design.design,
+      designError: design.error,
+      cautions: [...DESIGN_CAUTIONS, ...(design.design?.cautions ?? [])],
     };
   });
 

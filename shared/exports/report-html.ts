@@ -5,7 +5,7 @@
  * method references, and the cautions (at the top and on every printed page).
  */
 import type { Scenario } from '../schema';
-import type { DesignResult } from '../design/design-result';
+import type { DesignResult } from '../design';
 import { DESIGN_CAUTIONS } from './design-cautions';
 import { escapeHtml as e } from './escape-html';
 import { METHOD_REFERENCES, SUPPORTING_REFERENCES } from './method-references';
@@ -23,6 +23,8 @@ export interface ReportOptions {
   results?: PlanResults;
   /** Design solver result, when one was run. */
   design?: DesignResult | null;
+  /** Why the design solver gave no result, when it failed. */
+  designError?: string | null;
   monitoring?: MonitoringPlan;
   projection: SiteProjection | null;
   /** When the report was made, ISO 8601. Default now. */
@@ -46,7 +48,7 @@ function totalVolume_m3(scenario: Scenario, until_s: number): number {
   return total;
 }
 
-function designSection(scenario: Scenario, design: DesignResult | null | undefined): string {
+function designSection(scenario: Scenario, design: DesignResult | null | undefined, designError?: string | null): string {
   const active = scenario.wells.filter((w) => w.active !== false);
   const startRate = active.reduce((sum, w) => sum + (w.rate_m3_s ?? w.schedule?.[0]?.rate_m3_s ?? 0), 0);
   const byKind = (k: string) => active.filter((w) => w.kind === k).length;
@@ -56,7 +58,8 @@ function designSection(scenario: Scenario, design: DesignResult | null | undefin
   ];
   if (scenario.design.time_s !== null) rows.push([`Volume pumped to the design time (${days(scenario.design.time_s)})`, `${f(totalVolume_m3(scenario, scenario.design.time_s), 0)} m³`]);
   let html = `<table class="kv">${rows.map(([k, v]) => `<tr><th>${e(k ?? '')}</th><td>${e(v ?? '')}</td></tr>`).join('')}</table>`;
-  if (!design) return `${html}<p class="note">No design run is attached to this revision: the numbers above are the scenario's own rates. Run the design to size pumps and price the bid.</p>`;
+  if (!design)
+    return `${html}<p class="note">No design run is attached to this revision${designError ? ` (the solver reported: ${e(designError)})` : ''}: the numbers above are the scenario's own rates. Run the design to size pumps and price the bid.</p>`;
   const s = design.summary;
   html += `<h3>Design (${e(design.mode)}) — ${design.feasible ? '<span class="ok">feasible</span>' : '<span class="bad">NOT feasible</span>'}</h3>`;
   html += '<table class="kv">';
@@ -93,8 +96,8 @@ function checksSection(results: PlanResults | undefined, design: DesignResult | 
     ? `<p class="bad">Results outside a method's comfortable validity: ${flagged.map(([k, n]) => `${e(k)} at ${n} grid nodes`).join('; ')}. Treat those areas with particular care.</p>`
     : '<p>No grid node carries a validity flag.</p>';
   if (design) {
-    const flaggedWells = design.wells.filter((w) => w.flags.length > 0 || w.utilisation > 1);
-    if (flaggedWells.length) html += `<p class="bad">Wells over capacity or flagged: ${flaggedWells.map((w) => `${e(w.id)} (${e([...w.flags, w.utilisation > 1 ? `utilisation ${f(w.utilisation)}` : ''].filter(Boolean).join(', '))})`).join('; ')}</p>`;
+    const flaggedWells = design.wells.filter((w) => w.flags.length > 0 || (w.utilisation ?? 0) > 1);
+    if (flaggedWells.length) html += `<p class="bad">Wells over capacity or flagged: ${flaggedWells.map((w) => `${e(w.id)} (${e([...w.flags, (w.utilisation ?? 0) > 1 ? `utilisation ${f(w.utilisation)}` : ''].filter(Boolean).join(', '))})`).join('; ')}</p>`;
   }
   return html;
 }
@@ -163,7 +166,7 @@ ${(scenario.boundaries ?? []).map((b, i) => `<tr><th>Boundary ${i + 1}</th><td>$
 <h2>3. Well schedule</h2>
 <table><thead><tr><th>No.</th><th>Id</th><th>Kind</th><th>Easting m</th><th>Northing m</th>${projection ? '<th>Latitude °</th><th>Longitude °</th>' : ''}<th>Scenario rate L/s</th>${design ? '<th>Design rate L/s</th>' : ''}<th>Screen top / bottom m</th><th>Active</th></tr></thead><tbody>${wellRows}</tbody></table>
 <h2>4. Design and bid summary</h2>
-${designSection(scenario, design)}
+${designSection(scenario, design, options.designError)}
 <h2>5. Checks</h2>
 ${checksSection(results, design)}
 <h2>6. Monitoring plan</h2>

@@ -82,6 +82,8 @@ describe('GET /api/v1/links/:token', () => {
     expect(body.setout[0].latitude_deg).toBeGreaterThan(52);
     expect(body.cautions.length).toBeGreaterThan(0);
     expect(body.contours.lines.length).toBeGreaterThan(0);
+    expect(typeof body.design.feasible).toBe('boolean');
+    expect(body.design.wells).toHaveLength(6);
     expect(res.body).not.toContain(id);
     expect(res.headers['cache-control']).toBe('no-store');
   });

@@ -6,6 +6,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { buildMonitoringPlan, computePlanResults, createSiteProjection, writeReportHtml, writeScenarioJson } from '../../../shared/exports';
 import type { Scenario } from '../../../shared/schema';
+import { runDesign } from '../../../shared/design';
 import { engine } from './export-test-helpers';
 
 const demo = (file: string) => JSON.parse(readFileSync(new URL(`../../../fixtures/${file}`, import.meta.url), 'utf8')) as Scenario;
@@ -49,6 +50,17 @@ describe('writeReportHtml(options)', () => {
 
   it('says plainly when no design run is attached', () => {
     expect(html).toContain('No design run is attached');
+  });
+
+  it('shows the design and bid summary of an attached design run, rate by rate', async () => {
+    const design = await runDesign({ scenario });
+    const withDesign = writeReportHtml({ scenario, projection: createSiteProjection(scenario), design });
+    expect(withDesign).toContain(`Design (${design.mode}) — ${design.feasible ? '<span class="ok">feasible</span>' : '<span class="bad">NOT feasible</span>'}`);
+    expect(withDesign).toContain(`<tr><th>Total design rate</th><td>${(design.totalRate_m3_s * 1000).toFixed(2)} L/s</td></tr>`);
+    expect(withDesign).toContain(`<tr><th>Duty / standby pumps</th><td>${design.summary.dutyPumps} / ${design.summary.standbyPumps}</td></tr>`);
+    expect(withDesign).toContain('<th>Design rate L/s</th>');
+    for (const w of design.wells) expect(withDesign).toContain(`<td>${(w.rate_m3_s * 1000).toFixed(2)}</td>`);
+    expect(withDesign).not.toContain('No design run is attached');
   });
 });
 

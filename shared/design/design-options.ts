@@ -38,6 +38,7 @@ export interface ResolvedDesignOptions {
   pumpedVolumeCost_per_m3: number;
   duration_s: number;
   stages: DesignStage[];
+  layoutTimeLimit_s: number;
   outOfServiceWell: string | null;
   /** JSON pointers the control points and spacing came from (for messages). */
   controlPointsPath: string;
@@ -67,6 +68,7 @@ export const DESIGN_OPTION_DEFAULTS = {
   wellCost: 5000,
   pumpedVolumeCost_per_m3: 0.1,
   duration_s: 90 * DAY_S,
+  layoutTimeLimit_s: 20,
 } as const;
 
 function schemaIssues(value: unknown, prefix: string): FieldIssue[] {
@@ -145,6 +147,7 @@ export function resolveDesignOptions({ scenario, overrides, overridesPath = '/op
     pumpedVolumeCost_per_m3: merged.pumpedVolumeCost_per_m3 ?? d.pumpedVolumeCost_per_m3,
     duration_s: merged.duration_s ?? d.duration_s,
     stages: merged.stages ?? [],
+    layoutTimeLimit_s: merged.layoutTimeLimit_s ?? d.layoutTimeLimit_s,
     outOfServiceWell: merged.outOfServiceWell ?? null,
     controlPointsPath: `${origin('controlPoints')}/controlPoints`,
     controlSpacingPath: `${origin('controlSpacing_m')}/controlSpacing_m`,

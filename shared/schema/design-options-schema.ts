@@ -79,6 +79,9 @@ export const DesignOptionsSchema = Type.Object(
       Type.Number({ exclusiveMinimum: 0, description: 'Pumping duration for energy, volume and cost, s. Default 90 days.' }),
     ),
     stages: Type.Optional(Type.Array(DesignStageSchema, { maxItems: 100 })),
+    layoutTimeLimit_s: Type.Optional(
+      Type.Number({ exclusiveMinimum: 0, maximum: 600, description: 'Layout mode: longest the integer search may run before it returns its best layout, s. Default 20.' }),
+    ),
     outOfServiceWell: Type.Optional(
       Type.String({ minLength: 1, maxLength: 64, description: 'Well to take out of service in the standby check. Default: the one whose loss hurts most.' }),
     ),

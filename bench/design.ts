@@ -1,0 +1,103 @@
+/**
+ * Speed of the design solver: the per-well optimum (LP) for 300 wells and about 600 control
+ * points, plus the uniform and layout modes on a smaller case. Invented site, for the bench only.
+ *
+ * Run: npx tsx bench/design.ts   (or import runDesignBench from bench/run.ts)
+ */
+import { pathToFileURL } from 'node:url';
+import { generateControlPoints, runDesign, solveOptimalRates, type RateProblem } from '../shared/design';
+import { unitResponseMatrix } from '../shared/field';
+import type { Scenario } from '../shared/schema';
+
+/** 150 m × 100 m pit, `n` deep wells on a ring 3 m outside it; confined, Theis at 30 days. */
+export function makeDesignBenchScenario(n: number): Scenario {
+  const [w, h, offset] = [150, 100, 3];
+  const perimeter = 2 * (w + h + 4 * offset);
+  const wells: Scenario['wells'] = [];
+  for (let k = 0; k < n; k++) {
+    let d = (k + 0.5) * (perimeter / n);
+    const [W, H] = [w + 2 * offset, h + 2 * offset];
+    let x: number;
+    let y: number;
+    if (d < W) [x, y] = [d, 0];
+    else if ((d -= W) < H) [x, y] = [W, d];
+    else if ((d -= H) < W) [x, y] = [W - d, H];
+    else [x, y] = [0, H - (d - W)];
+    wells.push({ id: `D${k + 1}`, x: x - offset, y: y - offset, radius_m: 0.15, kind: 'deep', rate_m3_s: 0.001, wellLoss_s2_m5: 200 });
+  }
+  return {
+    format: 'drydig.scenario',
+    version: 1,
+    name: 'design bench (invented)',
+    groundLevel_m: 10,
+    aquifer: { kind: 'confined', conductivity_m_s: 3e-4, base_m: -25, top_m: 0, staticLevel_m: 8, storativity: 2e-4 },
+    boundaries: [{ kind: 'constant-head', from: [260, -500], to: [260, 500], label: 'canal (invented)' }],
+    excavations: [{ id: 'pit', outline: [[0, 0], [w, 0], [w, h], [0, h]], formationLevel_m: 2, margin_m: 0.5 }],
+    wells,
+    design: { time_s: 30 * 86400 },
+  };
+}
+
+const ms = (t0: number) => performance.now() - t0;
+const fmt = (v: number) => v.toFixed(0);
+
+/** Runs the design benchmarks; returns one line per measurement for the bench note. */
+export async function runDesignBench(): Promise<string[]> {
+  const lines: string[] = [];
+  const scenario = makeDesignBenchScenario(300);
+  const spacing_m = 5.4;
+  const points = generateControlPoints({ excavations: scenario.excavations, spacing_m });
+
+  // Warm-up: loads the HiGHS WebAssembly once (not part of a design's cost in a running service).
+  let t0 = performance.now();
+  await solveOptimalRates({ nWells: 1, response: Float64Array.from([1]), required: Float64Array.from([1]), limits: [], upper: Float64Array.from([10]), upperKind: ['capacity'] });
+  lines.push(`design: HiGHS load (once per process) ${fmt(ms(t0))} ms`);
+
+  // The LP alone on the engine's unit responses: 300 columns × ${points.length} rows.
+  t0 = performance.now();
+  const m = unitResponseMatrix({ scenario: { ...scenario, wells: scenario.wells.map((w) => ({ ...w, active: false })) }, points: points.map((p) => [p.x, p.y] as const), wellIds: scenario.wells.map((w) => w.id) });
+  const matrixMs = ms(t0);
+  const problem: RateProblem = {
+    nWells: 300,
+    response: m.values,
+    required: Float64Array.from(points, (p) => scenario.aquifer.staticLevel_m - p.targetLevel_m),
+    limits: [],
+    upper: new Float64Array(300).fill(0.05),
+    upperKind: new Array(300).fill('capacity'),
+  };
+  const lpTimes: number[] = [];
+  let total = 0;
+  for (let k = 0; k < 3; k++) {
+    t0 = performance.now();
+    const s = await solveOptimalRates(problem);
+    lpTimes.push(ms(t0));
+    total = s.rates.reduce((a, q) => a + q, 0);
+  }
+  lpTimes.sort((a, b) => a - b);
+  lines.push(`design: unit-response matrix ${points.length} points × 300 wells ${fmt(matrixMs)} ms; LP alone (rates only) median of 3: ${fmt(lpTimes[1]!)} ms, total ${(total * 1000).toFixed(1)} L/s`);
+
+  // The full per-well optimum: limits, check-grid refinement, verification, times, standby, summary.
+  t0 = performance.now();
+  const r = await runDesign({ scenario, mode: 'optimal', options: { controlSpacing_m: spacing_m } });
+  lines.push(
+    `design: runDesign optimal, 300 wells, ${points.length} control points (${r.excavations[0]!.checkPointCount} check points): ${fmt(ms(t0))} ms total, ` +
+      `${fmt(r.solver.solveTime_ms)} ms in HiGHS over ${r.solver.rounds} round(s); feasible ${r.feasible}, total ${(r.totalRate_m3_s * 1000).toFixed(1)} L/s, ` +
+      `worst shortfall ${(r.excavations[0]!.worstShortfall_m * 1000).toFixed(2)} mm`,
+  );
+
+  t0 = performance.now();
+  const u = await runDesign({ scenario, mode: 'uniform', options: { controlSpacing_m: spacing_m } });
+  lines.push(`design: runDesign uniform, same case: ${fmt(ms(t0))} ms; total ${(u.totalRate_m3_s * 1000).toFixed(1)} L/s (optimum saves ${(100 * (1 - r.totalRate_m3_s / u.totalRate_m3_s)).toFixed(1)} %)`);
+
+  const small = makeDesignBenchScenario(60);
+  t0 = performance.now();
+  const l = await runDesign({ scenario: small, mode: 'layout', options: { wellCost: 20000 } });
+  lines.push(
+    `design: runDesign layout, 60 candidates: ${fmt(ms(t0))} ms; chose ${l.chosenWellIds?.length ?? 0} wells, search ${l.solver.layoutStatus ?? '?'} at gap ${((l.solver.mipGap ?? 0) * 100).toFixed(2)} %`,
+  );
+  return lines;
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
+  for (const line of await runDesignBench()) console.log(line);
+}

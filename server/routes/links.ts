@@ -60,7 +60,7 @@ const routes = async (app: FastifyInstance) => {
   const store = app.scenarioStore;
   if (!store) throw new Error('link routes need the scenario routes registered first (scenarioStore)');
 
-  app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token', { schema: { params: TokenParamsSchema } }, async (request, reply) => {
+  app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token', { schema: { summary: 'What a share link shows (site view data)', description: 'The revision the link shows, its scenario, the set-out table (lat/lon where georeferenced), level contours, checks, the design result and the cautions. Never the scenario id.', tags: ['links'], params: TokenParamsSchema } }, async (request, reply) => {
     const opened = await openLink(store, request.params.token);
     const { record, link } = opened;
     const projection = createSiteProjection(record.scenario);
@@ -92,27 +92,27 @@ const routes = async (app: FastifyInstance) => {
 
   app.get<{ Params: Static<typeof TokenParamsSchema> & { format: ExportFormat } }>(
     '/links/:token/export/:format',
-    { schema: { params: Type.Composite([TokenParamsSchema, Type.Object({ format: ExportFormatSchema })]) } },
+    { schema: { summary: 'Export through a share link', description: 'The same exports as the scenario route, of the revision the link shows.', tags: ['links'], params: Type.Composite([TokenParamsSchema, Type.Object({ format: ExportFormatSchema })]) } },
     async (request, reply) => {
       const { link, record } = await openLink(store, request.params.token);
       return sendExport(reply, request.params.format, { record, readings: await store.listReadings(link.scenarioId), pinned: link.revision !== null });
     },
   );
 
-  app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token/monitoring', { schema: { params: TokenParamsSchema } }, async (request, reply) => {
+  app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token/monitoring', { schema: { summary: 'Monitoring plan through a share link', description: 'Expected, alert and action levels per piezometer, with readings assessed.', tags: ['links'], params: TokenParamsSchema } }, async (request, reply) => {
     const { link, record } = await openLink(store, request.params.token);
     reply.header('cache-control', 'no-store');
     return monitoringPlanFor(record.scenario, await store.listReadings(link.scenarioId));
   });
 
-  app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token/readings', { schema: { params: TokenParamsSchema } }, async (request) => {
+  app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token/readings', { schema: { summary: 'Site readings through a share link', description: 'Readings of the scenario, oldest first.', tags: ['links'], params: TokenParamsSchema } }, async (request) => {
     const { link } = await openLink(store, request.params.token);
     return { readings: (await store.listReadings(link.scenarioId)).map(({ scenarioId: _s, ...r }) => r) };
   });
 
   app.post<{ Params: Static<typeof TokenParamsSchema>; Body: Static<typeof ReadingBodySchema> }>(
     '/links/:token/readings',
-    { schema: { params: TokenParamsSchema, body: ReadingBodySchema }, config: writeRateLimit() },
+    { schema: { summary: 'Enter a site reading (edit links only)', description: 'A view link answers 403 DRYDIG_ERR_LINK_READ_ONLY: a view token can never write.', tags: ['links'], params: TokenParamsSchema, body: ReadingBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const opened = await openLink(store, request.params.token);
       requireEdit(opened, 'enter readings');
@@ -124,7 +124,7 @@ const routes = async (app: FastifyInstance) => {
 
   app.put<{ Params: Static<typeof TokenParamsSchema>; Body: Static<typeof SaveBodySchema> }>(
     '/links/:token/scenario',
-    { schema: { params: TokenParamsSchema, body: SaveBodySchema }, config: writeRateLimit() },
+    { schema: { summary: 'Save a revision through an edit link', description: 'Edit links that follow the latest revision only; stale saves get 409 with the newer revision. View links answer 403.', tags: ['links'], params: TokenParamsSchema, body: SaveBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const opened = await openLink(store, request.params.token);
       requireEdit(opened, 'save the scenario');

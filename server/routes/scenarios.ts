@@ -68,11 +68,15 @@ async function requireRevision(store: ScenarioStore, scenarioId: string, revisio
 const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
   const store = opts.store;
 
-  app.get('/scenarios', async () => ({ scenarios: await store.listScenarios() }));
+  app.get(
+    '/scenarios',
+    { schema: { summary: 'List stored scenarios with their latest revision', description: 'Every stored scenario: id, name, latest revision, when and by whom it was saved.', tags: ['scenarios'] } },
+    async () => ({ scenarios: await store.listScenarios() }),
+  );
 
   app.post<{ Body: Static<typeof NewScenarioBodySchema> }>(
     '/scenarios',
-    { schema: { body: NewScenarioBodySchema }, config: writeRateLimit() },
+    { schema: { summary: 'Store a new scenario (revision 1)', description: 'Validates the scenario like the evaluate route (issues name the field, e.g. /scenario/wells/3/rate_m3_s) and stores it as revision 1. Import a scenario JSON export by posting it here.', tags: ['scenarios'], body: NewScenarioBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const scenario = parseSaveScenario(request.body.scenario);
       const record = await store.createScenario({ scenario, savedBy: request.body.savedBy, note: request.body.note });
@@ -82,7 +86,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.get<{ Params: Static<typeof ScenarioIdParamsSchema> }>(
     '/scenarios/:id',
-    { schema: { params: ScenarioIdParamsSchema } },
+    { schema: { summary: 'The latest revision of a scenario', description: 'The latest revision with its metadata and the scenario document.', tags: ['scenarios'], params: ScenarioIdParamsSchema } },
     async (request) => {
       const record = await requireLatest(store, request.params.id);
       return { ...publicRevisionMeta(record), scenario: record.scenario };
@@ -91,13 +95,13 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.put<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof SaveBodySchema> }>(
     '/scenarios/:id',
-    { schema: { params: ScenarioIdParamsSchema, body: SaveBodySchema }, config: writeRateLimit() },
+    { schema: { summary: 'Save a new revision, based on a known revision', description: 'Stores a new immutable revision if baseRevision is still the latest. Otherwise 409 DRYDIG_ERR_REVISION_CONFLICT with the newer revision in `latest`, so no edit is silently lost.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: SaveBodySchema }, config: writeRateLimit() },
     async (request, reply) => saveOn(reply, store, request.params.id, request.body),
   );
 
   app.get<{ Params: Static<typeof ScenarioIdParamsSchema> }>(
     '/scenarios/:id/revisions',
-    { schema: { params: ScenarioIdParamsSchema } },
+    { schema: { summary: 'History of a scenario', description: 'Revisions newest first: when, the name the saver gave, their note and a short summary of what changed.', tags: ['scenarios'], params: ScenarioIdParamsSchema } },
     async (request) => {
       const revisions = await store.listRevisions(request.params.id);
       if (!revisions) throw new DrydigError('DRYDIG_ERR_NOT_FOUND', `no scenario with id "${request.params.id}"`, [{ path: '/id', message: 'no such scenario' }]);
@@ -107,7 +111,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.get<{ Params: Static<typeof RevisionParamSchema> }>(
     '/scenarios/:id/revisions/:revision',
-    { schema: { params: RevisionParamSchema } },
+    { schema: { summary: 'One revision of a scenario', description: 'A past revision exactly as it was saved (checked against its SHA-256).', tags: ['scenarios'], params: RevisionParamSchema } },
     async (request) => {
       const record = await requireRevision(store, request.params.id, parseRevisionParam(request.params.revision, '/revision'));
       return { ...publicRevisionMeta(record), scenario: record.scenario };
@@ -116,7 +120,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.post<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof RestoreBodySchema> }>(
     '/scenarios/:id/restore',
-    { schema: { params: ScenarioIdParamsSchema, body: RestoreBodySchema }, config: writeRateLimit() },
+    { schema: { summary: 'Restore an old revision as a new revision', description: 'Copies revision `revision` into a new revision on top of `baseRevision` (409 when that is stale); the history keeps everything.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: RestoreBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const old = await requireRevision(store, request.params.id, request.body.revision);
       const outcome = await store.saveRevision({
@@ -137,7 +141,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.get<{ Params: Static<typeof ScenarioIdParamsSchema> & { format: ExportFormat }; Querystring: Static<typeof ExportQuerySchema> }>(
     '/scenarios/:id/export/:format',
-    { schema: { params: Type.Composite([ScenarioIdParamsSchema, Type.Object({ format: ExportFormatSchema })]), querystring: ExportQuerySchema } },
+    { schema: { summary: 'Export a revision', description: 'scenario-json (imports back unchanged), setout-csv, geojson (RFC 7946 when georeferenced), dxf, report-html (print to PDF) or monitoring-csv, of the latest revision or ?revision=N.', tags: ['scenarios'], params: Type.Composite([ScenarioIdParamsSchema, Type.Object({ format: ExportFormatSchema })]), querystring: ExportQuerySchema } },
     async (request, reply) => {
       const revision = request.query.revision === undefined ? undefined : parseRevisionParam(request.query.revision, '/revision');
       const record = await requireRevision(store, request.params.id, revision);
@@ -148,7 +152,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.get<{ Params: Static<typeof ScenarioIdParamsSchema>; Querystring: Static<typeof ExportQuerySchema> }>(
     '/scenarios/:id/monitoring',
-    { schema: { params: ScenarioIdParamsSchema, querystring: ExportQuerySchema } },
+    { schema: { summary: 'Monitoring plan: expected, alert and action levels, readings assessed', description: 'For each piezometer, the level the design expects over time (field engine), the alert and action levels and every site reading compared with the expected level.', tags: ['scenarios'], params: ScenarioIdParamsSchema, querystring: ExportQuerySchema } },
     async (request) => {
       const revision = request.query.revision === undefined ? undefined : parseRevisionParam(request.query.revision, '/revision');
       const record = await requireRevision(store, request.params.id, revision);
@@ -158,7 +162,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.get<{ Params: Static<typeof ScenarioIdParamsSchema> }>(
     '/scenarios/:id/readings',
-    { schema: { params: ScenarioIdParamsSchema } },
+    { schema: { summary: 'Site readings of a scenario', description: 'Piezometer readings, oldest first (append-only site data, not revisions).', tags: ['scenarios'], params: ScenarioIdParamsSchema } },
     async (request) => {
       await requireLatest(store, request.params.id);
       return { readings: (await store.listReadings(request.params.id)).map(({ scenarioId: _s, ...r }) => r) };
@@ -167,7 +171,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.post<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof ReadingBodySchema> }>(
     '/scenarios/:id/readings',
-    { schema: { params: ScenarioIdParamsSchema, body: ReadingBodySchema }, config: writeRateLimit() },
+    { schema: { summary: 'Enter a site reading', description: 'Appends a piezometer reading; time since pumping started comes from measuredAt and monitoring.pumpingStart, or from time_s.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: ReadingBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const latest = await requireLatest(store, request.params.id);
       const reading = await storeReading(store, latest, request.body);
@@ -177,7 +181,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.post<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof LinkCreateBodySchema> }>(
     '/scenarios/:id/links',
-    { schema: { params: ScenarioIdParamsSchema, body: LinkCreateBodySchema }, config: writeRateLimit() },
+    { schema: { summary: 'Create a share link', description: 'A view-only or edit link with a 256-bit token (shown once; only its SHA-256 is stored), pinned to a revision or following the latest. sitePath opens the site view.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: LinkCreateBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const pinned = request.body.revision ?? null;
       await requireRevision(store, request.params.id, pinned ?? undefined);
@@ -196,7 +200,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.get<{ Params: Static<typeof ScenarioIdParamsSchema> }>(
     '/scenarios/:id/links',
-    { schema: { params: ScenarioIdParamsSchema } },
+    { schema: { summary: 'List share links', description: 'Links of a scenario, without their tokens.', tags: ['scenarios'], params: ScenarioIdParamsSchema } },
     async (request) => {
       await requireLatest(store, request.params.id);
       return { links: await store.listLinks(request.params.id) };
@@ -205,7 +209,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.delete<{ Params: Static<typeof LinkIdParamsSchema> }>(
     '/scenarios/:id/links/:linkId',
-    { schema: { params: LinkIdParamsSchema }, config: writeRateLimit() },
+    { schema: { summary: 'Revoke a share link', description: 'From then on the link answers 410 DRYDIG_ERR_LINK_REVOKED.', tags: ['scenarios'], params: LinkIdParamsSchema }, config: writeRateLimit() },
     async (request, reply) => {
       const revoked = await store.revokeLink(request.params.id, request.params.linkId);
       if (!revoked)

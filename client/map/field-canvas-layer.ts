@@ -84,6 +84,15 @@ export class FieldCanvasLayer extends CanvasOverlay {
           f.fillStyle = bandColour(area.level, levels[i + 1] ?? r.range.max);
           f.fill('evenodd');
         });
+        // Beyond a boundary is outside the modelled aquifer: no band colour there.
+        f.globalCompositeOperation = 'destination-out';
+        for (const fa of r.flagAreas) {
+          if (fa.flag !== 'beyond-boundary') continue;
+          f.beginPath();
+          traceMultiPolygon(f, map, fa.coordinates);
+          f.fill('evenodd');
+        }
+        f.globalCompositeOperation = 'source-over';
         ctx.globalAlpha = 0.34;
         ctx.drawImage(scratch, 0, 0, size.x, size.y);
         ctx.globalAlpha = 1;

@@ -152,10 +152,14 @@ export async function runFieldJob(req: FieldRequest, hooks: JobHooks = {}): Prom
   const started = performance.now();
   const g = await evaluateGridInStrips(req.scenario, req.grid, req.time_s, req.strips ?? 1, hooks);
   const values = req.quantity === 'level' ? g.level_m : g.drawdown_m;
-  const range = finiteRange(values);
-  const drawdownRange = finiteRange(g.drawdown_m);
+  const modelled = (arr: Float64Array) => (g.flagCounts['beyond-boundary'] > 0 ? arr.map((v, k) => (g.flags[k]! & FLAG_BITS['beyond-boundary'] ? Number.NaN : v)) : arr);
+  const range = finiteRange(modelled(values));
+  const drawdownRange = finiteRange(modelled(g.drawdown_m));
   const levels = niceContourLevels({ min: range.min, max: range.max, targetCount: 12, step: req.step_m, maxCount: 60 });
-  const contours = contourGrid({ values, grid: req.grid, levels });
+  // Ground beyond a boundary line is outside the modelled aquifer: no contours there.
+  const beyond = FLAG_BITS['beyond-boundary'];
+  const holes = g.flagCounts['beyond-boundary'] > 0 ? Uint8Array.from(g.flags, (f) => (f & beyond ? 1 : 0)) : undefined;
+  const contours = contourGrid({ values, grid: req.grid, levels, holes });
   const flagAreas: FieldResult['flagAreas'] = [];
   for (const flag of FLAG_NAMES) {
     if (flag === 'within-well-radius' || !(g.flagCounts[flag] > 0)) continue;

@@ -53,6 +53,12 @@ export interface ContourGridOptions {
   labelSpacing_m?: number;
   /** Lines shorter than this get no label, m (default: three grid spacings). */
   minLabelledLength_m?: number;
+  /**
+   * Nodes with no value (non-zero = hole), e.g. ground beyond a boundary line. Holes count as
+   * below every level for the areas, and line pieces in cells touching a hole are cut away, so
+   * the edge of the modelled ground is not drawn as a pile of contours. Default: none.
+   */
+  holes?: ArrayLike<number>;
 }
 
 /**
@@ -65,7 +71,9 @@ export function contourGrid(options: ContourGridOptions): ContourSet {
   if (fault) throw new RangeError(fault);
   const [nx, ny] = grid.counts;
   const generator = d3Contours().size([nx, ny]);
-  const input = Array.from(values, (v) => (Number.isFinite(v) ? v : Number.NaN));
+  const holes = options.holes;
+  if (holes && holes.length !== values.length) throw new RangeError(`expected ${values.length} hole flags, got ${holes.length}`);
+  const input = Array.from(values, (v, k) => (Number.isFinite(v) && !(holes && holes[k]) ? v : Number.NaN));
   const sideX = (grid.counts[0] - 1) * grid.spacing_m[0];
   const sideY = (grid.counts[1] - 1) * grid.spacing_m[1];
   const labelSpacing = options.labelSpacing_m ?? Math.max(sideX, sideY) / 4;
@@ -81,7 +89,7 @@ export function contourGrid(options: ContourGridOptions): ContourSet {
     for (const polygon of mp.coordinates) {
       const rings: XY[][] = [];
       polygon.forEach((pixelRing, k) => {
-        polylines.push(...splitAtFrame(grid, pixelRing as Array<[number, number]>));
+        polylines.push(...splitAtFrame(grid, pixelRing as Array<[number, number]>, input));
         const ring = dedupe(pixelRing.map((p) => pixelToSite(grid, p[0]!, p[1]!)));
         if (ring.length < 4) return;
         const signed = ringSignedArea(ring);
@@ -102,11 +110,27 @@ export function contourGrid(options: ContourGridOptions): ContourSet {
  * Cuts a closed d3 ring where it runs along the edge of the computed extent, so what remains is
  * the true isoline (the frame is where the ring was closed, not where the field equals the level).
  */
-function splitAtFrame(grid: GridSpec, pixelRing: ReadonlyArray<readonly [number, number]>): XY[][] {
+function splitAtFrame(grid: GridSpec, pixelRing: ReadonlyArray<readonly [number, number]>, values: readonly number[]): XY[][] {
   const n = pixelRing.length - 1; // d3 rings repeat the first point at the end
   if (n < 2) return [];
+  const [nx, ny] = grid.counts;
   const sides = pixelRing.map(([px, py]) => frameSides(grid, px, py));
-  const onFrame = (i: number) => (sides[i]! & sides[(i + 1) % n]!) !== 0;
+  // A segment with a NaN node within one node spacing of its midpoint was closed against missing
+  // data, not traced along a true isoline (d3 smooths such edges right onto the last valid node,
+  // so the cell test must reach one node further). Lines therefore stop a cell short of a hole.
+  const touchesHole = (i: number) => {
+    const a = pixelRing[i]!;
+    const b = pixelRing[(i + 1) % n]!;
+    const mx = (a[0] + b[0]) / 2;
+    const my = (a[1] + b[1]) / 2;
+    for (let jj = Math.max(0, Math.ceil(my - 1.5)); jj <= Math.min(ny - 1, Math.floor(my + 0.5)); jj++) {
+      for (let ii = Math.max(0, Math.ceil(mx - 1.5)); ii <= Math.min(nx - 1, Math.floor(mx + 0.5)); ii++) {
+        if (Number.isNaN(values[jj * nx + ii]!)) return true;
+      }
+    }
+    return false;
+  };
+  const onFrame = (i: number) => (sides[i]! & sides[(i + 1) % n]!) !== 0 || touchesHole(i);
   let start = -1;
   for (let i = 0; i < n; i++) if (onFrame(i)) { start = i; break; }
   const toSite = (i: number) => {

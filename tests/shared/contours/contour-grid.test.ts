@@ -188,3 +188,29 @@ describe('contourSetToGeoJSON(set) wraps contours as GeoJSON features', () => {
     expectNear(fc.features[1]!.properties.area_m2 as number, 50, 1e-9);
   });
 });
+
+describe('contourGrid({holes}) leaves out nodes with no value', () => {
+  it('cuts lines away from a column of holes instead of tracing its edge', () => {
+    // v = y − 200 with the three easternmost node columns missing (like ground across a boundary).
+    const values = sample(square, (_x, y) => y - 200);
+    const holes = Uint8Array.from(sample(square, (x) => (x >= 108 ? 1 : 0)));
+    const set = contourGrid({ values, grid: square, levels: [2, 4, 6, 8], holes });
+    for (const line of set.lines) {
+      for (const part of line.coordinates) {
+        for (const [x, y] of part) {
+          // Lines stay in cells clear of holes (x ≤ 107) and are the exact horizontals y = 200 + L.
+          expect(x).toBeLessThanOrEqual(107 + 1e-9);
+          expectNear(y, 200 + line.level, 1e-9);
+        }
+      }
+      // No vertical piece along the hole edge.
+      expect(line.coordinates.every((part) => part.every((p) => Math.abs(p[1] - (200 + line.level)) < 1e-9))).toBe(true);
+    }
+    // Areas exclude the holes: d3-contour interpolates towards −∞ at a hole, so the edge sits on the
+    // last valid node column: {v ≥ 2} spans x 100…107, y 202…210 → 56 m².
+    expectNear(set.areas[0]!.area_m2, 7 * 8, 1e-9);
+  });
+  it('rejects a holes array of the wrong length', () => {
+    expect(() => contourGrid({ values: sample(square, () => 1), grid: square, levels: [0.5], holes: [1] })).toThrow(/hole flags/);
+  });
+});

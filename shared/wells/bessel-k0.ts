@@ -1,43 +1,36 @@
 import { requirePositive } from './check-argument';
-import { EULER_GAMMA } from './theis-well-function';
+import { evaluatePolynomial } from './evaluate-polynomial';
+import { EULER_GAMMA, EXP_MINUS_64 } from './theis-well-function';
+import { K0_2_4, K0_4_8, K0_I0, K0_Q, K0_TAIL } from './well-function-coefficients';
+
+/** Beyond this x, K0(x) < e^(−x)·√(π/(2x)) is below the smallest subnormal double. */
+export const K0_UNDERFLOW_X = 745;
 
 /**
- * Modified Bessel function of the second kind, order 0, K0(x).
+ * Modified Bessel function of the second kind, order 0, K0(x) (Abramowitz & Stegun 1964, 9.6).
  *
- * Small x: the ascending series A&S 9.6.13, K0(x) = −(ln(x/2) + γ)·I0(x) + Σ (x²/4)^k/(k!)²·H_k.
- * Larger x: the integral representation A&S 9.6.24, K0(x) = ∫_0^∞ exp(−x cosh t) dt, by the
- * trapezoidal rule, which converges geometrically for this analytic, even integrand.
+ * 0 < x ≤ 2: K0(x) = −(ln(x/2) + γ)·I0(x) + y·Q(y), y = x²/4, the ascending series A&S 9.6.13
+ * (with I0 from 9.6.12), both I0 and Q fitted as polynomials in y;
+ * x > 2: K0(x) = e^(−x)/√x · H(x), H(x) = e^x·√x·K0(x) → √(π/2) (A&S 9.7.2), fitted piecewise
+ * on [2, 4], [4, 8] and in 8/x beyond. Fits by `scripts/reference/fit-well-function-coefficients.py`.
  *
- * @param x argument, must be > 0 (`+Infinity` gives 0)
- * @returns K0(x); exactly 0 where it underflows (x ≳ 705)
+ * @param x argument (in drydig r/B, dimensionless); must be > 0 (`+Infinity` gives 0)
+ * @returns K0(x) > 0; exactly 0 once it underflows (x > ≈ 745)
  * @throws RangeError when x ≤ 0 or x is NaN
  */
 export function besselK0(x: number): number {
-  if (!(x > 0)) requirePositive('besselK0', 'x', x);
   if (x <= 2) {
+    if (!(x > 0)) requirePositive('besselK0', 'x', x);
     const y = 0.25 * x * x;
-    let term = 1;
-    let harmonic = 0;
-    let i0 = 1;
-    let sum = 0;
-    for (let k = 1; k < 40; k++) {
-      term *= y / (k * k);
-      harmonic += 1 / k;
-      i0 += term;
-      const add = term * harmonic;
-      sum += add;
-      if (add < 1e-17 * sum && term < 1e-17 * i0) break;
-    }
-    return -(Math.log(0.5 * x) + EULER_GAMMA) * i0 + sum;
+    const z = 2 * y - 1;
+    return y * evaluatePolynomial(K0_Q, z) - (Math.log(0.5 * x) + EULER_GAMMA) * evaluatePolynomial(K0_I0, z);
   }
-  if (x > 746) return 0;
-  // The peak of exp(−x(cosh t − 1)) narrows like 1/√x; keep ~8 steps across it.
-  const h = Math.min(0.05, 0.35 / Math.sqrt(x));
-  let sum = 0.5;
-  for (let k = 1; k < 2000; k++) {
-    const f = Math.exp(-x * (Math.cosh(k * h) - 1));
-    sum += f;
-    if (f < 1e-18 * sum) break;
-  }
-  return h * sum * Math.exp(-x);
+  let h: number;
+  if (x <= 4) h = evaluatePolynomial(K0_2_4, x - 3);
+  else if (x <= 8) h = evaluatePolynomial(K0_4_8, 0.5 * x - 3);
+  else if (x > K0_UNDERFLOW_X) return 0; // also +Infinity
+  else h = evaluatePolynomial(K0_TAIL, 16 / x - 1);
+  if (x < 708) return (Math.exp(-x) / Math.sqrt(x)) * h;
+  return ((Math.exp(64 - x) / Math.sqrt(x)) * h) * EXP_MINUS_64; // see theisWellFunction
+
 }

@@ -1,50 +1,54 @@
 import { requirePositive } from './check-argument';
+import { evaluatePolynomial } from './evaluate-polynomial';
+import { E1_1_2, E1_2_4, E1_4_8, E1_8_16, E1_SMALL, E1_TAIL } from './well-function-coefficients';
 
-/** Euler–Mascheroni constant γ (A&S 6.1.3). */
+/** Euler–Mascheroni constant γ (Abramowitz & Stegun 1964, 6.1.3). */
 export const EULER_GAMMA = 0.5772156649015329;
+
+/**
+ * Beyond this u, E1(u) < e^(−u)/u is below the smallest subnormal double (≈ 4.9e−324), so the
+ * exact answer rounds to 0.
+ */
+export const E1_UNDERFLOW_U = 740;
 
 /**
  * Theis well function W(u) = E1(u) = ∫_u^∞ e^(−y)/y dy, the exponential integral.
  *
- * Theis (1935) Trans. AGU 16; E1 as in Abramowitz & Stegun (1964) 5.1.1.
- * Small u: the convergent series A&S 5.1.11, E1(u) = −γ − ln u − Σ (−u)^k / (k·k!).
- * Larger u: the continued fraction A&S 5.1.22 evaluated by the modified Lentz method.
+ * Theis (1935) Trans. AGU 16; E1 as defined in Abramowitz & Stegun (1964) 5.1.1.
+ * 0 < u ≤ 1: E1(u) = −γ − ln u + u·P(u), the series A&S 5.1.11 with P fitted as a polynomial;
+ * u > 1: E1(u) = e^(−u)/u · G(u), with G(u) = u·e^u·E1(u) (the auxiliary function A&S tabulates)
+ * fitted piecewise on [1, 2], [2, 4], [4, 8], [8, 16] and in 16/u beyond. The pieces are
+ * Chebyshev interpolants made by `scripts/reference/fit-well-function-coefficients.py`;
+ * the tests check the result against mpmath to the accuracy in `WELL_FUNCTION_ACCURACY`.
  *
- * @param u dimensionless Theis argument r²S/(4Tt), must be > 0 (`+Infinity` gives 0)
- * @returns E1(u); exactly 0 where e^(−u)/u underflows (u ≳ 745)
+ * @param u dimensionless Theis argument r²S/(4Tt); must be > 0 (`+Infinity` gives 0)
+ * @returns E1(u) > 0; exactly 0 once it underflows (u > ≈ 740). Subnormal results between
+ *   u ≈ 701 and 740 keep only the precision that subnormals allow.
  * @throws RangeError when u ≤ 0 or u is NaN
  */
 export function theisWellFunction(u: number): number {
-  if (!(u > 0)) requirePositive('theisWellFunction', 'u', u);
   if (u <= 1) {
-    let term = -u;
-    let sum = 0;
-    for (let k = 1; k < 40; k++) {
-      const add = -term / k;
-      sum += add;
-      if (Math.abs(add) < 1e-17 * Math.abs(sum)) break;
-      term *= -u / (k + 1);
-    }
-    return -EULER_GAMMA - Math.log(u) + sum;
+    if (!(u > 0)) requirePositive('theisWellFunction', 'u', u);
+    return -EULER_GAMMA - Math.log(u) + u * evaluatePolynomial(E1_SMALL, 2 * u - 1);
   }
-  if (u > 746) return 0;
-  // Modified Lentz for E1(u) e^u = 1/(u+1− 1²/(u+3− 2²/(u+5− …))) (Numerical-analysis standard form).
-  const tiny = 1e-300;
-  let b = u + 1;
-  let c = 1 / tiny;
-  let d = 1 / b;
-  let h = d;
-  for (let i = 1; i < 1000; i++) {
-    const an = -i * i;
-    b += 2;
-    d = 1 / (an * d + b);
-    c = b + an / c;
-    const del = c * d;
-    h *= del;
-    if (Math.abs(del - 1) < 1e-16) break;
+  if (u <= 4) {
+    const g = u <= 2 ? evaluatePolynomial(E1_1_2, 2 * u - 3) : evaluatePolynomial(E1_2_4, u - 3);
+    return (Math.exp(-u) / u) * g;
   }
-  return h * Math.exp(-u);
+  if (u <= 16) {
+    const g = u <= 8 ? evaluatePolynomial(E1_4_8, 0.5 * u - 3) : evaluatePolynomial(E1_8_16, 0.25 * u - 3);
+    return (Math.exp(-u) / u) * g;
+  }
+  if (u > E1_UNDERFLOW_U) return 0; // also +Infinity
+  const g = evaluatePolynomial(E1_TAIL, 32 / u - 1);
+  if (u < 708) return (Math.exp(-u) / u) * g;
+  // e^(−u) alone would be subnormal here: scale by e^64 first so that only the final product
+  // rounds into the subnormal range.
+  return ((Math.exp(64 - u) / u) * g) * EXP_MINUS_64;
 }
+
+/** e^(−64), to finish a product whose true value is subnormal. */
+export const EXP_MINUS_64 = 1.603810890548638e-28;
 
 /** Alias of {@link theisWellFunction}: the exponential integral E1(u), u > 0. */
 export const expIntegralE1 = theisWellFunction;

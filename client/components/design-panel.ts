@@ -1,12 +1,376 @@
-/** Placeholder for <design-panel>: filled in by the design issue. */
-import { LitElement, html } from 'lit';
-import type { Scenario } from '../../shared/schema';
+/**
+ * <design-panel>: runs the design solver (POST /api/v1/design) for the scenario and shows the
+ * answer: feasible / met badges, total flow, per-well rates and limits, pumps, power, energy,
+ * discharge volume, quantities, the equivalent-well quick check, times to target, the recovery
+ * after a power failure, a one-well-out check, a level-against-time chart at the critical point,
+ * and the reasons and cautions. Exports CSV. Dispatches `design-result` (bubbles, composed;
+ * detail = the result JSON) after each run, and again with `apply: true` from "Apply rates" — the
+ * map marks the critical points and the app applies the rates.
+ *
+ * The solver runs on the server: its LP/MIP engine is a 3.5 MB WebAssembly module that the
+ * browser bundle need not carry. CSV comes from the shared writer so it matches `drydig design --csv`.
+ */
+import { html, nothing, svg } from 'lit';
+import { LightElement } from './light-element';
+import type { DesignMode, Scenario } from '../../shared/schema';
+// Deep imports on purpose: the design folder's index also exports the solver (and HiGHS).
+import type { DesignResult } from '../../shared/design/design-result';
+import { designResultToCsv } from '../../shared/design/design-csv';
+import { linearScale, niceTicks } from './chart-axes';
+import { formatDuration } from './time-format';
+import { CAUTION_TEXT } from './caution-note';
 
-export class DesignPanel extends LitElement {
-  static override properties = { scenario: { attribute: false } };
+/** The options the panel edits, in display units (converted to SI when the request is built). */
+interface PanelOptions {
+  controlSpacing_m: string;
+  suctionLiftLimit_m: string;
+  headerLevel_m: string;
+  pumpEfficiency: string;
+  safetyFactor: string;
+  pumpCapacity_L_s: string;
+  energyPrice_per_kWh: string;
+  wellCost: string;
+  pumpedVolumeCost_per_m3: string;
+  duration_d: string;
+  outOfServiceWell: string;
+}
+
+const EMPTY_OPTIONS: PanelOptions = {
+  controlSpacing_m: '', suctionLiftLimit_m: '', headerLevel_m: '', pumpEfficiency: '', safetyFactor: '', pumpCapacity_L_s: '',
+  energyPrice_per_kWh: '', wellCost: '', pumpedVolumeCost_per_m3: '', duration_d: '', outOfServiceWell: '',
+};
+
+const MODE_TEXT: Record<DesignMode, string> = {
+  uniform: 'One rate for every active well',
+  optimal: 'Least total pumping, rate per well',
+  layout: 'Choose wells to install (least cost)',
+};
+
+const STYLE = `
+design-panel .dd-design-run { display: flex; gap: 8px; align-items: center; flex-wrap: wrap; margin: 8px 0; }
+design-panel .dd-design-progress { display: inline-flex; gap: 6px; align-items: center; color: var(--ink-2); }
+design-panel .dd-design-progress progress { width: 90px; }
+design-panel .dd-design-verdict { font-weight: 700; padding: 6px 10px; border-radius: var(--radius); margin: 8px 0 4px; }
+design-panel .dd-design-verdict.dd-yes { background: #eef8f4; color: #00604c; border-left: 5px solid var(--met); }
+design-panel .dd-design-verdict.dd-no { background: #fff4ec; color: #a33b00; border-left: 5px solid var(--short); }
+design-panel .dd-design-kv { display: grid; grid-template-columns: minmax(120px, 1fr) minmax(0, 1.4fr); gap: 2px 10px; margin: 4px 0; font-variant-numeric: tabular-nums; }
+design-panel .dd-design-kv dt { color: var(--ink-2); }
+design-panel .dd-design-kv dd { margin: 0; text-align: right; font-weight: 600; }
+design-panel .dd-design-table { width: 100%; border-collapse: collapse; font-size: 12px; font-variant-numeric: tabular-nums; }
+design-panel .dd-design-table th { text-align: right; font-weight: 500; color: var(--ink-2); border-bottom: 1px solid var(--rule); }
+design-panel .dd-design-table td { text-align: right; border-bottom: 1px dotted var(--rule); padding: 1px 3px; }
+design-panel .dd-design-table th:first-child, design-panel .dd-design-table td:first-child { text-align: left; }
+design-panel .dd-design-wells { max-height: 260px; overflow: auto; border: 1px solid var(--rule); border-radius: var(--radius); background: #fff; }
+design-panel .dd-chart .dd-recovery { fill: none; stroke: var(--short); stroke-width: 1.8; stroke-dasharray: 6 3; }
+design-panel .dd-chart .dd-formation { stroke: #6b4f2a; stroke-dasharray: 2 3; stroke-width: 1.2; }
+design-panel .dd-k-recovery { border-top-style: dashed; border-color: var(--short); }
+design-panel .dd-k-formation { border-top-style: dotted; border-color: #6b4f2a; }
+design-panel .dd-design-options { display: grid; grid-template-columns: 1fr 1fr; gap: 6px 8px; }
+`;
+
+const num = (v: number | null | undefined, digits = 3) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : String(Number(v.toPrecision(digits))));
+const fixed = (v: number | null | undefined, decimals = 2) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(decimals));
+const lps = (q_m3_s: number) => `${num(q_m3_s * 1000)} L/s (${num(q_m3_s * 3600)} m³/h)`;
+const money = (v: number) => (Number.isFinite(v) ? Math.round(v).toLocaleString('en-GB') : '—');
+
+export class DesignPanel extends LightElement {
+  static override properties = {
+    scenario: { attribute: false },
+    apiBase: { type: String },
+    mode: { state: true },
+    options: { state: true },
+    running: { state: true },
+    elapsed_s: { state: true },
+    result: { state: true },
+    error: { state: true },
+    stale: { state: true },
+  };
   declare scenario: Scenario | undefined;
+  /** Prefix of the HTTP API (same origin by default). */
+  declare apiBase: string;
+  declare mode: DesignMode;
+  declare options: PanelOptions;
+  declare running: boolean;
+  declare elapsed_s: number;
+  declare result: DesignResult | null;
+  declare error: string;
+  /** The scenario changed since the result was computed. */
+  declare stale: boolean;
+  private abort: AbortController | null = null;
+  private timer: ReturnType<typeof setInterval> | null = null;
+  private resultFor: Scenario | undefined;
+
+  constructor() {
+    super();
+    this.scenario = undefined;
+    this.apiBase = '';
+    this.mode = 'optimal';
+    this.options = { ...EMPTY_OPTIONS };
+    this.running = false;
+    this.elapsed_s = 0;
+    this.result = null;
+    this.error = '';
+    this.stale = false;
+  }
+
+  override disconnectedCallback(): void {
+    super.disconnectedCallback();
+    this.abort?.abort();
+    if (this.timer !== null) clearInterval(this.timer);
+    this.timer = null;
+  }
+
+  protected override willUpdate(changed: Map<string, unknown>): void {
+    if (changed.has('scenario') && this.result !== null) this.stale = this.scenario !== this.resultFor;
+  }
+
+  /** Options to send: only the fields the user filled in, converted to SI; a bad entry is reported, not guessed. */
+  private buildOptions(): { ok: true; options: Record<string, unknown> } | { ok: false; message: string } {
+    const o = this.options;
+    const out: Record<string, unknown> = {};
+    const fields: Array<[keyof PanelOptions, string, number, string]> = [
+      ['controlSpacing_m', 'controlSpacing_m', 1, 'control spacing'],
+      ['suctionLiftLimit_m', 'suctionLiftLimit_m', 1, 'suction-lift limit'],
+      ['headerLevel_m', 'headerLevel_m', 1, 'header level'],
+      ['pumpEfficiency', 'pumpEfficiency', 1, 'pump efficiency'],
+      ['safetyFactor', 'safetyFactor', 1, 'safety factor'],
+      ['pumpCapacity_L_s', 'pumpCapacity_m3_s', 1e-3, 'pump capacity'],
+      ['energyPrice_per_kWh', 'energyPrice_per_kWh', 1, 'energy price'],
+      ['wellCost', 'wellCost', 1, 'cost per well'],
+      ['pumpedVolumeCost_per_m3', 'pumpedVolumeCost_per_m3', 1, 'cost per m³'],
+      ['duration_d', 'duration_s', 86400, 'duration'],
+    ];
+    for (const [key, name, factor, words] of fields) {
+      const text = o[key].trim();
+      if (text === '') continue;
+      const v = Number(text.replace(',', '.'));
+      if (!Number.isFinite(v)) return { ok: false, message: `The ${words} "${text}" is not a number.` };
+      out[name] = v * factor;
+    }
+    if (o.outOfServiceWell) out.outOfServiceWell = o.outOfServiceWell;
+    return { ok: true, options: out };
+  }
+
+  private async run(): Promise<void> {
+    const scenario = this.scenario;
+    if (!scenario || this.running) return;
+    const built = this.buildOptions();
+    if (!built.ok) {
+      this.error = built.message;
+      return;
+    }
+    this.error = '';
+    this.running = true;
+    this.elapsed_s = 0;
+    const started = Date.now();
+    this.timer = setInterval(() => (this.elapsed_s = Math.round((Date.now() - started) / 1000)), 500);
+    this.abort = new AbortController();
+    try {
+      const res = await fetch(`${this.apiBase}/api/v1/design`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ scenario, mode: this.mode, ...(Object.keys(built.options).length > 0 ? { options: built.options } : {}) }),
+        signal: this.abort.signal,
+      });
+      const text = await res.text();
+      const body = text ? (JSON.parse(text) as unknown) : null;
+      if (!res.ok) {
+        const e = (body as { error?: { message?: string; fix?: string } } | null)?.error;
+        this.error = e?.message ? `${e.message}${e.fix ? `. ${e.fix}` : ''}` : `The design service answered ${res.status}.`;
+        return;
+      }
+      this.result = body as DesignResult;
+      this.resultFor = scenario;
+      this.stale = false;
+      this.emit('design-result', this.result);
+    } catch (error) {
+      this.error = (error as Error).name === 'AbortError' ? 'Design run cancelled.' : `The design service could not be reached (${(error as Error).message}).`;
+    } finally {
+      this.running = false;
+      if (this.timer !== null) clearInterval(this.timer);
+      this.timer = null;
+      this.abort = null;
+    }
+  }
+
+  private applyRates(): void {
+    if (!this.result) return;
+    this.emit('design-result', { ...this.result, apply: true });
+  }
+
+  private exportCsv(): void {
+    if (!this.result) return;
+    const blob = new Blob([designResultToCsv(this.result)], { type: 'text/csv' });
+    const a = document.createElement('a');
+    a.href = URL.createObjectURL(blob);
+    a.download = `${(this.scenario?.name ?? 'design').replace(/[^\w.-]+/g, '-').slice(0, 60)}-design.csv`;
+    a.click();
+    setTimeout(() => URL.revokeObjectURL(a.href), 1000);
+  }
+
+  private setOption(key: keyof PanelOptions, value: string): void {
+    this.options = { ...this.options, [key]: value };
+  }
+
+  private field(key: keyof PanelOptions, label: string, unit: string, placeholder: string) {
+    return html`<label class="dd-field"><span>${label}</span><span class="dd-input-unit">
+      <input type="text" inputmode="decimal" name=${`design-${key}`} placeholder=${placeholder} .value=${this.options[key]}
+        @change=${(e: Event) => this.setOption(key, (e.target as HTMLInputElement).value)} /><em>${unit}</em></span></label>`;
+  }
+
   override render() {
-    return html`<p>Design solver not built yet.</p>`;
+    const s = this.scenario;
+    const r = this.result;
+    return html`<div class="dd-design">
+      <fieldset aria-label="Solve mode"><legend>Solve for</legend>
+        ${(['uniform', 'optimal', 'layout'] as DesignMode[]).map(
+          (m) => html`<label class="dd-check"><input type="radio" name="design-mode" value=${m} ?checked=${this.mode === m} @change=${() => (this.mode = m)} /> ${MODE_TEXT[m]}</label>`,
+        )}
+        ${this.mode === 'layout' ? html`<p class="dd-hint">Every well, active or not, is a candidate; the result says which to install.</p>` : nothing}
+      </fieldset>
+      <details class="dd-section-block"><summary><h3>Options <small>blank = default</small></h3></summary>
+        <div class="dd-design-options">
+          ${this.field('controlSpacing_m', 'Control spacing', 'm', 'auto')}
+          ${this.field('suctionLiftLimit_m', 'Suction-lift limit', 'm', '5.5')}
+          ${this.field('headerLevel_m', 'Header level', 'm', s ? String(s.groundLevel_m) : 'ground')}
+          ${this.field('pumpEfficiency', 'Pump efficiency', '−', '0.6')}
+          ${this.field('safetyFactor', 'Safety factor', '−', '1.25')}
+          ${this.field('pumpCapacity_L_s', 'Pump capacity', 'L/s', '20')}
+          ${this.field('duration_d', 'Duration', 'd', '90')}
+          ${this.field('energyPrice_per_kWh', 'Energy price', '/kWh', '0.2')}
+          ${this.field('wellCost', 'Cost per well', '', '5000')}
+          ${this.field('pumpedVolumeCost_per_m3', 'Cost per m³', '/m³', '0.1')}
+          <label class="dd-field"><span>Well out of service</span>
+            <select name="design-out-of-service" @change=${(e: Event) => this.setOption('outOfServiceWell', (e.target as HTMLSelectElement).value)}>
+              <option value="" ?selected=${this.options.outOfServiceWell === ''}>worst case</option>
+              ${(s?.wells ?? []).filter((w) => w.active !== false).map((w) => html`<option value=${w.id} ?selected=${this.options.outOfServiceWell === w.id}>${w.id}</option>`)}
+            </select></label>
+        </div>
+        <p class="dd-hint">Suction lift 5.5 m is common practice; prices and costs are placeholders until you enter your own.</p>
+      </details>
+      <div class="dd-design-run">
+        <button type="button" class="dd-primary" name="run-design" ?disabled=${!s || this.running} @click=${() => void this.run()}>${this.running ? 'Designing…' : 'Run design'}</button>
+        ${this.running
+          ? html`<span class="dd-design-progress" role="status"><progress aria-label="Design running"></progress> ${this.elapsed_s} s
+              <button type="button" class="dd-small" @click=${() => this.abort?.abort()}>Cancel</button></span>`
+          : nothing}
+        ${r ? html`<button type="button" name="apply-rates" ?disabled=${this.running} @click=${() => this.applyRates()} title="Set each well's rate to the design rate (undo with Ctrl+Z)">Apply rates</button>
+          <button type="button" name="export-design-csv" @click=${() => this.exportCsv()}>Export CSV</button>` : nothing}
+      </div>
+      ${this.error ? html`<p class="dd-error" role="alert">${this.error}</p>` : nothing}
+      ${r ? this.renderResult(r) : html`<p class="dd-hint">Runs the design on the server: rates that bring every control point in each excavation to its target level at the design time, within each well's capacity and suction lift.</p>`}
+      <div class="dd-caution" role="note"><strong>Caution.</strong> ${CAUTION_TEXT}</div>
+    </div>`;
+  }
+
+  private renderResult(r: DesignResult) {
+    const sm = r.summary;
+    return html`
+      ${this.stale ? html`<p class="dd-warn">The scenario has changed since this design was run: run it again before using the numbers.</p>` : nothing}
+      <div class=${`dd-design-verdict ${r.feasible ? 'dd-yes' : 'dd-no'}`} role="status" data-feasible=${String(r.feasible)}>
+        ${r.feasible ? '✓ Feasible: every target met' : '✗ Not feasible: see the reasons below'} <small>(${r.mode})</small>
+      </div>
+      <div class="dd-badges">
+        ${r.excavations.map(
+          (e) => html`<div class=${`dd-badge ${e.met ? 'dd-met' : 'dd-short'}`} data-excavation=${e.id}>
+            <span class="dd-badge-icon" aria-hidden="true">${e.met ? '✓' : '!'}</span>
+            <span class="dd-badge-text"><strong>${e.id}</strong>
+              <span class="dd-badge-value">${e.met ? 'met' : 'not met'}, highest level ${fixed(e.critical.level_m)} m vs target ${fixed(e.targetLevel_m)} m (${e.worstShortfall_m > 0 ? '+' : ''}${fixed(e.worstShortfall_m * 100, 1)} cm)</span>
+              <small>critical point (${fixed(e.critical.x, 1)}, ${fixed(e.critical.y, 1)}), ${e.critical.kind};
+                ${e.timeToTarget_s !== null ? `target reached after ${formatDuration(e.timeToTarget_s)}` : r.designTime_s === null ? 'steady design' : 'target not reached by the design time'};
+                power failure: back at formation level after ${e.recoveryToFormation_s === null ? 'more than the checked span' : formatDuration(e.recoveryToFormation_s)}</small></span>
+          </div>`,
+        )}
+      </div>
+      ${r.reasons.length > 0 ? html`<h3>Why not</h3><ul class="dd-flags">${r.reasons.map((x) => html`<li class="dd-flag" data-code=${x.code}><strong>${x.code}</strong> ${x.message}</li>`)}</ul>` : nothing}
+      <h3>Flow and pumps</h3>
+      <dl class="dd-design-kv">
+        <dt>Total flow</dt><dd data-total>${lps(r.totalRate_m3_s)}</dd>
+        <dt>Design flow (× ${num(sm.safetyFactor)})</dt><dd>${lps(sm.designFlow_m3_s)}</dd>
+        ${sm.initialRate_m3_s !== null ? html`<dt>First ${formatDuration(sm.initialPeriod_s)} (storage draining)</dt><dd>${lps(sm.initialRate_m3_s)}</dd>` : nothing}
+        ${sm.maxWellHead_m !== null ? html`<dt>Deep-well head (largest)</dt><dd>${fixed(sm.maxWellHead_m, 1)} m</dd>` : nothing}
+        ${sm.headerSystemHead_m !== null ? html`<dt>Header pump head</dt><dd>${fixed(sm.headerSystemHead_m, 1)} m</dd>` : nothing}
+        <dt>Hydraulic / input power</dt><dd>${num(sm.hydraulicPower_kW)} / ${num(sm.inputPower_kW)} kW</dd>
+        <dt>Installed power (× safety factor)</dt><dd>${num(sm.installedPower_kW)} kW</dd>
+        <dt>Pumps (${num(sm.pumpCapacity_m3_s * 1000)} L/s each)</dt><dd>${sm.dutyPumps} duty + ${sm.standbyPumps} standby</dd>
+        ${sm.undersizedPumpWellIds.length > 0 ? html`<dt class="dd-bad">Need a larger pump</dt><dd class="dd-bad">${sm.undersizedPumpWellIds.slice(0, 6).join(', ')}${sm.undersizedPumpWellIds.length > 6 ? '…' : ''}</dd>` : nothing}
+        <dt>Energy over ${formatDuration(sm.duration_s)}</dt><dd>${money(sm.energy_kWh)} kWh</dd>
+        <dt>Discharge volume (permit)</dt><dd>${money(sm.dischargeVolume_m3)} m³</dd>
+        <dt>Cost: energy + volume + wells</dt><dd>${money(sm.energyCost)} + ${money(sm.pumpedVolumeCost)} + ${money(sm.wellCost)} = ${money(sm.totalCost)}</dd>
+        <dt>Quantities</dt><dd>${sm.quantities.wells} wells (${sm.quantities.wellsByKind.wellpoint} well points, ${sm.quantities.wellsByKind.deep} deep, ${sm.quantities.wellsByKind.ejector} ejectors), ${num(sm.quantities.screen_m)} m screen, ${num(sm.quantities.header_m)} m header</dd>
+      </dl>
+      <h3>Checks</h3>
+      <dl class="dd-design-kv">
+        ${r.quickCheck.map(
+          (q) => html`<dt title=${q.note}>Equivalent well, ${q.excavationId}</dt><dd data-quick-check>${q.equivalentWellInflow_m3_s === null ? '—' : lps(q.equivalentWellInflow_m3_s)}; ratio ${num(q.ratio, 2)}</dd>`,
+        )}
+        ${r.outOfService
+          ? html`<dt>${r.outOfService.wellId} out of service</dt><dd class=${r.outOfService.met ? 'dd-good' : 'dd-bad'}>${r.outOfService.met ? 'target still met' : `short by ${fixed(r.outOfService.worstShortfall_m * 100, 1)} cm`}</dd>
+            ${r.outOfService.chosenBy === 'option' ? html`<dt>Worst single well out</dt><dd>${r.outOfService.worstWellId}: ${fixed(r.outOfService.worstWellShortfall_m * 100, 1)} cm</dd>` : nothing}`
+          : nothing}
+        ${r.chosenWellIds ? html`<dt>Chosen to install</dt><dd>${r.chosenWellIds.length} of ${r.wells.length}</dd>` : nothing}
+      </dl>
+      ${r.timeSeries ? this.renderChart(r) : nothing}
+      <details class="dd-section-block"><summary><h3>Wells <small>${r.wells.filter((w) => w.rate_m3_s > 0).length} pumping</small></h3></summary>
+        <div class="dd-design-wells"><table class="dd-design-table">
+          <thead><tr><th>Well</th><th>L/s</th><th>cap. L/s</th><th>use</th><th>pumping level m</th><th>limit</th></tr></thead>
+          <tbody>${r.wells.map(
+            (w) => html`<tr data-well=${w.id}><td>${w.id}${w.installed ? '' : ' ·'}</td><td>${fixed(w.rate_m3_s * 1000, 3)}</td><td>${fixed(w.capacity_m3_s * 1000, 3)}</td>
+              <td>${w.utilisation === null ? '—' : `${Math.round(w.utilisation * 100)} %`}</td><td>${fixed(w.pumpingLevel_m)}</td><td>${w.limit ?? ''}</td></tr>`,
+          )}</tbody></table></div>
+      </details>
+      ${r.cautions.length > 0 ? html`<ul class="dd-flags">${r.cautions.map((c) => html`<li class="dd-flag">${c}</li>`)}</ul>` : nothing}
+      <details class="dd-model-notes"><summary>Model assumptions (${r.modelNotes.length})</summary><ul>${r.modelNotes.map((n) => html`<li>${n}</li>`)}</ul></details>`;
+  }
+
+  /** Level against log time at the critical point: pumping on, and recovery after every pump stops at the design time. */
+  private renderChart(r: DesignResult) {
+    const ts = r.timeSeries!;
+    const pumping = ts.pumping.filter((p) => p.time_s > 0);
+    const recovery = ts.recovery.filter((p) => p.time_s > 0);
+    if (pumping.length < 2) return nothing;
+    const W = 420, H = 210, L = 46, R = 10, T = 12, B = 30;
+    const times = [...pumping, ...recovery].map((p) => p.time_s);
+    const t0 = Math.log10(Math.min(...times));
+    const t1 = Math.log10(Math.max(...times));
+    const levels = [...pumping, ...recovery].map((p) => p.level_m).concat([ts.targetLevel_m, ts.formationLevel_m]);
+    const lo = Math.min(...levels);
+    const hi = Math.max(...levels);
+    const pad = Math.max((hi - lo) * 0.08, 0.05);
+    const x = linearScale(t0, t1, L, W - R);
+    const y = linearScale(lo - pad, hi + pad, H - B, T);
+    const path = (pts: typeof pumping) => pts.map((p, i) => `${i ? 'L' : 'M'}${x(Math.log10(p.time_s)).toFixed(1)},${y(p.level_m).toFixed(1)}`).join('');
+    const decades: number[] = [];
+    for (let d = Math.ceil(t0); d <= Math.floor(t1); d++) decades.push(d);
+    const yTicks = niceTicks(lo - pad, hi + pad, 5);
+    const stop = Math.log10(ts.stop_s);
+    return html`<h3>Level at the critical point <small>${ts.excavationId} (${fixed(ts.x, 1)}, ${fixed(ts.y, 1)})</small></h3>
+      <svg class="dd-chart" viewBox="0 0 ${W} ${H}" role="img" aria-label="Level against time at the critical point">
+        ${yTicks.map((v) => svg`<line class="dd-grid" x1=${L} x2=${W - R} y1=${y(v)} y2=${y(v)}></line><text class="dd-tick" x=${L - 4} y=${y(v) + 3} text-anchor="end">${num(v, 4)}</text>`)}
+        ${decades.map((d) => svg`<line class="dd-grid" x1=${x(d)} x2=${x(d)} y1=${T} y2=${H - B}></line><text class="dd-tick" x=${x(d)} y=${H - B + 13} text-anchor="middle">${formatDuration(10 ** d)}</text>`)}
+        <line class="dd-target" x1=${L} x2=${W - R} y1=${y(ts.targetLevel_m)} y2=${y(ts.targetLevel_m)}></line>
+        <line class="dd-formation" x1=${L} x2=${W - R} y1=${y(ts.formationLevel_m)} y2=${y(ts.formationLevel_m)}></line>
+        ${stop >= t0 && stop <= t1 ? svg`<line class="dd-now" x1=${x(stop)} x2=${x(stop)} y1=${T} y2=${H - B}></line>` : nothing}
+        <path class="dd-curve" d=${path(pumping)}></path>
+        ${recovery.length > 1 ? svg`<path class="dd-recovery" d=${path(recovery)}></path>` : nothing}
+        <text class="dd-axis" x=${12} y=${T + (H - B - T) / 2} transform="rotate(-90 12 ${T + (H - B - T) / 2})" text-anchor="middle">level (m)</text>
+        <text class="dd-axis" x=${L + (W - R - L) / 2} y=${H - 3} text-anchor="middle">time since pumping started (log)</text>
+      </svg>
+      <ul class="dd-section-key">
+        <li><span class="dd-k dd-k-water"></span>pumping on</li>
+        <li><span class="dd-k dd-k-recovery"></span>all pumps stop at ${formatDuration(ts.stop_s)}</li>
+        <li><span class="dd-k dd-k-target"></span>target</li>
+        <li><span class="dd-k dd-k-formation"></span>formation level</li>
+      </ul>`;
   }
 }
+/** The panel's few styles of its own, added once to the page (elements render without shadow roots). */
+function installStyle(): void {
+  if (typeof document === 'undefined' || document.getElementById('dd-design-panel-style')) return;
+  const style = document.createElement('style');
+  style.id = 'dd-design-panel-style';
+  style.textContent = STYLE;
+  document.head.append(style);
+}
+installStyle();
 if (!customElements.get('design-panel')) customElements.define('design-panel', DesignPanel);

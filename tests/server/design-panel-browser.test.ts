@@ -1,0 +1,68 @@
+/**
+ * <design-panel> in a real browser against the real server (own server on a random 127.0.0.1
+ * port, Debian's Chromium headless, via the shared browser harness): run a design, see the
+ * verdict, badges, flow, pumps, quick check and the time chart, export CSV, and apply the rates.
+ * Needs the built client (npm run build). Screenshots under artifacts/browser/.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { openPlanMap, fieldsDrawn, settle, type BrowserSession } from '../browser/browser-harness';
+
+let s: BrowserSession;
+let page: Page;
+
+beforeAll(async () => {
+  s = await openPlanMap();
+  page = s.page;
+}, 60_000);
+
+afterAll(async () => {
+  await s?.close();
+});
+
+describe('<design-panel>', () => {
+  it('runs a design for the deep-well demo and shows the summary, the chart and the critical point', async () => {
+    const before = await fieldsDrawn(page);
+    await page.selectOption('select[name="demo"]', 'deepwells');
+    await settle(page, before);
+    await page.click('button[name="tab-design"]');
+    await page.click('design-panel input[name="design-mode"][value="optimal"]');
+    await page.click('design-panel button[name="run-design"]');
+    await page.waitForSelector('design-panel .dd-design-verdict', { timeout: 60_000 });
+    expect(await page.locator('design-panel .dd-design-verdict').getAttribute('data-feasible')).toBe('true');
+    expect(await page.locator('design-panel .dd-badge[data-excavation="basement"]').innerText()).toMatch(/met, highest level 6\.50 m vs target 6\.50 m/);
+    expect(await page.locator('design-panel [data-total]').innerText()).toMatch(/L\/s \(.* m³\/h\)/);
+    expect(await page.locator('design-panel [data-quick-check]').first().innerText()).toMatch(/ratio \d/);
+    expect(await page.locator('design-panel svg.dd-chart path.dd-curve').count()).toBe(1);
+    expect(await page.locator('design-panel svg.dd-chart path.dd-recovery').count()).toBe(1);
+    expect(await page.locator('design-panel .dd-caution').innerText()).toMatch(/licensed engineer/);
+    await s.screenshot('design-panel-result');
+    expect(s.errors).toEqual([]);
+  }, 90_000);
+
+  it('exports the design as CSV', async () => {
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('design-panel button[name="export-design-csv"]')]);
+    const stream = await download.createReadStream();
+    let text = '';
+    for await (const chunk of stream) text += String(chunk);
+    expect(text.split('\r\n')[0]).toBe('quantity,value,unit');
+    expect(text).toMatch(/\r\nfeasible,yes,\r\n/);
+  });
+
+  it('applies the solved rates to the wells', async () => {
+    await page.click('design-panel button[name="apply-rates"]');
+    await expect.poll(() => page.locator('.dd-notice').innerText()).toMatch(/Applied design rates to 6 wells/);
+  });
+
+  it('shows the reasons when the target cannot be met', async () => {
+    const before = await fieldsDrawn(page);
+    await page.selectOption('select[name="demo"]', 'wellpoints');
+    await settle(page, before);
+    await page.click('button[name="tab-design"]');
+    await page.click('design-panel input[name="design-mode"][value="uniform"]');
+    await page.click('design-panel button[name="run-design"]');
+    await page.waitForSelector('design-panel .dd-design-verdict[data-feasible="false"]', { timeout: 60_000 });
+    expect(await page.locator('design-panel .dd-flag[data-code="suction-lift"]').count()).toBeGreaterThan(0);
+    await s.screenshot('design-panel-infeasible');
+  }, 90_000);
+});

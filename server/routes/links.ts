@@ -13,6 +13,7 @@ import { createSiteProjection, DESIGN_CAUTIONS, buildSetoutRows } from '../../sh
 import { hashShareToken, isTokenShaped, type LinkRecord, type RevisionRecord, type ScenarioStore } from '../storage';
 import {
   ExportFormatSchema,
+  SMALL_BODY_LIMIT_BYTES,
   ReadingBodySchema,
   SaveBodySchema,
   TokenParamsSchema,
@@ -112,7 +113,7 @@ const routes = async (app: FastifyInstance) => {
 
   app.post<{ Params: Static<typeof TokenParamsSchema>; Body: Static<typeof ReadingBodySchema> }>(
     '/links/:token/readings',
-    { schema: { summary: 'Enter a site reading (edit links only)', description: 'A view link answers 403 DRYDIG_ERR_LINK_READ_ONLY: a view token can never write.', tags: ['links'], params: TokenParamsSchema, body: ReadingBodySchema }, config: writeRateLimit() },
+    { bodyLimit: SMALL_BODY_LIMIT_BYTES, schema: { summary: 'Enter a site reading (edit links only)', description: 'A view link answers 403 DRYDIG_ERR_LINK_READ_ONLY: a view token can never write.', tags: ['links'], params: TokenParamsSchema, body: ReadingBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const opened = await openLink(store, request.params.token);
       requireEdit(opened, 'enter readings');

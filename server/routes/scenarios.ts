@@ -13,6 +13,7 @@ import { DrydigError } from '../../shared/schema';
 import { openScenarioStore, type RevisionRecord, type ScenarioStore } from '../storage';
 import {
   ExportFormatSchema,
+  SMALL_BODY_LIMIT_BYTES,
   LinkCreateBodySchema,
   ReadingBodySchema,
   RevisionParamSchema,
@@ -120,7 +121,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.post<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof RestoreBodySchema> }>(
     '/scenarios/:id/restore',
-    { schema: { summary: 'Restore an old revision as a new revision', description: 'Copies revision `revision` into a new revision on top of `baseRevision` (409 when that is stale); the history keeps everything.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: RestoreBodySchema }, config: writeRateLimit() },
+    { bodyLimit: SMALL_BODY_LIMIT_BYTES, schema: { summary: 'Restore an old revision as a new revision', description: 'Copies revision `revision` into a new revision on top of `baseRevision` (409 when that is stale); the history keeps everything.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: RestoreBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const old = await requireRevision(store, request.params.id, request.body.revision);
       const outcome = await store.saveRevision({
@@ -171,7 +172,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.post<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof ReadingBodySchema> }>(
     '/scenarios/:id/readings',
-    { schema: { summary: 'Enter a site reading', description: 'Appends a piezometer reading; time since pumping started comes from measuredAt and monitoring.pumpingStart, or from time_s.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: ReadingBodySchema }, config: writeRateLimit() },
+    { bodyLimit: SMALL_BODY_LIMIT_BYTES, schema: { summary: 'Enter a site reading', description: 'Appends a piezometer reading; time since pumping started comes from measuredAt and monitoring.pumpingStart, or from time_s.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: ReadingBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const latest = await requireLatest(store, request.params.id);
       const reading = await storeReading(store, latest, request.body);
@@ -181,7 +182,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
 
   app.post<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof LinkCreateBodySchema> }>(
     '/scenarios/:id/links',
-    { schema: { summary: 'Create a share link', description: 'A view-only or edit link with a 256-bit token (shown once; only its SHA-256 is stored), pinned to a revision or following the latest. sitePath opens the site view.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: LinkCreateBodySchema }, config: writeRateLimit() },
+    { bodyLimit: SMALL_BODY_LIMIT_BYTES, schema: { summary: 'Create a share link', description: 'A view-only or edit link with a 256-bit token (shown once; only its SHA-256 is stored), pinned to a revision or following the latest. sitePath opens the site view.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: LinkCreateBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const pinned = request.body.revision ?? null;
       await requireRevision(store, request.params.id, pinned ?? undefined);

@@ -69,6 +69,20 @@ describe('body size limit', () => {
   });
 });
 
+describe('small-body routes', () => {
+  it('refuse a reading or link request over 16 KiB with 413, whatever the service limit', async () => {
+    const app = await memoryApp();
+    const id = await createStored(app, demoScenario('confined'));
+    const link = await app.inject({ method: 'POST', url: `/api/v1/scenarios/${id}/links`, payload: { mode: 'view', label: 'x'.repeat(17 * 1024) } });
+    expect(link.statusCode).toBe(413);
+    expect(link.json().error.code).toBe('DRYDIG_ERR_BODY_TOO_LARGE');
+    const reading = await app.inject({ method: 'POST', url: `/api/v1/scenarios/${id}/readings`, payload: { piezometerId: 'P', level_m: 1, note: 'n'.repeat(17 * 1024) } });
+    expect(reading.statusCode).toBe(413);
+    expect((await app.inject({ method: 'GET', url: `/api/v1/scenarios/${id}/links` })).json().links).toEqual([]);
+    await app.close();
+  });
+});
+
 describe('static serving', () => {
   let root: string;
   let clientDir: string;

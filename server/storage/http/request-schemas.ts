@@ -6,6 +6,9 @@
 import { Type } from '@sinclair/typebox';
 import { TOKEN_PATTERN } from '../tokens';
 
+/** Body limit of the routes that take a few fields only (readings, links, restore), bytes. */
+export const SMALL_BODY_LIMIT_BYTES = 16 * 1024;
+
 /** Scenario ids: 16 random bytes, base64url. */
 export const SCENARIO_ID_PATTERN = '^[A-Za-z0-9_-]{22}$';
 /** Link ids: 9 random bytes, base64url. */

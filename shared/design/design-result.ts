@@ -80,6 +80,7 @@ export const DesignExcavationResultSchema = Type.Object({
   criticalRecoveryToFormation_s: NullableNum('The same at the critical point, s.'),
   controlPointCount: Num('Control points used (design grid plus points added in refinement).'),
   checkPointCount: Num('Check points (twice as dense) the result was verified on.'),
+  pointsAboveTarget: Num('Check points where the computed level stays above the target (0 when met).'),
 });
 export type DesignExcavationResult = Static<typeof DesignExcavationResultSchema>;
 

@@ -302,10 +302,12 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     let at = -1;
     let designCount = 0;
     let checkCount = 0;
+    let above = 0;
     checkPoints.forEach((p, i) => {
       if (p.excavationId !== e.id) return;
       checkCount++;
       const over = pointResults[i]!.level_m - p.targetLevel_m;
+      if (over > 0) above++;
       if (over > worst) {
         worst = over;
         at = i;
@@ -325,6 +327,7 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
       criticalRecoveryToFormation_s: null,
       controlPointCount: designCount + [...inDesign].filter((i) => checkPoints[i]!.excavationId === e.id).length,
       checkPointCount: checkCount,
+      pointsAboveTarget: above,
     };
   });
   const userPointsMet = checkPoints.every((p, i) => p.excavationId !== null || pointResults[i]!.level_m <= p.targetLevel_m);
@@ -394,7 +397,7 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
       reasons.unshift({
         code: reasons[0]?.code ?? 'solver',
         excavationId: e.id,
-        message: `Excavation "${e.id}" is not met: best achievable level ${fmt(e.critical.level_m, 4)} m at (${fmt(e.critical.x, 8)}, ${fmt(e.critical.y, 8)}), ${fmt(e.worstShortfall_m)} m above its target ${fmt(e.targetLevel_m, 4)} m.`,
+        message: `Excavation "${e.id}" is not met: ${e.pointsAboveTarget} of ${e.checkPointCount} check points stay above the target ${fmt(e.targetLevel_m, 4)} m; best achievable level ${fmt(e.critical.level_m, 4)} m at (${fmt(e.critical.x, 8)}, ${fmt(e.critical.y, 8)}), ${fmt(e.worstShortfall_m)} m above the target (the control points are listed in controlPoints).`,
       });
 
   const feasible =

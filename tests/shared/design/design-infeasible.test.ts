@@ -16,7 +16,8 @@ describe('runDesign when the target cannot be reached', () => {
     expect(codes(result)).toContain('suction-lift');
     expect(result.excavations[0]!.met).toBe(false);
     expect(result.excavations[0]!.worstShortfall_m).toBeGreaterThan(0);
-    expect(result.reasons.some((r) => /best achievable level/.test(r.message))).toBe(true);
+    expect(result.excavations[0]!.pointsAboveTarget).toBeGreaterThan(0);
+    expect(result.reasons.some((r) => /check points stay above the target .*best achievable level/.test(r.message))).toBe(true);
   });
 
   it('names the well capacity: small wells with short screens', async () => {

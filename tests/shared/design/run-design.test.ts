@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { runDesign, applyDesignRates, type DesignResult } from '../../../shared/design';
+import { Value } from '@sinclair/typebox/value';
+import { runDesign, applyDesignRates, DesignResultSchema, type DesignResult } from '../../../shared/design';
 import { evaluatePoints } from '../../../shared/field';
 import { isPointInPolygon } from '../../../shared/geometry';
 import type { Scenario } from '../../../shared/schema';
@@ -111,6 +112,7 @@ describe('runDesign on the demo sites', () => {
       const s = scenario();
       const result = await runDesign({ scenario: s, mode });
       expect(result.feasible, JSON.stringify(result.reasons)).toBe(true);
+      expect(Value.Check(DesignResultSchema, result)).toBe(true);
       checkReachesTargets(s, result);
       for (const w of result.wells) {
         if (w.rate_m3_s === 0) continue;
@@ -119,6 +121,15 @@ describe('runDesign on the demo sites', () => {
       }
     });
   }
+
+  it('flags unconfined points drawn down more than about 25 % of the saturated thickness', async () => {
+    // Ring pit drawn from 10 m to a target of −1.5 m over a 30 m saturated thickness: 11.5 m, 38 %.
+    const s = ringScenario({ kind: 'unconfined', n: 8, ringRadius_m: 20, pitRadius_m: 12 });
+    s.excavations = [{ ...s.excavations[0]!, formationLevel_m: -1, margin_m: 0.5 }];
+    const result = await runDesign({ scenario: s, mode: 'uniform' });
+    expect(result.cautions.some((c) => /more than about 25 % of the saturated thickness/.test(c))).toBe(true);
+    expect(result.controlPoints.some((p) => p.flags.includes('large-drawdown'))).toBe(true);
+  });
 
   it('per-well optimum pumps no more in total than the uniform rate', async () => {
     for (const make of [() => fixture('demo-deepwells-confined'), wellpointDemoInTrench]) {

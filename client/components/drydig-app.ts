@@ -11,7 +11,7 @@ import demoDeepwells from '../../fixtures/demo-deepwells-confined.json';
 import { validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
 import { logSpacedTimes } from '../../shared/field';
 import { isPointInPolygon } from '../../shared/geometry';
-import { formatQuantity, resolveDisplayUnits, type DisplayUnits, type UnitSystem } from '../../shared/units';
+import { formatQuantity, resolveDisplayUnits, toSi, type DisplayUnits, type UnitSystem } from '../../shared/units';
 import { ScenarioStore, getViewSettings, setViewSettings, type ChangeKind, type ContourQuantity, type SectionLine } from '../state';
 import { EngineClient, EngineError, type FieldResult, type InspectResult, type SectionResult } from '../worker';
 import { resolveSiteProjection, formatLonLat, type ProjectionProblem, type SiteProjection } from '../crs';
@@ -200,6 +200,7 @@ export class DrydigApp extends LightElement {
       return;
     }
     this.scenario = s;
+    this.cursor = '';
     if (kind === 'load') {
       this.wellId = null;
       this.excavationId = null;
@@ -234,7 +235,7 @@ export class DrydigApp extends LightElement {
     c.setScenario(s, { wellId: this.wellId, excavationId: this.excavationId });
     c.setImperialScale(this.unitSystem === 'us');
     const u = this.units;
-    c.setGridLabelFormat((v) => formatQuantity(v, u.length, { decimals: 0 }));
+    c.setGridUnit(toSi(1, u.length), (v) => formatQuantity(v, u.length, { decimals: 0 }));
     c.setUnderlay(view.underlay ?? null);
     this.projection = resolveSiteProjection({ crs: s.crs, proj4: s.proj4 });
     c.setTiles(view.tileUrl ?? null, this.projection.ok ? this.projection : null);
@@ -263,7 +264,7 @@ export class DrydigApp extends LightElement {
 
   private fieldStyle(r: FieldResult | null) {
     const u = this.units;
-    const step = r && r.levels.length > 1 ? Math.abs(r.levels[1]! - r.levels[0]!) : 1;
+    const step = r && r.levels.length > 1 ? Math.abs(r.levels[1]! - r.levels[0]!) / toSi(1, u.length) : 1;
     const decimals = stepDecimals(step);
     return {
       formatLevel: (v: number) => formatQuantity(v, u.length, { decimals, withUnit: false }),
@@ -287,6 +288,7 @@ export class DrydigApp extends LightElement {
       const res = await engine.field(
         {
           scenario: this.store.scenario, grid, time_s: this.time_s, quantity: this.quantity, step_m: view.contour?.step_m,
+          levelUnit_m: toSi(1, this.units.length),
           pitNodes: mode === 'coarse' ? 17 : 41, strips: mode === 'coarse' ? 1 : 6,
         },
         mode === 'fine' ? (f) => (this.computing = f < 1 ? f : -1) : undefined,

@@ -6,7 +6,7 @@
 import { html, nothing } from 'lit';
 import { LightElement } from './light-element';
 import type { FieldResult } from '../worker/engine-protocol';
-import { formatQuantity, type DisplayUnits } from '../../shared/units';
+import { formatQuantity, toSi, type DisplayUnits } from '../../shared/units';
 import { drawdownColour } from '../map/colour-scale';
 import { FLAG_LABELS } from './flag-labels';
 import { formatDuration } from './time-format';
@@ -50,7 +50,7 @@ export class MapLegend extends LightElement {
         <span style="width:${Math.round(this.computing * 100)}%"></span><em>Computing ${Math.round(this.computing * 100)} %</em></div>` : nothing}
       ${r && levels.length > 0 ? html`<ol class="dd-scale">${ordered.slice(0, 16).map(({ lv, next }) => html`<li>
           <span class="dd-swatch" style="background:${drawdownColour(Math.abs(toDrawdown((lv + next) / 2)) / dmax)}"></span>
-          ${formatQuantity(lv, u.length, { decimals: levelDecimals(levels) })}</li>`)}</ol>`
+          ${formatQuantity(lv, u.length, { decimals: levelDecimals(levels, toSi(1, u.length)) })}</li>`)}</ol>`
         : html`<p class="dd-hint">${r ? 'Flat field: no contours at this time.' : 'No results yet.'}</p>`}
       <ul class="dd-symbols">
         <li><span class="dd-sym dd-sym-wellpoint"></span>Well point</li>
@@ -67,8 +67,8 @@ export class MapLegend extends LightElement {
   }
 }
 
-function levelDecimals(levels: number[]): number {
-  const step = levels.length > 1 ? Math.abs(levels[1]! - levels[0]!) : 1;
+function levelDecimals(levels: number[], unit_m: number): number {
+  const step = levels.length > 1 ? Math.abs(levels[1]! - levels[0]!) / unit_m : 1;
   return Math.max(1, stepDecimals(step));
 }
 if (!customElements.get('map-legend')) customElements.define('map-legend', MapLegend);

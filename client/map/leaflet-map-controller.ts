@@ -115,7 +115,10 @@ export class LeafletMapController {
     this.scale = L.control.scale({ position: 'bottomleft', metric: !imperial, imperial, maxWidth: 160 }).addTo(this.map);
   }
 
-  setGridLabelFormat(format: (value_m: number) => string): void {
+  /** Plan-grid interval in a display unit (metres per unit) with its label format. */
+  setGridUnit(unit_m: number, format: (value_m: number) => string): void {
+    if (this.grid.unit_m === unit_m && this.grid.formatCoordinate === format) return;
+    this.grid.unit_m = unit_m;
     this.grid.formatCoordinate = format;
     this.grid.redraw();
   }

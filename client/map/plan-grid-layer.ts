@@ -9,6 +9,8 @@ import { CanvasOverlay } from './canvas-overlay';
 export class PlanGridLayer extends CanvasOverlay {
   /** Coordinate label text for a value in metres (display units decided by the app). */
   formatCoordinate: (value_m: number) => string = (v) => `${v}`;
+  /** Metres per display unit: grid lines fall on round numbers of it (1 m, or 0.3048 for feet). */
+  unit_m = 1;
 
   constructor() {
     super('tilePane', 'dd-plan-grid');
@@ -20,7 +22,7 @@ export class PlanGridLayer extends CanvasOverlay {
     const ne = map.containerPointToLatLng([size.x, 0]);
     const widthM = ne.lng - sw.lng;
     const metresPerPx = widthM / Math.max(1, size.x);
-    const step = niceGridStep(metresPerPx * 90);
+    const step = niceGridStep((metresPerPx * 90) / this.unit_m) * this.unit_m;
     ctx.fillStyle = '#f6f5f1';
     ctx.fillRect(0, 0, size.x, size.y);
     const drawLines = (interval: number, colour: string, width: number) => {

@@ -22,6 +22,8 @@ export interface FieldRequest {
   quantity: FieldQuantity;
   /** Contour interval, m; absent = a round step for about 12 levels. */
   step_m?: number;
+  /** Metres per display length unit (1, or 0.3048 for feet): automatic levels are round in it. Default 1. */
+  levelUnit_m?: number;
   /** Nodes per side of each excavation's own grid for the shortfall (default 41). */
   pitNodes?: number;
   /** Row strips to compute in, with a progress message and a cancel check after each (default 1). */

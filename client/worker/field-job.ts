@@ -155,7 +155,9 @@ export async function runFieldJob(req: FieldRequest, hooks: JobHooks = {}): Prom
   const modelled = (arr: Float64Array) => (g.flagCounts['beyond-boundary'] > 0 ? arr.map((v, k) => (g.flags[k]! & FLAG_BITS['beyond-boundary'] ? Number.NaN : v)) : arr);
   const range = finiteRange(modelled(values));
   const drawdownRange = finiteRange(modelled(g.drawdown_m));
-  const levels = niceContourLevels({ min: range.min, max: range.max, targetCount: 12, step: req.step_m, maxCount: 60 });
+  // Automatic levels are round numbers in the user's length unit (0.5 ft, not 0.1524 m).
+  const unit = req.step_m === undefined && req.levelUnit_m && req.levelUnit_m > 0 ? req.levelUnit_m : 1;
+  const levels = niceContourLevels({ min: range.min / unit, max: range.max / unit, targetCount: 12, step: req.step_m, maxCount: 60 }).map((v) => v * unit);
   // Ground beyond a boundary line is outside the modelled aquifer: no contours there.
   const beyond = FLAG_BITS['beyond-boundary'];
   const holes = g.flagCounts['beyond-boundary'] > 0 ? Uint8Array.from(g.flags, (f) => (f & beyond ? 1 : 0)) : undefined;

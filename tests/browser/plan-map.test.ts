@@ -200,18 +200,28 @@ describe('the plan-map page', () => {
   it('switches to US customary units: feet, gpm and ft/d, stored values unchanged', async () => {
     await loadDemo(page, 'wellpoints');
     const metres = Number(/(\d+\.\d\d) m to spare/.exec(await badgeText(page, 'pit-A'))![1]);
+    const before = await fieldsDrawn(page);
     await page.click('button[name="units-us"]');
+    await settle(page, before);
     await expect.poll(() => badgeText(page, 'pit-A')).toMatch(/\d+\.\d\d ft to spare/);
     const feet = Number(/(\d+\.\d\d) ft to spare/.exec(await badgeText(page, 'pit-A'))![1]);
     // 1 ft = 0.3048 m exactly (NIST SP 811); both figures are rounded to 0.01.
     expect(Math.abs(feet * 0.3048 - metres)).toBeLessThan(0.01);
+    // Automatic contour levels are round numbers in feet, not converted metres.
+    const legend = (await page.locator('map-legend .dd-scale li').allInnerTexts()).map((t) => Number.parseFloat(t));
+    expect((await page.locator('map-legend .dd-scale li').first().innerText())).toMatch(/ft$/);
+    const step = Math.abs(legend[0]! - legend[1]!);
+    expect([0.25, 0.5, 1, 2, 2.5, 5]).toContain(Number(step.toFixed(6)));
+    for (const v of legend) expect(Math.abs(v / step - Math.round(v / step))).toBeLessThan(1e-6);
     await page.click('button[name="tab-layout"]');
     expect(await page.locator('.dd-well-list button[data-well="WP01"]').innerText()).toMatch(/9\.51\s*gpm/); // 0.0006 m³/s = 9.51 gpm
     await page.click('button[name="tab-ground"]');
     expect(await page.locator('ground-panel input[name="conductivity_m_s"]').inputValue()).toBe('56.69'); // 2e-4 m/s × 86400 / 0.3048 = 56.69 ft/d
     expect(await page.locator('.leaflet-control-scale-line').first().innerText()).toMatch(/ft|mi/);
     await s.screenshot('08-us-units');
+    const before2 = await fieldsDrawn(page);
     await page.click('button[name="units-si"]');
+    await settle(page, before2);
     await expect.poll(() => badgeText(page, 'pit-A')).toMatch(/m to spare/);
   });
 
@@ -228,6 +238,7 @@ describe('the plan-map page', () => {
 
   it('draws a section line and shows ground, target, water level and the wells it cuts', async () => {
     await loadDemo(page, 'deepwells');
+    if (await page.locator('.dd-drawer .dd-close').count()) await page.click('.dd-drawer .dd-close');
     await page.click('button[name="tool-section"]');
     // Diagonally through DW1, across the pit, through DW3.
     await clickSite(page, 389180, 5819380);

@@ -6,6 +6,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { createSiteProjection, csvCell, knownProj4Definition, writeSetoutCsv } from '../../../shared/exports';
 import type { Scenario } from '../../../shared/schema';
+import { resolveSiteProjection } from '../../../client/crs';
 import { expectClose } from './export-test-helpers';
 
 const demo = (file: string) => JSON.parse(readFileSync(new URL(`../../../fixtures/${file}`, import.meta.url), 'utf8')) as Scenario;
@@ -35,6 +36,20 @@ describe('createSiteProjection(scenario)', () => {
     const [lon, lat] = createSiteProjection({ crs })!.toLonLat(x, y);
     expectClose(lon, lon0, { abs: 1e-9 }, 'UTM central meridian: false easting 500 000 m');
     expectClose(lat, lat0, { abs: 1e-9 }, 'UTM equator: false northing 0 (N) / 10 000 000 m (S)');
+  });
+
+  it.each([
+    ['EPSG:32633', 389194, 5819394], ['EPSG:32755', 320000, 5810000], ['EPSG:25832', 690000, 5335000], ['EPSG:26918', 585000, 4510000],
+    ['EPSG:27700', 530000, 180000], ['EPSG:2154', 652000, 6862000], ['EPSG:28992', 121000, 487000], ['EPSG:2056', 2683000, 1248000],
+  ])('agrees with the site view’s projection registry for %s (set-out lat/lon = GPS placement)', (crs, x, y) => {
+    const server = createSiteProjection({ crs })!;
+    const client = resolveSiteProjection({ crs });
+    expect(client.ok).toBe(true);
+    if (!client.ok) return;
+    const [lon1, lat1] = server.toLonLat(x, y);
+    const [lon2, lat2] = client.toLonLat(x, y);
+    expectClose(lon1, lon2, { abs: 1e-9 }, 'same proj4 definition in both');
+    expectClose(lat1, lat2, { abs: 1e-9 }, 'same proj4 definition in both');
   });
 
   it('gives no projection for a local grid or a CRS it cannot resolve', () => {

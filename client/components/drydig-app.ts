@@ -12,7 +12,7 @@ import { validateScenario, type FieldIssue, type Scenario, type Well, type WellK
 import { logSpacedTimes } from '../../shared/field';
 import { isPointInPolygon } from '../../shared/geometry';
 import { formatQuantity, resolveDisplayUnits, toSi, type DisplayUnits, type UnitSystem } from '../../shared/units';
-import { ScenarioStore, getViewSettings, setViewSettings, type ChangeKind, type ContourQuantity, type SectionLine } from '../state';
+import { ScenarioStore, checkViewSettings, getViewSettings, setViewSettings, type ChangeKind, type ContourQuantity, type SectionLine } from '../state';
 import { EngineClient, EngineError, type FieldResult, type InspectResult, type SectionResult } from '../worker';
 import { resolveSiteProjection, formatLonLat, type ProjectionProblem, type SiteProjection } from '../crs';
 import type { LeafletMapController, MapTool } from '../map';
@@ -539,9 +539,14 @@ export class DrydigApp extends LightElement {
       const first = v.issues.slice(0, 3).map((i) => `${i.path} ${i.message}`).join('; ');
       return this.say(`${file.name} was not opened — ${first}${v.issues.length > 3 ? ` (+${v.issues.length - 3} more)` : ''}. Your current scenario is unchanged.`);
     }
+    const viewIssues = checkViewSettings(v.scenario);
+    const scenario = v.scenario as Scenario & { view?: unknown };
+    if (viewIssues.length > 0) delete scenario.view;
     this.demo = '';
-    this.store.load(v.scenario);
-    this.say(`Opened ${file.name}.`);
+    this.store.load(scenario);
+    this.say(viewIssues.length > 0
+      ? `Opened ${file.name}; its view settings were ignored (${viewIssues[0]!.path} ${viewIssues[0]!.message}) — the design data is intact.`
+      : `Opened ${file.name}.`);
   }
 
   private saveFile(): void {

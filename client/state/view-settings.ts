@@ -3,8 +3,12 @@
  * extra top-level fields). It holds what the plan map needs to show a scenario the same way next
  * time — never anything the engine reads. Reading is defensive: a saved file may carry anything.
  */
-import type { Scenario } from '../../shared/schema';
+import { TypeCompiler } from '@sinclair/typebox/compiler';
+import { ViewSchema, type FieldIssue, type Scenario } from '../../shared/schema';
 import type { UnitSystem } from '../../shared/units';
+
+const viewCheck = TypeCompiler.Compile(ViewSchema);
+const checked = new WeakMap<object, boolean>();
 
 /** A site-plan image placed by two reference points: image pixel → site metres. */
 export interface UnderlaySettings {
@@ -44,10 +48,32 @@ export interface ViewSettings {
   sections?: SectionLine[];
 }
 
-/** The view settings of a scenario, or an empty object. */
+/**
+ * The view settings of a scenario, or an empty object when there are none or they do not match
+ * `ViewSchema` (a hand-edited file must not break the map; `checkViewSettings` says what is wrong).
+ */
 export function getViewSettings(scenario: Scenario): ViewSettings {
   const v = (scenario as Record<string, unknown>).view;
-  return v && typeof v === 'object' && !Array.isArray(v) ? (v as ViewSettings) : {};
+  if (!v || typeof v !== 'object' || Array.isArray(v)) return {};
+  let ok = checked.get(v);
+  if (ok === undefined) {
+    ok = viewCheck.Check(v);
+    checked.set(v, ok);
+  }
+  return ok ? (v as ViewSettings) : {};
+}
+
+/** Problems with a scenario's `view` section, each naming its JSON pointer (at most 5). */
+export function checkViewSettings(scenario: Scenario): FieldIssue[] {
+  const v = (scenario as Record<string, unknown>).view;
+  if (v === undefined) return [];
+  if (!v || typeof v !== 'object' || Array.isArray(v)) return [{ path: '/view', message: 'must be an object' }];
+  const issues: FieldIssue[] = [];
+  for (const e of viewCheck.Errors(v)) {
+    issues.push({ path: `/view${e.path}`, message: e.message.replace(/^Expected/, 'must be').toLowerCase() });
+    if (issues.length >= 5) break;
+  }
+  return issues;
 }
 
 /** Sets `view` on a draft scenario (inside a store `apply`). */

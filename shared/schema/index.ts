@@ -3,3 +3,4 @@ export * from './validate-scenario';
 export * from './error-table';
 export * from './design-options-schema';
 export * from './monitoring-schema';
+export * from './view-schema';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ScenarioStore, getViewSettings, setViewSettings } from '../../../client/state';
+import { ScenarioStore, checkViewSettings, getViewSettings, setViewSettings } from '../../../client/state';
 import demo from '../../../fixtures/demo-wellpoints-unconfined.json';
 import type { Scenario } from '../../../shared/schema';
 
@@ -99,5 +99,23 @@ describe('view settings live in the optional top-level "view" object', () => {
     setViewSettings(draft, { contour: { quantity: 'level' } });
     expect(getViewSettings(draft)).toEqual({ units: { system: 'us' }, contour: { quantity: 'level' } });
     expect(draft.wells).toEqual(base.wells);
+  });
+});
+
+describe('checkViewSettings(scenario) validates the view section against ViewSchema', () => {
+  it('accepts what the client writes', () => {
+    const s = { ...base, view: { units: { system: 'us' }, contour: { quantity: 'level', step_m: 0.5 }, sections: [{ from: [0, 0], to: [10, 0] }] } } as unknown as Scenario;
+    expect(checkViewSettings(s)).toEqual([]);
+    expect(getViewSettings(s).contour?.quantity).toBe('level');
+  });
+  it('names the bad field and getViewSettings ignores a malformed view rather than failing later', () => {
+    const s = { ...base, view: { underlay: { imageDataUrl: 'data:image/png;base64,AAAA', width_px: 10, height_px: 10, refs: 5 } } } as unknown as Scenario;
+    const issues = checkViewSettings(s);
+    expect(issues[0]!.path).toBe('/view/underlay/refs');
+    expect(getViewSettings(s)).toEqual({});
+  });
+  it('refuses a tile URL that is not https', () => {
+    const s = { ...base, view: { tileUrl: 'http://tiles.example/{z}/{x}/{y}.png' } } as unknown as Scenario;
+    expect(checkViewSettings(s)[0]!.path).toBe('/view/tileUrl');
   });
 });

@@ -61,6 +61,7 @@ export async function renderExport(format: ExportFormat, source: ExportSource): 
         projection,
         revision: record,
         results: plan.results,
+        resultsError: plan.error ?? null,
         design: design.design,
         designError: design.error,
         monitoring: monitoringPlanFor(scenario, source.readings),

@@ -21,6 +21,8 @@ export interface ReportOptions {
   /** Revision metadata of what is reported. */
   revision?: { revision: number; savedAt: string; savedBy: string; sha256?: string };
   results?: PlanResults;
+  /** Why the field could not be computed, when it could not (shown instead of the plan's levels). */
+  resultsError?: string | null;
   /** Design solver result, when one was run. */
   design?: DesignResult | null;
   /** Why the design solver gave no result, when it failed. */
@@ -85,8 +87,8 @@ function designSection(scenario: Scenario, design: DesignResult | null | undefin
   return html;
 }
 
-function checksSection(results: PlanResults | undefined, design: DesignResult | null | undefined): string {
-  if (!results) return '<p class="note">No field computation attached.</p>';
+function checksSection(results: PlanResults | undefined, design: DesignResult | null | undefined, resultsError?: string | null): string {
+  if (!results) return resultsError ? `<p class="bad">Levels could not be computed: ${e(resultsError)}. No check of the excavations is possible.</p>` : '<p class="note">No field computation attached.</p>';
   let html = '<table><thead><tr><th>Excavation</th><th>Target m</th><th>Highest level inside m (grid)</th><th>Above target m</th><th>Wet area m²</th></tr></thead><tbody>';
   for (const x of results.excavations)
     html += `<tr><td>${e(x.id)}</td><td>${f(x.targetLevel_m)}</td><td>${f(x.highestLevel_m)}</td><td class="${(x.shortfall_m ?? 0) > 0 ? 'bad' : 'ok'}">${f(x.shortfall_m)}</td><td>${f(x.wetArea_m2, 1)}</td></tr>`;
@@ -168,7 +170,7 @@ ${(scenario.boundaries ?? []).map((b, i) => `<tr><th>Boundary ${i + 1}</th><td>$
 <h2>4. Design and bid summary</h2>
 ${designSection(scenario, design, options.designError)}
 <h2>5. Checks</h2>
-${checksSection(results, design)}
+${checksSection(results, design, options.resultsError)}
 <h2>6. Monitoring plan</h2>
 ${monitoringSection(options.monitoring)}
 <h2>7. Assumptions and methods</h2>

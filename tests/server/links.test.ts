@@ -116,6 +116,30 @@ describe('GET /api/v1/links/:token', () => {
   });
 });
 
+describe('a scenario the engine cannot compute', () => {
+  it('still opens through a link and exports, saying why levels are missing', async () => {
+    const s = demoScenario('confined');
+    const w = s.wells[0]!;
+    // Two boundaries at 60°: neither perpendicular nor parallel, which image wells cannot represent.
+    s.boundaries = [
+      { kind: 'no-flow', from: [w.x - 200, w.y - 200], to: [w.x - 200, w.y + 200] },
+      { kind: 'constant-head', from: [w.x - 200, w.y + 300], to: [w.x - 200 + 400 * Math.cos(Math.PI / 3), w.y + 300 + 400 * Math.sin(Math.PI / 3)] },
+    ];
+    const id = await createStored(app, s);
+    const token = await createLink(app, id, 'view');
+    const res = await app.inject({ method: 'GET', url: `/api/v1/links/${token}` });
+    expect(res.statusCode).toBe(200);
+    expect(res.json().computeError).toMatch(/boundar/i);
+    expect(res.json().contours).toBeNull();
+    for (const format of ['setout-csv', 'geojson', 'dxf', 'report-html', 'monitoring-csv', 'scenario-json']) {
+      const file = await app.inject({ method: 'GET', url: `/api/v1/links/${token}/export/${format}` });
+      expect(file.statusCode, format).toBe(200);
+    }
+    const report = await app.inject({ method: 'GET', url: `/api/v1/links/${token}/export/report-html` });
+    expect(report.body).toMatch(/Levels could not be computed: [^<]*boundar/i);
+  });
+});
+
 describe('a view token', () => {
   it('can never write: saves and readings are refused with 403 and nothing changes', async () => {
     const id = await createStored(app, withMonitoring(demoScenario('confined')));

@@ -40,9 +40,9 @@ import { computeTimes } from './design-times';
  */
 export const DESIGN_TOLERANCE_M = 1e-3;
 /** Most refinement rounds (each adds the check points still above target). */
-export const MAX_REFINEMENT_ROUNDS = 8;
+export const MAX_REFINEMENT_ROUNDS = 10;
 /** Most rounds that narrow the linearisation intervals of the well limits. */
-export const MAX_TIGHTENING_ROUNDS = 3;
+export const MAX_TIGHTENING_ROUNDS = 4;
 /**
  * Largest unit-response matrix one design may build (check points × design wells): 5 million
  * entries is 40 MB of Float64 and a few seconds of well-function evaluations.

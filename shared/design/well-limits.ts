@@ -204,17 +204,18 @@ export function buildLimitRows({ aquifer, wells, faceResponse, variableForLevel,
 }
 
 /**
- * Narrower intervals around a solution (face variable v*, rate Q*): [0.7·v*, v* + 0.6·(v_limit − v*)]
- * and [0.7·Q*, Q* + 0.6·(cap − Q*)]. They contain the solution, so it stays feasible.
+ * Narrower intervals around a solution (face variable v*, rate Q*): [0.8·v*, v* + 0.5·(v_hi − v*)]
+ * and [0.8·Q*, Q* + 0.5·(q_hi − Q*)]. They contain the solution, so it stays feasible; each round
+ * halves the distance to the far end, where the chord and the secant err most.
  */
 export function narrowIntervals(previous: LimitInterval[], faceValues: Float64Array, rates: Float64Array): LimitInterval[] {
   return previous.map((iv, j) => {
     const v = Math.max(0, faceValues[j]!);
     const q = Math.max(0, rates[j]!);
-    const vHi = Math.min(iv.vHi, Math.max(v, v + 0.6 * (iv.vHi - v)));
-    const vLo = Math.min(Math.max(iv.vLo, 0.7 * v), v);
-    const qHi = Math.min(iv.qHi_m3_s, Math.max(q, q + 0.6 * (iv.qHi_m3_s - q)));
-    const qLo = Math.min(Math.max(iv.qLo_m3_s, 0.7 * q), q);
+    const vHi = Math.min(iv.vHi, Math.max(v, v + 0.5 * (iv.vHi - v)));
+    const vLo = Math.min(Math.max(iv.vLo, 0.8 * v), v);
+    const qHi = Math.min(iv.qHi_m3_s, Math.max(q, q + 0.5 * (iv.qHi_m3_s - q)));
+    const qLo = Math.min(Math.max(iv.qLo_m3_s, 0.8 * q), q);
     return { vLo, vHi, qLo_m3_s: qLo, qHi_m3_s: qHi };
   });
 }

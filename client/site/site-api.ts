@@ -21,6 +21,8 @@ export interface LinkView {
   method: string | null;
   modelNotes: string[];
   computeError: string | null;
+  /** Program and version that computed levels and design. */
+  computedBy: string;
   design: DesignResult | null;
   designError: string | null;
   cautions: string[];

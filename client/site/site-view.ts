@@ -242,7 +242,8 @@ export class SiteView extends LitElement {
         <a href=${this.api?.exportUrl('geojson') ?? '#'} download>GeoJSON</a>
         <a href=${this.api?.exportUrl('dxf') ?? '#'} download>DXF</a>
       </div>
-      <p class="note">Scenario checksum ${v.revision.sha256.slice(0, 16)}… — the same number on the designer's copy means the same plan.</p>`;
+      <p class="note">Scenario checksum ${v.revision.sha256.slice(0, 16)}… — the same number on the designer's copy means the same plan.
+        Levels and design computed by ${v.computedBy}.</p>`;
   }
 
   private pickWell(index: number): void {

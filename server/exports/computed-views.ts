@@ -13,6 +13,14 @@ import {
   type PlanResults,
 } from '../../shared/exports';
 import { fieldEngine } from './field-engine';
+import { readPackageVersion } from '../routes/health';
+
+/**
+ * Which engine computed the levels, checks and design shown beside a revision. The scenario is
+ * stored exactly; what is computed from it can change with a new engine version, so every view and
+ * report says which one it is.
+ */
+export const COMPUTED_BY = `drydig ${readPackageVersion()}`;
 
 const MAX_CACHED = 64;
 const planCache = new Map<string, PlanResults | { error: string }>();

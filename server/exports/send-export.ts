@@ -11,7 +11,7 @@ import {
 } from '../../shared/exports';
 import type { ExportFormat } from '../storage/http';
 import type { ReadingRecord, RevisionRecord } from '../storage';
-import { monitoringPlanFor, planResultsFor } from './computed-views';
+import { COMPUTED_BY, monitoringPlanFor, planResultsFor } from './computed-views';
 import { designFor } from './design-for';
 
 /** What an export is made from. */
@@ -62,6 +62,7 @@ export async function renderExport(format: ExportFormat, source: ExportSource): 
         revision: record,
         results: plan.results,
         resultsError: plan.error ?? null,
+        computedBy: COMPUTED_BY,
         design: design.design,
         designError: design.error,
         monitoring: monitoringPlanFor(scenario, source.readings),

@@ -22,7 +22,7 @@ import {
   type ExportFormat,
 } from '../storage/http';
 import { writeRateLimit } from '../security';
-import { designFor, monitoringPlanFor, planResultsFor, sendExport } from '../exports';
+import { COMPUTED_BY, designFor, monitoringPlanFor, planResultsFor, sendExport } from '../exports';
 import { saveOn } from './scenarios';
 
 interface OpenedLink {
@@ -85,6 +85,7 @@ const routes = async (app: FastifyInstance) => {
       method: plan.results?.model.method ?? null,
       modelNotes: plan.results?.model.notes ?? [],
       computeError: plan.error ?? null,
+      computedBy: COMPUTED_BY,
       design: design.design,
       designError: design.error,
       cautions: [...DESIGN_CAUTIONS, ...(design.design?.cautions ?? [])],

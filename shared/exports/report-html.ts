@@ -31,6 +31,8 @@ export interface ReportOptions {
   projection: SiteProjection | null;
   /** When the report was made, ISO 8601. Default now. */
   generatedAt?: string;
+  /** Program and version that computed the levels and design, e.g. "drydig 0.1.0". */
+  computedBy?: string;
 }
 
 const f = (v: number | null | undefined, decimals = 2) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(decimals));
@@ -149,7 +151,7 @@ footer.print-caution{display:none}
 }
 </style></head><body>
 <header><h1>${e(scenario.name)}</h1>
-<p class="meta">Dewatering design report${rev ? ` — revision ${rev.revision}, saved ${e(rev.savedAt)}${rev.savedBy ? ` by ${e(rev.savedBy)}` : ''}` : ''} — generated ${e(generatedAt)}.<br>
+<p class="meta">Dewatering design report${rev ? ` — revision ${rev.revision}, saved ${e(rev.savedAt)}${rev.savedBy ? ` by ${e(rev.savedBy)}` : ''}` : ''} — generated ${e(generatedAt)}${options.computedBy ? ` by ${e(options.computedBy)}` : ''}.<br>
 Coordinates: ${e(scenario.crs ?? 'local site grid (not georeferenced)')}; levels in m above site datum; rates in L/s.${rev?.sha256 ? `<br>Scenario checksum (SHA-256): <code>${e(rev.sha256)}</code>` : ''}</p></header>
 <section class="cautions"><h2>Cautions</h2><ul>${cautions}</ul></section>
 <h2>1. The job</h2>

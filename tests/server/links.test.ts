@@ -83,6 +83,7 @@ describe('GET /api/v1/links/:token', () => {
     expect(body.cautions.length).toBeGreaterThan(0);
     expect(body.contours.lines.length).toBeGreaterThan(0);
     expect(typeof body.design.feasible).toBe('boolean');
+    expect(body.computedBy).toMatch(/^drydig \d+\.\d+\.\d+/);
     expect(body.design.wells).toHaveLength(6);
     expect(res.body).not.toContain(id);
     expect(res.headers['cache-control']).toBe('no-store');

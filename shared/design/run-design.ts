@@ -282,7 +282,8 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
       x: w.x,
       y: w.y,
       rate_m3_s: q,
-      installed: installed[j] === 1,
+      // Layout: a chosen well the refined rates leave idle need not be installed.
+      installed: installed[j] === 1 && (mode !== 'layout' || q > 0),
       start_s: w.start_s,
       capacity_m3_s: capacity,
       fullScreenCapacity_m3_s: w.fullScreenCapacity_m3_s,
@@ -483,6 +484,8 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   if (mode === 'uniform' && solution.status === 'optimal')
     cautions.push('Uniform mode: every well pumps the same rate; wells at the ends of a line carry more load in reality.');
 
+  if (designPoints.length === 0)
+    cautions.push('The scenario has no excavations or control points: there is nothing to design for, so every rate is 0.');
   const modelNotes = [...verify.model.notes];
   progress('done', 1);
   return {

@@ -111,3 +111,15 @@ describe('runDesign with bad input', () => {
     expect(error!.message).toContain(path);
   });
 });
+
+describe('runDesign with nothing to design for', () => {
+  it('returns zero rates and says so when the scenario has no excavation', async () => {
+    const s = singleWellScenario();
+    s.excavations = [];
+    s.design = { time_s: 86400 };
+    const result = await runDesign({ scenario: s, mode: 'optimal' });
+    expect(result.totalRate_m3_s).toBe(0);
+    expect(result.excavations).toEqual([]);
+    expect(result.cautions.some((c) => /nothing to design for/.test(c))).toBe(true);
+  });
+});

@@ -10,7 +10,7 @@ import demoWellpoints from '../../fixtures/demo-wellpoints-unconfined.json';
 import demoDeepwells from '../../fixtures/demo-deepwells-confined.json';
 import { validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
 import { logSpacedTimes } from '../../shared/field';
-import { isPointInPolygon } from '../../shared/geometry';
+import { signedDistanceToRing } from '../../shared/contours';
 import { formatQuantity, resolveDisplayUnits, toSi, type DisplayUnits, type UnitSystem } from '../../shared/units';
 import { ScenarioStore, checkViewSettings, getViewSettings, setViewSettings, type ChangeKind, type ContourQuantity, type SectionLine } from '../state';
 import { EngineClient, EngineError, type FieldResult, type InspectResult, type SectionResult } from '../worker';
@@ -590,7 +590,8 @@ export class DrydigApp extends LightElement {
     const view = getViewSettings(s);
     const times = this.times;
     const ti = Math.min(this.timeIndex, times.length - 1);
-    const pitAtInspect = this.inspect ? s.excavations.find((e) => isPointInPolygon(this.inspect!.point[0], this.inspect!.point[1], e.outline)) : undefined;
+    // On the edge counts as inside: the worst point of a pit is often on its outline.
+    const pitAtInspect = this.inspect ? s.excavations.find((e) => signedDistanceToRing(this.inspect!.point[0], this.inspect!.point[1], e.outline) >= -1e-6) : undefined;
     return html`
       <header class="dd-top">
         <div class="dd-brand"><span class="dd-logo" aria-hidden="true"></span><span>drydig</span></div>

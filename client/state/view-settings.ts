@@ -3,11 +3,12 @@
  * extra top-level fields). It holds what the plan map needs to show a scenario the same way next
  * time — never anything the engine reads. Reading is defensive: a saved file may carry anything.
  */
-import { TypeCompiler } from '@sinclair/typebox/compiler';
+import { Value } from '@sinclair/typebox/value';
 import { ViewSchema, type FieldIssue, type Scenario } from '../../shared/schema';
 import type { UnitSystem } from '../../shared/units';
 
-const viewCheck = TypeCompiler.Compile(ViewSchema);
+// Value.Check interprets the schema; TypeCompiler would need eval, which the page's CSP forbids.
+const viewCheck = { Check: (v: unknown) => Value.Check(ViewSchema, v), Errors: (v: unknown) => Value.Errors(ViewSchema, v) };
 const checked = new WeakMap<object, boolean>();
 
 /** A site-plan image placed by two reference points: image pixel → site metres. */

@@ -139,6 +139,69 @@ describe('editing on the plan map', () => {
     await expect.poll(() => page.locator('.dd-well-list button[data-well="DW1"]').innerText()).toMatch(/43\.2\s*m³\/h/);
   });
 
+  it('clicking a shortfall badge goes to the worst point and inspects it', async () => {
+    await loadDemo(page, 'deepwells');
+    const text = await badge(page, 'basement');
+    const short = Number(/Short by (\d+\.\d\d)/.exec(text)![1]);
+    await page.click('.dd-map-top .dd-badge[data-excavation="basement"]');
+    await expect.poll(() => page.locator('[data-inspect="level"]').count()).toBe(1);
+    const [, e, n] = /worst at (\d+\.\d), (\d+\.\d)/.exec(text)!;
+    await expect.poll(() => page.locator('.dd-readout').innerText()).toContain(`E ${Number(e).toFixed(2)}`);
+    expect(await page.locator('.dd-readout').innerText()).toContain(`N ${Number(n).toFixed(2)}`);
+    // The level there is the target (7.0 − 0.5 = 6.5 m) plus the shortfall (both rounded to 0.01 m).
+    const level = Number.parseFloat(await page.locator('[data-inspect="level"]').innerText());
+    expect(Math.abs(level - (6.5 + short))).toBeLessThanOrEqual(0.011);
+    expect(await page.locator('.dd-readout .dd-bad').first().innerText()).toMatch(/above/);
+  });
+
+  it('contours groundwater level instead of drawdown on request', async () => {
+    await page.click('.dd-drawer .dd-close');
+    await page.click('button[name="tab-results"]');
+    const before = await fieldsDrawn(page);
+    await page.check('input[name="quantity"][value="level"]');
+    await settle(page, before);
+    expect(await page.locator('map-legend .dd-legend-head strong').innerText()).toBe('Groundwater level');
+    const values = (await page.locator('map-legend .dd-scale li').allInnerTexts()).map((t) => Number.parseFloat(t));
+    // Levels lie between the lowest computed level and the static level of 13 m.
+    for (const v of values) {
+      expect(v).toBeLessThanOrEqual(13);
+      expect(v).toBeGreaterThan(5);
+    }
+    await s.screenshot('16-level-contours');
+    const before2 = await fieldsDrawn(page);
+    await page.check('input[name="quantity"][value="drawdown"]');
+    await settle(page, before2);
+  });
+
+  it('reshapes an excavation by dragging a corner handle', async () => {
+    await loadDemo(page, 'wellpoints');
+    await page.click('button[name="tool-select"]');
+    await clickSite(page, 20, 10); // selects pit-A
+    await expect.poll(() => page.locator('path.dd-vertex').count()).toBe(4);
+    const from = await pagePoint(page, 40, 20);
+    const to = await pagePoint(page, 45, 25);
+    const before = await fieldsDrawn(page);
+    await page.mouse.move(from.x, from.y);
+    await page.mouse.down();
+    for (let k = 1; k <= 8; k++) await page.mouse.move(from.x + ((to.x - from.x) * k) / 8, from.y + ((to.y - from.y) * k) / 8);
+    await page.mouse.up();
+    await settle(page, before);
+    await page.click('button[name="tab-layout"]');
+    // Shoelace area of (0,0), (40,0), (45,25), (0,20) = 950 m² (to the pixel the corner landed on).
+    const area = Number(/area (\d+(?:\.\d+)?)\sm²/.exec(await page.locator('excavation-editor .dd-facts').innerText())![1]);
+    expect(Math.abs(area - 950)).toBeLessThan(5);
+    await page.click('button[name="undo"]');
+    await expect.poll(() => page.locator('excavation-editor .dd-facts').innerText()).toMatch(/area 800\sm²/);
+  });
+
+  it('opens a file whose view settings are malformed, keeping the design data and saying what was ignored', async () => {
+    const scenario = { ...(await page.evaluate(() => (window as unknown as { __drydig: { scenario(): object } }).__drydig.scenario())), name: 'with bad view', view: { underlay: { refs: 5 } } };
+    await page.setInputFiles('input[name="open-scenario"]', { name: 'odd.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(scenario)) });
+    await expect.poll(() => page.locator('.dd-notice').innerText()).toMatch(/Opened odd\.json; its view settings were ignored \(\/view\/underlay/);
+    expect(await page.locator('input.dd-name').inputValue()).toBe('with bad view');
+    expect(s.errors).toEqual([]);
+  });
+
   it('places a site-plan image by two reference points', async () => {
     await page.click('button[name="tab-backdrop"]');
     const png = readFileSync('node_modules/leaflet/dist/images/layers-2x.png'); // any PNG will do: 52 × 52 px

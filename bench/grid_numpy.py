@@ -29,24 +29,33 @@ def main() -> None:
     coef = np.asarray(data["coef"], dtype=np.float64)
     r2min = np.asarray(data["r2min"], dtype=np.float64)
 
-    start = time.perf_counter()
-    xs = ox + hx * np.arange(nx, dtype=np.float64)
-    ys = oy + hy * np.arange(ny, dtype=np.float64)
-    gx, gy = np.meshgrid(xs, ys)  # row-major j * nx + i, like the engine
-    gx = gx.ravel()
-    gy = gy.ravel()
-    total = np.zeros(nx * ny, dtype=np.float64)
-    chunk = 16  # sources per vectorised block: ~1M doubles per temporary, fits in cache-friendly memory
-    for k0 in range(0, sx.size, chunk):
-        k1 = min(k0 + chunk, sx.size)
-        dx = gx[None, :] - sx[k0:k1, None]
-        dy = gy[None, :] - sy[k0:k1, None]
-        r2 = np.maximum(dx * dx + dy * dy, r2min[k0:k1, None])
-        total += (amp[k0:k1, None] * scipy.special.exp1(r2 * coef[k0:k1, None])).sum(axis=0)
-    elapsed = time.perf_counter() - start
+    def evaluate() -> np.ndarray:
+        xs = ox + hx * np.arange(nx, dtype=np.float64)
+        ys = oy + hy * np.arange(ny, dtype=np.float64)
+        gx, gy = np.meshgrid(xs, ys)  # row-major j * nx + i, like the engine
+        gx = gx.ravel()
+        gy = gy.ravel()
+        total = np.zeros(nx * ny, dtype=np.float64)
+        chunk = 16  # sources per vectorised block: ~1M doubles per temporary
+        for k0 in range(0, sx.size, chunk):
+            k1 = min(k0 + chunk, sx.size)
+            dx = gx[None, :] - sx[k0:k1, None]
+            dy = gy[None, :] - sy[k0:k1, None]
+            r2 = np.maximum(dx * dx + dy * dy, r2min[k0:k1, None])
+            total += (amp[k0:k1, None] * scipy.special.exp1(r2 * coef[k0:k1, None])).sum(axis=0)
+        return total
+
+    # Best of three, like the TypeScript side: the machine is shared, the minimum is the fair figure.
+    elapsed = float("inf")
+    cpu = float("inf")
+    for _ in range(3):
+        start, cpu_start = time.perf_counter(), time.process_time()
+        total = evaluate()
+        elapsed = min(elapsed, time.perf_counter() - start)
+        cpu = min(cpu, time.process_time() - cpu_start)
 
     total.astype("<f8").tofile(out_path)
-    print(json.dumps({"seconds": elapsed, "numpy": np.__version__, "scipy": scipy.__version__, "evaluations": int(sx.size * nx * ny)}))
+    print(json.dumps({"seconds": elapsed, "cpuSeconds": cpu, "numpy": np.__version__, "scipy": scipy.__version__, "evaluations": int(sx.size * nx * ny)}))
 
 
 if __name__ == "__main__":

@@ -7,6 +7,7 @@ export * from './image-wells';
 export * from './source-set';
 export * from './prepare-field';
 export * from './superpose';
+export * from './theis-table';
 export * from './interpret-sum';
 export * from './potential-conversion';
 export * from './single-well-response';

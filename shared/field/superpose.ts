@@ -3,7 +3,8 @@
  * The summed quantity is drawdown (confined, leaky) or discharge-potential drawdown s_c
  * (unconfined), both linear in the rates.
  */
-import { besselK0, hantushWellFunction, theisWellFunction } from '../wells';
+import { besselK0, EULER_GAMMA, hantushWellFunction, theisWellFunction } from '../wells';
+import { getTheisTable, THEIS_TABLE_MAX_U, THEIS_TABLE_STEP } from './theis-table';
 import type { SourceSet } from './source-set';
 import type { GridSpec } from './types';
 
@@ -107,99 +108,162 @@ export interface GridSum {
 }
 
 /**
- * Sums the sources on every grid node. For each source only the rows and the column span
- * inside its cutoff radius are visited, so far sources cost nothing per node; squared x and y
- * offsets are separable and computed once per row / per column span.
+ * Sums the sources on every grid node. Rows are the outer loop so one row of sums stays in the
+ * first-level cache while every source sweeps it; for each source only the column span inside
+ * its cutoff radius is visited, so far sources cost nothing per node. Theis sources with small u
+ * use the tabulated interpolant of theis-table.ts (|ΔW| < THEIS_TABLE_MAX_ERROR = 5e-13), so the
+ * grid may differ from evaluatePoints by at most that times Σ|ΔQ|/(4πT).
  */
 export function superposeOnGrid(set: SourceSet, grid: GridSpec): GridSum {
   const [nx, ny] = grid.counts;
-  const [ox, oy] = grid.origin;
-  const [hx, hy] = grid.spacing_m;
   const n = nx * ny;
   const value = new Float64Array(n);
   const withinWell = new Uint8Array(n);
   const reached = new Uint8Array(n);
-  const dx2 = new Float64Array(nx);
-  const { kind, invB } = set;
+  const span = { i0: 0, i1: -1 };
+  for (let j = 0; j < ny; j++) {
+    switch (set.kind) {
+      case 'theis':
+        theisRow(set, grid, j, value, span);
+        break;
+      case 'thiem':
+        thiemRow(set, grid, j, value, reached, span);
+        break;
+      case 'hantush':
+        leakyRow(set, grid, j, value, span, true);
+        break;
+      case 'de-glee':
+        leakyRow(set, grid, j, value, span, false);
+        break;
+    }
+  }
+  markWithinWell(set, grid, withinWell);
+  return { value, withinWell, reached };
+}
 
+/** Columns of row j within source k's cutoff, into `span` (i1 < i0 when none); returns dy². */
+function rowSpan(set: SourceSet, grid: GridSpec, j: number, k: number, span: { i0: number; i1: number }): number {
+  const dy = grid.origin[1] + j * grid.spacing_m[1] - set.y[k]!;
+  const dy2 = dy * dy;
+  const rest = set.r2cut[k]! - dy2;
+  if (!(rest > 0)) {
+    span.i1 = -1;
+    span.i0 = 0;
+    return dy2;
+  }
+  const half = Math.sqrt(rest);
+  const sx = set.x[k]!;
+  const [ox] = grid.origin;
+  const hx = grid.spacing_m[0];
+  span.i0 = Math.max(0, Math.ceil((sx - half - ox) / hx));
+  span.i1 = Math.min(grid.counts[0] - 1, Math.floor((sx + half - ox) / hx));
+  return dy2;
+}
+
+function theisRow(set: SourceSet, grid: GridSpec, j: number, value: Float64Array, span: { i0: number; i1: number }): void {
+  const { value: einValue, slope: einSlope } = getTheisTable();
+  const scale = 1 / THEIS_TABLE_STEP;
+  const ox = grid.origin[0];
+  const hx = grid.spacing_m[0];
+  const row = j * grid.counts[0];
   for (let k = 0; k < set.count; k++) {
+    const dy2 = rowSpan(set, grid, j, k, span);
+    const { i0, i1 } = span;
+    if (i1 < i0) continue;
     const sx = set.x[k]!;
-    const sy = set.y[k]!;
     const amp = set.amp[k]!;
     const coef = set.coef[k]!;
+    const r2min = set.r2min[k]!;
+    for (let i = i0; i <= i1; i++) {
+      const dx = ox + i * hx - sx;
+      let r2 = dx * dx + dy2;
+      if (r2 < r2min) r2 = r2min;
+      const u = r2 * coef;
+      let w: number;
+      if (u <= THEIS_TABLE_MAX_U) {
+        // Inlined theisWellFunctionTabulated: W = −γ − ln u + Ein(u), Ein by cubic Hermite.
+        const x = u * scale;
+        const m = x | 0;
+        const t = x - m;
+        const t2 = t * t;
+        const t3 = t2 * t;
+        w = -EULER_GAMMA - Math.log(u) + ((2 * t3 - 3 * t2 + 1) * einValue[m]! + (t3 - 2 * t2 + t) * einSlope[m]! + (3 * t2 - 2 * t3) * einValue[m + 1]! + (t3 - t2) * einSlope[m + 1]!);
+      } else {
+        w = theisWellFunction(u);
+      }
+      value[row + i]! += amp * w;
+    }
+  }
+}
+
+function thiemRow(set: SourceSet, grid: GridSpec, j: number, value: Float64Array, reached: Uint8Array, span: { i0: number; i1: number }): void {
+  const ox = grid.origin[0];
+  const hx = grid.spacing_m[0];
+  const row = j * grid.counts[0];
+  for (let k = 0; k < set.count; k++) {
+    const dy2 = rowSpan(set, grid, j, k, span);
+    const { i0, i1 } = span;
+    if (i1 < i0) continue;
+    const sx = set.x[k]!;
+    const amp = set.amp[k]!;
     const r2cut = set.r2cut[k]!;
     const r2min = set.r2min[k]!;
-    if (!(r2cut > 0)) continue;
-    const reach = Math.sqrt(r2cut);
-    // Rows within reach (j such that |oy + j·hy − sy| < reach); hy > 0 by validation.
-    const j0 = Math.max(0, Math.ceil((sy - reach - oy) / hy));
-    const j1 = Math.min(ny - 1, Math.floor((sy + reach - oy) / hy));
-    if (j0 > j1) continue;
-    const iLo = Math.max(0, Math.ceil((sx - reach - ox) / hx));
-    const iHi = Math.min(nx - 1, Math.floor((sx + reach - ox) / hx));
-    if (iLo > iHi) continue;
-    for (let i = iLo; i <= iHi; i++) {
+    for (let i = i0; i <= i1; i++) {
       const dx = ox + i * hx - sx;
-      dx2[i] = dx * dx;
+      let r2 = dx * dx + dy2;
+      // Rounding at the rim of the span can put r² a hair past R²: that node gets nothing.
+      if (r2 >= r2cut) continue;
+      if (r2 < r2min) r2 = r2min;
+      value[row + i]! += amp * 0.5 * Math.log(r2cut / r2);
+      reached[row + i] = 1;
     }
-    for (let j = j0; j <= j1; j++) {
+  }
+}
+
+function leakyRow(set: SourceSet, grid: GridSpec, j: number, value: Float64Array, span: { i0: number; i1: number }, transient: boolean): void {
+  const ox = grid.origin[0];
+  const hx = grid.spacing_m[0];
+  const row = j * grid.counts[0];
+  const invB = set.invB;
+  for (let k = 0; k < set.count; k++) {
+    const dy2 = rowSpan(set, grid, j, k, span);
+    const { i0, i1 } = span;
+    if (i1 < i0) continue;
+    const sx = set.x[k]!;
+    const amp = set.amp[k]!;
+    const coef = set.coef[k]!;
+    const r2min = set.r2min[k]!;
+    for (let i = i0; i <= i1; i++) {
+      const dx = ox + i * hx - sx;
+      let r2 = dx * dx + dy2;
+      if (r2 < r2min) r2 = r2min;
+      const beta = Math.sqrt(r2) * invB;
+      value[row + i]! += amp * (transient ? hantushWellFunction(r2 * coef, beta) : besselK0(beta));
+    }
+  }
+}
+
+/** Marks nodes inside a real well's radius (a few nodes at most). */
+function markWithinWell(set: SourceSet, grid: GridSpec, withinWell: Uint8Array): void {
+  const [nx, ny] = grid.counts;
+  const [ox, oy] = grid.origin;
+  const [hx, hy] = grid.spacing_m;
+  for (let k = 0; k < set.count; k++) {
+    if (set.real[k] !== 1) continue;
+    const sx = set.x[k]!;
+    const sy = set.y[k]!;
+    const r2min = set.r2min[k]!;
+    const rw = Math.sqrt(r2min);
+    const a0 = Math.max(0, Math.ceil((sy - rw - oy) / hy));
+    const a1 = Math.min(ny - 1, Math.floor((sy + rw - oy) / hy));
+    const b0 = Math.max(0, Math.ceil((sx - rw - ox) / hx));
+    const b1 = Math.min(nx - 1, Math.floor((sx + rw - ox) / hx));
+    for (let j = a0; j <= a1; j++) {
       const dy = oy + j * hy - sy;
-      const dy2 = dy * dy;
-      const rest = r2cut - dy2;
-      if (!(rest > 0)) continue;
-      const half = Math.sqrt(rest);
-      const i0 = Math.max(iLo, Math.ceil((sx - half - ox) / hx));
-      const i1 = Math.min(iHi, Math.floor((sx + half - ox) / hx));
-      const row = j * nx;
-      switch (kind) {
-        case 'theis':
-          for (let i = i0; i <= i1; i++) {
-            let r2 = dx2[i]! + dy2;
-            if (r2 < r2min) r2 = r2min;
-            value[row + i]! += amp * theisWellFunction(r2 * coef);
-          }
-          break;
-        case 'thiem':
-          for (let i = i0; i <= i1; i++) {
-            let r2 = dx2[i]! + dy2;
-            // Rounding at the rim of the span can put r² a hair past R²: that node gets nothing.
-            if (r2 >= r2cut) continue;
-            if (r2 < r2min) r2 = r2min;
-            value[row + i]! += amp * 0.5 * Math.log(r2cut / r2);
-            reached[row + i] = 1;
-          }
-          break;
-        case 'hantush':
-          for (let i = i0; i <= i1; i++) {
-            let r2 = dx2[i]! + dy2;
-            if (r2 < r2min) r2 = r2min;
-            value[row + i]! += amp * hantushWellFunction(r2 * coef, Math.sqrt(r2) * invB);
-          }
-          break;
-        case 'de-glee':
-          for (let i = i0; i <= i1; i++) {
-            let r2 = dx2[i]! + dy2;
-            if (r2 < r2min) r2 = r2min;
-            value[row + i]! += amp * besselK0(Math.sqrt(r2) * invB);
-          }
-          break;
-      }
-    }
-    // Nodes inside a real well's radius (rare: a few nodes at most).
-    if (set.real[k] === 1) {
-      const rw = Math.sqrt(r2min);
-      const a0 = Math.max(0, Math.ceil((sy - rw - oy) / hy));
-      const a1 = Math.min(ny - 1, Math.floor((sy + rw - oy) / hy));
-      const b0 = Math.max(0, Math.ceil((sx - rw - ox) / hx));
-      const b1 = Math.min(nx - 1, Math.floor((sx + rw - ox) / hx));
-      for (let j = a0; j <= a1; j++) {
-        const dy = oy + j * hy - sy;
-        for (let i = b0; i <= b1; i++) {
-          const dx = ox + i * hx - sx;
-          if (dx * dx + dy * dy < r2min) withinWell[j * nx + i] = 1;
-        }
+      for (let i = b0; i <= b1; i++) {
+        const dx = ox + i * hx - sx;
+        if (dx * dx + dy * dy < r2min) withinWell[j * nx + i] = 1;
       }
     }
   }
-  return { value, withinWell, reached };
 }

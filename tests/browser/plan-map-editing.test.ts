@@ -139,6 +139,23 @@ describe('editing on the plan map', () => {
     await expect.poll(() => page.locator('.dd-well-list button[data-well="DW1"]').innerText()).toMatch(/43\.2\s*m³\/h/);
   });
 
+  it('runs the design panel against the server, marks its critical point and applies its rates', async () => {
+    await loadDemo(page, 'deepwells');
+    expect(await badge(page, 'basement')).toMatch(/Short by/);
+    await page.click('button[name="tab-design"]');
+    await page.click('button[name="run-design"]');
+    await page.waitForSelector('button[name="apply-rates"]', { timeout: 30_000 });
+    await expect.poll(() => page.locator('path.dd-critical').count()).toBe(1);
+    const before = await fieldsDrawn(page);
+    await page.click('button[name="apply-rates"]');
+    await settle(page, before);
+    // The optimal rates meet the target; the map's own check agrees (to the centimetre it prints).
+    await expect.poll(() => badge(page, 'basement')).toMatch(/Target met/);
+    await s.screenshot('17-design-applied');
+    await page.click('button[name="undo"]');
+    await expect.poll(() => badge(page, 'basement')).toMatch(/Short by 1\.96/);
+  });
+
   it('clicking a shortfall badge goes to the worst point and inspects it', async () => {
     await loadDemo(page, 'deepwells');
     const text = await badge(page, 'basement');

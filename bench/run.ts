@@ -1,6 +1,6 @@
 /**
  * `npm run bench`: speed of the field engine's hot path (evaluateGrid) against a vectorised
- * numpy/scipy evaluation of the same sums, plus the well-function bench when it exists.
+ * numpy/scipy evaluation of the same sums, then the other parts' benches when present.
  *
  * Case: a 250 × 250 grid, 400 wells on the perimeter of a 120 m × 80 m pit, Theis transient at
  * 30 days, one no-flow boundary (400 images → 800 point sources). Invented numbers.

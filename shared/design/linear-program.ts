@@ -46,6 +46,8 @@ export interface LinearProgram {
   timeLimit_s?: number;
   /** MIP: relative optimality gap at which to stop. Default 1e-6. */
   mipRelativeGap?: number;
+  /** A known feasible point (one value per column) to start the MIP search from. */
+  start?: number[];
 }
 
 export type LinearProgramStatus = 'optimal' | 'infeasible' | 'unbounded' | 'time-limit' | 'error';
@@ -107,6 +109,7 @@ export async function solveLinearProgram(problem: LinearProgram): Promise<Linear
       time_limit: problem.timeLimit_s ?? 120,
       ...(integrality ? { mip_rel_gap: problem.mipRelativeGap ?? 1e-6 } : {}),
     });
+    if (problem.start && problem.start.length === nCols) model.setSolution({ colValue: Float64Array.from(problem.start) });
     model.run();
     const s = model.getModelStatus();
     const ms = highs.constants.modelStatus;

@@ -248,34 +248,81 @@ export interface LayoutCosts {
  * relative gap of `mipRelativeGap` (default 2 % of the cost: rings of near-identical candidates
  * have many near-equal layouts and proving the last fraction of a percent takes minutes) or
  * after `timeLimit_s` (default 20 s) with the
- * best layout found (status 'time-limit', gap reported). Infeasible with every candidate
- * installed → best achievable rates with all installed.
+ * best layout found (status 'time-limit', gap reported). The search starts from a greedy layout
+ * (the LP optimum with every candidate, then the least-used well dropped while the rest still
+ * meet every target), so a stopped search is never worse than that. Infeasible with every
+ * candidate installed → best achievable rates with all installed.
  */
 export async function solveLayout(p: RateProblem, costs: LayoutCosts, timeLimit_s = 20, mipRelativeGap = 0.02): Promise<RateSolution> {
   const n = p.nWells;
+  const started = Date.now();
   const upper_L_s = Float64Array.from(p.upper, (u) => u * L_PER_M3);
-  // Limit rows stay on for candidates not installed: their face level, with no pumping of their
-  // own, stands above that of installed neighbours, so the rows rarely bind — and when they do,
-  // keeping them errs on the safe side. A big-M relaxation instead would weaken the LP bound
-  // so much that branch-and-bound stalls on rings of identical candidates.
-  const rows = [...controlRows(p, allRows(p), null), ...limitRows(p)];
-  for (let j = 0; j < n; j++) rows.push({ columns: [j, n + j], coefficients: [1, -Math.max(upper_L_s[j]!, 0)], lower: -Infinity, upper: 0 });
   const perLitre = (costs.pumpedVolumeCost_per_m3 * costs.duration_s) / L_PER_M3;
   // A tiny cost per litre keeps rates least among equal-cost layouts when pumping is free.
   const rateCost = perLitre > 0 ? perLitre : 1e-6 * Math.max(costs.wellCost, 1);
+  const costOf = (rates: Float64Array) => {
+    let wells = 0;
+    let litres = 0;
+    rates.forEach((q) => {
+      if (q > 0) wells++;
+      litres += q * L_PER_M3;
+    });
+    return wells * costs.wellCost + litres * rateCost;
+  };
+
+  // A good start for the search (greedy, bounded to a third of the time): the per-well optimum
+  // with every candidate, then drop the least-used well while the rest still meet every target.
+  const all = await solveOptimalRates(p);
+  if (all.status === 'infeasible') return { ...all, installed: Uint8Array.from(all.rates, (q) => (q > 0 ? 1 : 0)) };
+  if (all.status !== 'optimal') return all;
+  let best = all.rates;
+  let bestCost = costOf(best);
+  const closed = new Uint8Array(n);
+  for (let j = 0; j < n; j++) if (!(best[j]! > 0)) closed[j] = 1;
+  const tried = new Uint8Array(n);
+  while (Date.now() - started < (timeLimit_s * 1000) / 3) {
+    let pick = -1;
+    for (let j = 0; j < n; j++) if (!closed[j] && !tried[j] && (pick < 0 || best[j]! < best[pick]!)) pick = j;
+    if (pick < 0) break;
+    tried[pick] = 1;
+    const trial = { ...p, upper: Float64Array.from(p.upper, (u, j) => (closed[j] || j === pick ? 0 : u)) };
+    const s = await solveOptimalRates(trial);
+    if (s.status === 'optimal' && costOf(s.rates) < bestCost) {
+      best = s.rates;
+      bestCost = costOf(best);
+      closed[pick] = 1;
+      for (let j = 0; j < n; j++) if (!(best[j]! > 0)) closed[j] = 1;
+      tried.fill(0);
+    }
+  }
+
+  const rows = [...controlRows(p, allRows(p), null), ...limitRows(p)];
+  for (let j = 0; j < n; j++) rows.push({ columns: [j, n + j], coefficients: [1, -Math.max(upper_L_s[j]!, 0)], lower: -Infinity, upper: 0 });
+  const start = [...Array.from(best, (q) => q * L_PER_M3), ...Array.from(best, (q) => (q > 0 ? 1 : 0))];
+  const remaining = Math.max(1, timeLimit_s - (Date.now() - started) / 1000);
   const mip = await solveLinearProgram({
     cost: [...new Array<number>(n).fill(rateCost), ...new Array<number>(n).fill(costs.wellCost)],
     lower: new Array<number>(2 * n).fill(0),
     upper: [...Array.from(upper_L_s), ...new Array<number>(n).fill(1)],
     rows,
     integer: Array.from({ length: n }, (_, j) => n + j),
-    timeLimit_s,
+    timeLimit_s: remaining,
     mipRelativeGap,
+    start,
+  });
+  const greedy = (detail: string): RateSolution => ({
+    status: 'time-limit',
+    rates: best,
+    installed: Uint8Array.from(best, (q) => (q > 0 ? 1 : 0)),
+    objective: bestCost,
+    detail,
+    criticalRow: findCriticalRow(p, best),
   });
   if (mip.status === 'optimal' || mip.status === 'time-limit') {
     const rates = Float64Array.from({ length: n }, (_, j) => Math.max(0, mip.x[j]!) / L_PER_M3);
     const installed = Uint8Array.from({ length: n }, (_, j) => (mip.x[n + j]! > 0.5 ? 1 : 0));
     for (let j = 0; j < n; j++) if (!installed[j]) rates[j] = 0;
+    if (mip.objective > bestCost * (1 + 1e-9)) return { ...greedy(`greedy layout (the search found none cheaper: ${mip.detail})`), ...(mip.mipGap !== undefined ? { mipGap: mip.mipGap } : {}) };
     return {
       status: mip.status,
       rates,
@@ -286,11 +333,8 @@ export async function solveLayout(p: RateProblem, costs: LayoutCosts, timeLimit_
       criticalRow: findCriticalRow(p, rates),
     };
   }
-  if (mip.status === 'infeasible') {
-    const best = await solveBestAchievableRates(p);
-    return { ...best, installed: Uint8Array.from(best.rates, (q) => (q > 0 ? 1 : 0)) };
-  }
-  return { status: 'error', rates: new Float64Array(n), objective: null, detail: mip.detail, criticalRow: -1 };
+  // The search gave nothing usable (e.g. a numerical failure): the greedy layout still holds.
+  return greedy(`greedy layout (search: ${mip.detail})`);
 }
 
 /** Which limits are tight for the given rates: per well, the binding kind (null: none). */

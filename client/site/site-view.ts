@@ -176,9 +176,10 @@ export class SiteView extends LitElement {
         measuredAt: measured.toISOString(),
         enteredBy: String(data.get('enteredBy') ?? '').slice(0, 200) || undefined,
       });
-      this.readingNote = 'Reading saved.';
       form.reset();
+      // Say "saved" only once the reading is in the table and on the chart.
       this.monitoring = await api.monitoring();
+      this.readingNote = 'Reading saved.';
     } catch (e) {
       this.readingNote = `Not saved: ${(e as Error).message}`;
     } finally {

@@ -6,7 +6,7 @@
  * enters a reading. The server is the real app on 127.0.0.1, a random port, storage in memory.
  */
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
@@ -16,11 +16,17 @@ import type { Scenario } from '../../shared/schema';
 
 const SCREENSHOTS = path.resolve('artifacts/browser');
 
-/** The built client: client/dist when it holds this site view, else a fresh build under artifacts/. */
+/** Newest modification time among the site view's sources, ms. */
+function newestSourceTime(): number {
+  const files = ['client/site.html', ...readdirSync('client/site').map((f) => `client/site/${f}`)];
+  return Math.max(...files.map((f) => statSync(f).mtimeMs));
+}
+
+/** The built client: client/dist when it is newer than the site view's sources, else a fresh build under artifacts/. */
 function builtClientDir(): string {
   const dist = path.resolve('client/dist');
   const page = path.join(dist, 'site.html');
-  if (existsSync(page) && readFileSync(page, 'utf8').includes('<site-view>')) return dist;
+  if (existsSync(page) && readFileSync(page, 'utf8').includes('<site-view>') && statSync(page).mtimeMs >= newestSourceTime()) return dist;
   const out = path.resolve('artifacts/site-view-dist');
   execFileSync('npx', ['vite', 'build', '--config', 'client/vite.config.ts', '--outDir', out, '--emptyOutDir', '--logLevel', 'warn'], { stdio: 'pipe' });
   return out;
@@ -133,6 +139,7 @@ describe('the site view', () => {
     await form.getByRole('button', { name: 'Save reading' }).click();
     await view.getByText('Reading saved.').waitFor();
     const readings = view.locator('table[aria-label="Readings at PZ1"] tbody tr');
+    await readings.first().waitFor();
     expect(await readings.count()).toBe(1);
     expect(await readings.first().innerText()).toContain('7.85');
     expect(await view.locator('site-level-chart').locator('circle').count()).toBe(1);

@@ -30,6 +30,23 @@ describe('wellLevels', () => {
     for (const w of wellLevels({ scenario, time_s: 0 })) expect(w).toMatchObject({ rate_m3_s: 0, aquiferLevel_m: 8, wellLoss_m: 0, pumpingLevel_m: 8 });
   });
 
+  it('wellLevels flags a well whose well loss takes the pumping level below the base, without clamping it', () => {
+    // Unconfined, H = 20 m: the face stands about 0.8 m down; C·Q² = 1.5e6 · 0.004² = 24 m takes the well below the base.
+    const lossy = scenarioWith({ aquifer: unconfinedAquifer(), wells: [well('A', 0, 0, { rate_m3_s: 0.004, wellLoss_s2_m5: 1.5e6 })] });
+    const [a] = wellLevels({ scenario: lossy });
+    expect(a!.aquiferLevel_m).toBeGreaterThan(5);
+    expectClose(a!.wellLoss_m, 24, { rel: 1e-14 });
+    expectClose(a!.pumpingLevel_m, a!.aquiferLevel_m - 24, { rel: 1e-15 });
+    expect(a!.pumpingLevel_m).toBeLessThan(-10);
+    expect(a!.flags).toEqual(['dewatered']);
+    // Confined, top 0 m: the face stays confined (about 6.7 m), C·Q² = 5e5 · 0.004² = 8 m puts the well level below the top.
+    const confined = scenarioWith({ aquifer: confinedAquifer(), wells: [well('A', 0, 0, { rate_m3_s: 0.004, wellLoss_s2_m5: 5e5 })] });
+    const [b] = wellLevels({ scenario: confined });
+    expect(b!.aquiferLevel_m).toBeGreaterThan(0);
+    expect(b!.pumpingLevel_m).toBeLessThan(0);
+    expect(b!.flags).toEqual(['confined-to-unconfined']);
+  });
+
   it('wellLevels flags a well drawn to the base of an unconfined aquifer', () => {
     const dry = scenarioWith({ aquifer: unconfinedAquifer(), wells: [well('A', 0, 0, { rate_m3_s: 0.2 })] });
     const [a] = wellLevels({ scenario: dry });

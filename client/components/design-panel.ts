@@ -323,45 +323,52 @@ export class DesignPanel extends LightElement {
       <details class="dd-model-notes"><summary>Model assumptions (${r.modelNotes.length})</summary><ul>${r.modelNotes.map((n) => html`<li>${n}</li>`)}</ul></details>`;
   }
 
-  /** Level against log time at the critical point: pumping on, and recovery after every pump stops at the design time. */
+  /** Level against log time at the critical point: pumping on; then, on its own time axis, recovery after every pump stops. */
   private renderChart(r: DesignResult) {
     const ts = r.timeSeries!;
     const pumping = ts.pumping.filter((p) => p.time_s > 0);
-    const recovery = ts.recovery.filter((p) => p.time_s > 0);
-    if (pumping.length < 2) return nothing;
-    const W = 420, H = 210, L = 46, R = 10, T = 12, B = 30;
-    const times = [...pumping, ...recovery].map((p) => p.time_s);
-    const t0 = Math.log10(Math.min(...times));
-    const t1 = Math.log10(Math.max(...times));
-    const levels = [...pumping, ...recovery].map((p) => p.level_m).concat([ts.targetLevel_m, ts.formationLevel_m]);
+    const recovery = ts.recovery.filter((p) => p.time_s > ts.stop_s).map((p) => ({ time_s: p.time_s - ts.stop_s, level_m: p.level_m }));
+    const recoveryAt = r.excavations.find((e) => e.id === ts.excavationId)?.criticalRecoveryToFormation_s ?? null;
+    return html`<h3>Level at the critical point <small>${ts.excavationId} (${fixed(ts.x, 1)}, ${fixed(ts.y, 1)})</small></h3>
+      ${this.logChart(pumping, 'dd-curve', 'time since pumping started (log)', ts, r.designTime_s, 'Level against time at the critical point, pumping on')}
+      <ul class="dd-section-key">
+        <li><span class="dd-k dd-k-water"></span>pumping on</li>
+        <li><span class="dd-k dd-k-target"></span>target</li>
+        <li><span class="dd-k dd-k-formation"></span>formation level</li>
+      </ul>
+      ${recovery.length > 1
+        ? html`<h3>Power failure <small>every pump stops at ${formatDuration(ts.stop_s)}</small></h3>
+          ${this.logChart(recovery, 'dd-recovery', 'time since the pumps stopped (log)', ts, recoveryAt, 'Recovery of the level at the critical point after every pump stops')}
+          <p class="dd-chart-note">Back at formation level after ${recoveryAt === null ? 'more than the span shown' : formatDuration(recoveryAt)}: standby pumps and power must take over within that time.</p>`
+        : nothing}`;
+  }
+
+  private logChart(pts: Array<{ time_s: number; level_m: number }>, curveClass: string, xLabel: string, ts: NonNullable<DesignResult['timeSeries']>, mark_s: number | null, label: string) {
+    if (pts.length < 2) return nothing;
+    const W = 420, H = 190, L = 46, R = 10, T = 12, B = 30;
+    const t0 = Math.log10(pts[0]!.time_s);
+    const t1 = Math.log10(pts[pts.length - 1]!.time_s);
+    const levels = pts.map((p) => p.level_m).concat([ts.targetLevel_m, ts.formationLevel_m]);
     const lo = Math.min(...levels);
     const hi = Math.max(...levels);
     const pad = Math.max((hi - lo) * 0.08, 0.05);
     const x = linearScale(t0, t1, L, W - R);
     const y = linearScale(lo - pad, hi + pad, H - B, T);
-    const path = (pts: typeof pumping) => pts.map((p, i) => `${i ? 'L' : 'M'}${x(Math.log10(p.time_s)).toFixed(1)},${y(p.level_m).toFixed(1)}`).join('');
+    const path = pts.map((p, i) => `${i ? 'L' : 'M'}${x(Math.log10(p.time_s)).toFixed(1)},${y(p.level_m).toFixed(1)}`).join('');
     const decades: number[] = [];
     for (let d = Math.ceil(t0); d <= Math.floor(t1); d++) decades.push(d);
     const yTicks = niceTicks(lo - pad, hi + pad, 5);
-    const stop = Math.log10(ts.stop_s);
-    return html`<h3>Level at the critical point <small>${ts.excavationId} (${fixed(ts.x, 1)}, ${fixed(ts.y, 1)})</small></h3>
-      <svg class="dd-chart" viewBox="0 0 ${W} ${H}" role="img" aria-label="Level against time at the critical point">
-        ${yTicks.map((v) => svg`<line class="dd-grid" x1=${L} x2=${W - R} y1=${y(v)} y2=${y(v)}></line><text class="dd-tick" x=${L - 4} y=${y(v) + 3} text-anchor="end">${num(v, 4)}</text>`)}
-        ${decades.map((d) => svg`<line class="dd-grid" x1=${x(d)} x2=${x(d)} y1=${T} y2=${H - B}></line><text class="dd-tick" x=${x(d)} y=${H - B + 13} text-anchor="middle">${formatDuration(10 ** d)}</text>`)}
-        <line class="dd-target" x1=${L} x2=${W - R} y1=${y(ts.targetLevel_m)} y2=${y(ts.targetLevel_m)}></line>
-        <line class="dd-formation" x1=${L} x2=${W - R} y1=${y(ts.formationLevel_m)} y2=${y(ts.formationLevel_m)}></line>
-        ${stop >= t0 && stop <= t1 ? svg`<line class="dd-now" x1=${x(stop)} x2=${x(stop)} y1=${T} y2=${H - B}></line>` : nothing}
-        <path class="dd-curve" d=${path(pumping)}></path>
-        ${recovery.length > 1 ? svg`<path class="dd-recovery" d=${path(recovery)}></path>` : nothing}
-        <text class="dd-axis" x=${12} y=${T + (H - B - T) / 2} transform="rotate(-90 12 ${T + (H - B - T) / 2})" text-anchor="middle">level (m)</text>
-        <text class="dd-axis" x=${L + (W - R - L) / 2} y=${H - 3} text-anchor="middle">time since pumping started (log)</text>
-      </svg>
-      <ul class="dd-section-key">
-        <li><span class="dd-k dd-k-water"></span>pumping on</li>
-        <li><span class="dd-k dd-k-recovery"></span>all pumps stop at ${formatDuration(ts.stop_s)}</li>
-        <li><span class="dd-k dd-k-target"></span>target</li>
-        <li><span class="dd-k dd-k-formation"></span>formation level</li>
-      </ul>`;
+    const mark = mark_s !== null && mark_s > 0 ? Math.log10(mark_s) : null;
+    return html`<svg class="dd-chart" viewBox="0 0 ${W} ${H}" role="img" aria-label=${label}>
+      ${yTicks.map((v) => svg`<line class="dd-grid" x1=${L} x2=${W - R} y1=${y(v)} y2=${y(v)}></line><text class="dd-tick" x=${L - 4} y=${y(v) + 3} text-anchor="end">${num(v, 4)}</text>`)}
+      ${decades.map((d) => svg`<line class="dd-grid" x1=${x(d)} x2=${x(d)} y1=${T} y2=${H - B}></line><text class="dd-tick" x=${x(d)} y=${H - B + 13} text-anchor="middle">${formatDuration(10 ** d)}</text>`)}
+      <line class="dd-target" x1=${L} x2=${W - R} y1=${y(ts.targetLevel_m)} y2=${y(ts.targetLevel_m)}></line>
+      <line class="dd-formation" x1=${L} x2=${W - R} y1=${y(ts.formationLevel_m)} y2=${y(ts.formationLevel_m)}></line>
+      ${mark !== null && mark >= t0 && mark <= t1 ? svg`<line class="dd-now" x1=${x(mark)} x2=${x(mark)} y1=${T} y2=${H - B}></line>` : nothing}
+      <path class=${curveClass} d=${path}></path>
+      <text class="dd-axis" x=${12} y=${T + (H - B - T) / 2} transform="rotate(-90 12 ${T + (H - B - T) / 2})" text-anchor="middle">level (m)</text>
+      <text class="dd-axis" x=${L + (W - R - L) / 2} y=${H - 3} text-anchor="middle">${xLabel}</text>
+    </svg>`;
   }
 }
 /** The panel's few styles of its own, added once to the page (elements render without shadow roots). */

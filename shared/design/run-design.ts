@@ -443,8 +443,11 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   // Cautions.
   const cautions: string[] = [
     'Idealised model (homogeneous, isotropic aquifer, infinite except the stated straight boundaries, fully penetrating wells): treat rates and levels as estimates; confirm by site investigation and pumping tests, follow local codes, and have the design checked by a licensed engineer.',
-    'Well limits are checked with linear, conservative rows: unconfined pumping levels use the chord of the Dupuit level curve and well loss C·Q² its secant, so capacities and suction-lift margins are under-, never over-stated; the reported pumping levels are the engine’s exact values.',
   ];
+  if (a.kind === 'unconfined' || wells.some((w) => w.wellLoss_s2_m5 > 0))
+    cautions.push(
+      'Well limits are checked with linear, conservative rows: unconfined pumping levels use the chord of the Dupuit level curve and well loss C·Q² its secant, so capacities and suction-lift margins are under-, never over-stated; the reported pumping levels are the engine’s exact values.',
+    );
   if (endTime_s !== null && designTime_s !== null && endTime_s > designTime_s && rates.some((q) => q > 0)) {
     const late = wellLevels({ scenario: solved, time_s: endTime_s });
     const over = wells.filter((w, j) => {

@@ -35,8 +35,11 @@ describe('<design-panel>', () => {
     expect(await page.locator('design-panel [data-quick-check]').first().innerText()).toMatch(/ratio \d/);
     expect(await page.locator('design-panel svg.dd-chart path.dd-curve').count()).toBe(1);
     expect(await page.locator('design-panel svg.dd-chart path.dd-recovery').count()).toBe(1);
+    expect(await page.locator('design-panel .dd-chart-note').innerText()).toMatch(/Back at formation level after \d/);
     expect(await page.locator('design-panel .dd-caution').innerText()).toMatch(/licensed engineer/);
     await s.screenshot('design-panel-result');
+    await page.locator('design-panel svg.dd-chart').last().scrollIntoViewIfNeeded();
+    await s.screenshot('design-panel-chart');
     expect(s.errors).toEqual([]);
   }, 90_000);
 

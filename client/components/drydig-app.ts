@@ -202,6 +202,7 @@ export class DrydigApp extends LightElement {
     this.scenario = s;
     this.cursor = '';
     if (kind === 'load') {
+      this.notice = '';
       this.wellId = null;
       this.excavationId = null;
       this.inspect = null;
@@ -723,7 +724,9 @@ export class DrydigApp extends LightElement {
         <excavation-editor .store=${this.store} .scenario=${s} .units=${u} .excavationId=${this.excavationId} .projection=${this.projection?.ok ? this.projection : null}
           @select-excavation=${(e: CustomEvent<string | null>) => {
             this.excavationId = e.detail;
-            this.controller?.setScenario(this.scenario, { wellId: this.wellId, excavationId: e.detail });
+            const ex = this.store.scenario.excavations.find((k) => k.id === e.detail);
+            this.controller?.setScenario(this.store.scenario, { wellId: this.wellId, excavationId: e.detail });
+            if (ex) this.controller?.ensureVisible(ex.outline);
           }}></excavation-editor>
       </details>
     </div>`;

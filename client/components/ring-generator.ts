@@ -76,6 +76,13 @@ export class RingGenerator extends LightElement {
         }} /><em>${unit}</em></span></label>`;
   }
 
+  /** Kind change: radius and rate move to that kind's starting values (common practice; edit them). */
+  private setKind(kind: WellKind): void {
+    this.kind = kind;
+    this.radius_m = kind === 'deep' ? 0.15 : 0.05;
+    this.rate_m3_s = kind === 'deep' ? 0.005 : kind === 'ejector' ? 0.001 : 0.0005;
+  }
+
   private place(): void {
     const l = this.layout;
     const s = this.scenario;
@@ -103,7 +110,7 @@ export class RingGenerator extends LightElement {
         ${s.excavations.map((e) => html`<option value=${e.id} ?selected=${e.id === this.excavationId}>${e.id}</option>`)}</select></label>
       <div class="dd-form-row">${this.num('Offset', 'offset_m', u.length)}${this.num('Spacing', 'spacing_m', u.length)}</div>
       <div class="dd-form-row">
-        <label class="dd-field"><span>Kind</span><select name="ring-kind" @change=${(e: Event) => (this.kind = (e.target as HTMLSelectElement).value as WellKind)}>
+        <label class="dd-field"><span>Kind</span><select name="ring-kind" @change=${(e: Event) => this.setKind((e.target as HTMLSelectElement).value as WellKind)}>
           <option value="wellpoint" ?selected=${this.kind === 'wellpoint'}>Well point</option>
           <option value="deep" ?selected=${this.kind === 'deep'}>Deep well</option>
           <option value="ejector" ?selected=${this.kind === 'ejector'}>Ejector</option></select></label>

@@ -223,6 +223,16 @@ export class LeafletMapController {
     this.map.fitBounds(L.latLngBounds([b.getSouth() - pad, b.getWest() - pad], [b.getNorth() + pad, b.getEast() + pad]), { animate: false });
   }
 
+  /** Widens the view just enough to show these site points (e.g. a freshly imported outline). */
+  ensureVisible(points: ReadonlyArray<readonly [number, number]>): void {
+    if (points.length === 0) return;
+    const view = this.map.getBounds();
+    const lls = points.map(([x, y]) => L.latLng(y, x));
+    if (lls.every((ll) => view.contains(ll))) return;
+    const b = L.latLngBounds(lls).extend(view);
+    this.map.fitBounds(b, { animate: false, padding: [30, 30] });
+  }
+
   panTo(x: number, y: number): void {
     this.map.setView([y, x], Math.max(this.map.getZoom(), 2), { animate: false });
   }

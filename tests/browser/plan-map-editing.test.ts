@@ -219,6 +219,37 @@ describe('editing on the plan map', () => {
     expect(s.errors).toEqual([]);
   });
 
+  it('edits a rate schedule for a well (pump stops after 5 days)', async () => {
+    await loadDemo(page, 'deepwells');
+    await page.click('button[name="tab-layout"]');
+    await page.click('.dd-well-list button[data-well="DW1"]');
+    await page.check('well-editor input[name="mode"] >> nth=1');
+    await expect.poll(() => page.locator('well-editor table.dd-schedule tbody tr').count()).toBe(1);
+    await page.click('well-editor button:has-text("Add step")');
+    await expect.poll(() => page.locator('well-editor table.dd-schedule tbody tr').count()).toBe(2);
+    const start = page.locator('well-editor input[aria-label="schedule step 2 start"]');
+    await start.fill('5');
+    const before = await fieldsDrawn(page);
+    await start.blur();
+    await settle(page, before);
+    expect(await page.locator('.dd-well-list button[data-well="DW1"]').innerText()).toMatch(/schedule/);
+    const kept = await page.evaluate(() => (window as unknown as { __drydig: { scenario(): { wells: Array<{ id: string; schedule?: unknown }> } } }).__drydig.scenario().wells[0]!.schedule);
+    // 5 d = 432 000 s, rate 0 from then on; the first step keeps the well's rate (0.012 m³/s).
+    expect(kept).toEqual([{ from_s: 0, rate_m3_s: 0.012 }, { from_s: 432000, rate_m3_s: 0 }]);
+  });
+
+  it('shows a steady-state scenario without a time control', async () => {
+    const steady = { ...(await page.evaluate(() => (window as unknown as { __drydig: { scenario(): object } }).__drydig.scenario())), name: 'steady', design: { time_s: null } };
+    const before = await fieldsDrawn(page);
+    await page.setInputFiles('input[name="open-scenario"]', { name: 'steady.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(steady)) });
+    await settle(page, before);
+    await page.click('button[name="tab-results"]');
+    expect(await page.locator('output[name="time-label"]').innerText()).toBe('steady state');
+    expect(await page.locator('input[name="time"]').count()).toBe(0);
+    expect(await badge(page, 'basement')).toMatch(/steady state/);
+    expect(await page.locator('results-panel .dd-facts').first().innerText()).toMatch(/Thiem \(1906\), R = \d+/);
+  });
+
   it('places a site-plan image by two reference points', async () => {
     await page.click('button[name="tab-backdrop"]');
     const png = readFileSync('node_modules/leaflet/dist/images/layers-2x.png'); // any PNG will do: 52 × 52 px

@@ -177,6 +177,13 @@ describe('the plan-map page', () => {
     // Area 400 m² (20 m × 20 m) shows in the editor: the transform round-trips to the millimetre.
     expect(await page.locator('excavation-editor .dd-facts').innerText()).toMatch(/area 400\s*m²/);
     expect(await page.locator('path.dd-excavation').count()).toBe(2);
+    // The map widens to show the new outline.
+    const centre = await pagePoint(page, 389310, 5819510);
+    const box = (await page.locator('plan-map').boundingBox())!;
+    expect(centre.x).toBeGreaterThan(box.x);
+    expect(centre.x).toBeLessThan(box.x + box.width);
+    expect(centre.y).toBeGreaterThan(box.y);
+    expect(centre.y).toBeLessThan(box.y + box.height);
     await s.screenshot('07-geojson-imported');
   });
 

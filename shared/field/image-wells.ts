@@ -281,8 +281,8 @@ const MAX_TAIL_TERMS = 2_000_000;
  * away and a left-out reflection image (n > N or n ≤ −N) at least 2(|n| − 1)·d resp. 2|n|·d away,
  * so with f the largest unit response at a distance, the error is at most
  * ΣQ·[Σ_{m>N} 2f((2m−1)d) + Σ_{m≥N} 2f(2md)] (triangle inequality; f non-increasing).
- * The tail is summed until f underflows to 0 (E1 and K0 do beyond u ≈ 745), or for clipped
- * steady responses until the images lie beyond R.
+ * The tail is summed until its terms fall below 1e-30 m per m³/s (plus a 1e-24 allowance for
+ * the rest), or for clipped steady responses until the images lie beyond R (then exactly 0).
  */
 export function chooseParallelTerms({
   spacing_m,
@@ -301,12 +301,17 @@ export function chooseParallelTerms({
     const bm = 2 * maxUnitResponseAt(2 * m * d);
     a.push(am);
     b.push(bm);
-    if (am === 0 && bm === 0) break;
+    // Past 1e-30 m per m³/s the terms only shrink faster (Gaussian-like for W, geometric for
+    // K0 with ratio e^(−2d/B)); what follows is covered by TAIL_REMAINDER below.
+    if (am + bm < 1e-30) break;
   }
   const M = a.length - 1;
+  // Allowance for the terms after the stop, per m³/s: below 1e-30·B/(2d) even for the slowest
+  // (K0) decay at B/d ≤ 1e5; generous and still far below any tolerance.
+  const TAIL_REMAINDER = 1e-24;
   // The loop stopped on underflow (true tail < 1e-300) or at the cap; past the cap the terms
   // cannot exceed the last one, which would make the bound infinite — count it as such.
-  if (M === MAX_TAIL_TERMS && (a[M]! > 0 || b[M]! > 0)) {
+  if (M === MAX_TAIL_TERMS && a[M]! + b[M]! >= 1e-30) {
     throw new DrydigError(
       'DRYDIG_ERR_UNSUPPORTED_BOUNDARIES',
       `/boundaries/1: the parallel boundaries are ${d} m apart, too narrow for the image series against the reach of the drawdown`,
@@ -322,7 +327,7 @@ export function chooseParallelTerms({
   const boundFor = (N: number) => {
     const ta = N + 1 <= M ? tailA[N + 1]! : 0;
     const tb = N >= 1 && N <= M ? tailB[N]! : 0;
-    return totalAbsRate_m3_s * (ta + tb);
+    return totalAbsRate_m3_s * (ta + tb + (a[M]! + b[M]! > 0 ? TAIL_REMAINDER : 0));
   };
   let N = 1;
   while (N < maxTerms && boundFor(N) > tolerance_m) N++;

@@ -2,7 +2,7 @@
  * Everything an evaluation needs before it touches a point: the model, the boundary geometry,
  * the image-series truncation with its bound, the flat source list and the ModelInfo to report.
  */
-import type { Scenario } from '../schema';
+import { DrydigError, type Scenario } from '../schema';
 import { resolveFieldModel, formatMetres, type FieldModel } from './field-model';
 import { chooseParallelTerms, countImagesPerWell, resolveBoundaryGeometry, type BoundaryGeometry } from './image-wells';
 import { buildSourceSet, getMaxUnitResponse, getModelRateSteps, type SourceSet } from './source-set';
@@ -72,6 +72,18 @@ export function prepareField({ scenario, time_s, stepsOf, boundRate_m3_s }: Prep
     }
   }
 
+  // A radius of influence inside a well would give that well a negative Thiem drawdown at its face.
+  const R = model.influenceRadius_m;
+  if (R !== undefined) {
+    const i = scenario.wells.findIndex((w) => w.radius_m >= R);
+    if (i >= 0) {
+      const path = '/aquifer/influenceRadius_m';
+      const how = model.influenceRadiusSource === 'sichardt' ? 'Sichardt’s estimate from the design drawdown' : 'the scenario’s value';
+      throw new DrydigError('DRYDIG_ERR_INVALID_SCENARIO', `${path}: the radius of influence (${formatMetres(R)} m, ${how}) does not exceed the radius of well "${scenario.wells[i]!.id}" (${scenario.wells[i]!.radius_m} m)`, [
+        { path, message: `must exceed every well radius; give a larger influenceRadius_m (${how} is ${formatMetres(R)} m)` },
+      ]);
+    }
+  }
   const sources = buildSourceSet({ scenario, model, geometry, terms, stepsOf: steps });
   const info: ModelInfo = {
     method: model.method,

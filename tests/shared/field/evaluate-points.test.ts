@@ -227,6 +227,17 @@ describe('evaluatePoints input errors', () => {
     }
   });
 
+  it('evaluatePoints refuses a radius of influence no larger than a well radius, naming /aquifer/influenceRadius_m', () => {
+    const tiny = scenarioWith({ aquifer: confinedAquifer({ influenceRadius_m: 0.1 }), wells: [well('W1', 0, 0, { rate_m3_s: 0.01, radius_m: 0.15 })], time_s: null });
+    try {
+      evaluatePoints({ scenario: tiny, points: [[1, 0]] });
+      expect.unreachable();
+    } catch (e) {
+      expect((e as DrydigError).code).toBe('DRYDIG_ERR_INVALID_SCENARIO');
+      expect((e as DrydigError).issues[0]!.path).toBe('/aquifer/influenceRadius_m');
+    }
+  });
+
   it('evaluatePoints takes Sichardt’s R = 3000·s·√K from the design drawdown when R is absent', () => {
     const withPit = scenarioWith({
       aquifer: confinedAquifer(),

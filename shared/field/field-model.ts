@@ -151,7 +151,7 @@ export function resolveFieldModel({ scenario, time_s }: ResolveFieldModelOptions
     notes.push(
       steady
         ? 'Unconfined, steady: Dupuit–Thiem, H² − h² = Q/(πK)·ln(R/r), superposed in H² − h² (Dupuit 1863, Thiem 1906); no seepage face at the well, no recharge.'
-        : 'Unconfined, transient: Theis on the discharge potential with T = K·H, S = Sy, then s = H − sqrt(H² − 2H·s_c) (the inverse of Jacob’s 1944 correction); delayed yield is not modelled, so early-time drawdown is overstated.',
+        : 'Unconfined, transient: Theis on the discharge potential with T = K·H, S = Sy, then s = H − sqrt(H² − 2H·s_c) (the inverse of Jacob’s 1944 correction); delayed (gravity) drainage is not modelled: in the first hours to days the aquifer answers with its much smaller elastic storage, so real early drawdown can exceed this estimate before it converges to it.',
       'Dupuit assumptions degrade where drawdown exceeds about a quarter of the saturated thickness (flag "large-drawdown"); levels inside a pumping well exclude the seepage face.',
     );
   } else {

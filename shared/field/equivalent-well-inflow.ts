@@ -89,7 +89,7 @@ export function equivalentWellInflow({ scenario, excavationId, time_s }: Equival
     ]);
   }
   if (a.kind !== 'unconfined' && a.top_m !== undefined && target < a.top_m) {
-    assumptions.push(`The target ${formatMetres(target)} m is below the aquifer top ${formatMetres(a.top_m)} m: near the excavation the aquifer turns unconfined and the confined formula overstates the drawdown per unit rate (understates the rate).`);
+    assumptions.push(`The target ${formatMetres(target)} m is below the aquifer top ${formatMetres(a.top_m)} m: near the excavation the aquifer turns unconfined. At steady state the thinner saturated section makes the confined formula slightly overstate the rate; in a transient run the water drained from the dewatered zone (specific yield) is not counted, so the rate needed to reach the target in time may be understated.`);
   }
 
   if (steady) {

@@ -159,7 +159,7 @@ export function resolveFieldModel({ scenario, time_s }: ResolveFieldModelOptions
       steady
         ? 'Confined, steady: Thiem (1906), s = Q/(2πT)·ln(R/r).'
         : 'Confined, transient: Theis (1935), s = Q/(4πT)·W(u), u = r²S/(4Tt).',
-      'Where the head falls below the aquifer top the aquifer turns unconfined locally (flag "confined-to-unconfined") and the confined solution overstates the drawdown there.',
+      'Where the head falls below the aquifer top the aquifer turns unconfined locally (flag "confined-to-unconfined"): the saturated section thins, so the confined solution understates the steady drawdown there, while drainage of the dewatered zone (specific yield) slows the drawdown in time; treat levels there as approximate.',
     );
   }
 

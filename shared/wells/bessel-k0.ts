@@ -1,7 +1,6 @@
 import { requirePositive } from './check-argument';
-import { evaluatePolynomial } from './evaluate-polynomial';
 import { EULER_GAMMA, EXP_MINUS_64 } from './theis-well-function';
-import { K0_2_4, K0_4_8, K0_I0, K0_Q, K0_TAIL } from './well-function-coefficients';
+import { k0Scaled2To4, k0Scaled4To8, k0ScaledTail, k0SmallI0, k0SmallQ } from './well-function-coefficients';
 
 /** Beyond this x, K0(x) < e^(−x)·√(π/(2x)) is below the smallest subnormal double. */
 export const K0_UNDERFLOW_X = 745;
@@ -23,13 +22,13 @@ export function besselK0(x: number): number {
     if (!(x > 0)) requirePositive('besselK0', 'x', x);
     const y = 0.25 * x * x;
     const z = 2 * y - 1;
-    return y * evaluatePolynomial(K0_Q, z) - (Math.log(0.5 * x) + EULER_GAMMA) * evaluatePolynomial(K0_I0, z);
+    return y * k0SmallQ(z) - (Math.log(0.5 * x) + EULER_GAMMA) * k0SmallI0(z);
   }
   let h: number;
-  if (x <= 4) h = evaluatePolynomial(K0_2_4, x - 3);
-  else if (x <= 8) h = evaluatePolynomial(K0_4_8, 0.5 * x - 3);
+  if (x <= 4) h = k0Scaled2To4(x - 3);
+  else if (x <= 8) h = k0Scaled4To8(0.5 * x - 3);
   else if (x > K0_UNDERFLOW_X) return 0; // also +Infinity
-  else h = evaluatePolynomial(K0_TAIL, 16 / x - 1);
+  else h = k0ScaledTail(16 / x - 1);
   if (x < 708) return (Math.exp(-x) / Math.sqrt(x)) * h;
   return ((Math.exp(64 - x) / Math.sqrt(x)) * h) * EXP_MINUS_64; // see theisWellFunction
 

@@ -1,6 +1,12 @@
 import { requirePositive } from './check-argument';
-import { evaluatePolynomial } from './evaluate-polynomial';
-import { E1_1_2, E1_2_4, E1_4_8, E1_8_16, E1_SMALL, E1_TAIL } from './well-function-coefficients';
+import {
+  e1Scaled1To2,
+  e1Scaled2To4,
+  e1Scaled4To8,
+  e1Scaled8To16,
+  e1ScaledTail,
+  e1Small,
+} from './well-function-coefficients';
 
 /** Euler–Mascheroni constant γ (Abramowitz & Stegun 1964, 6.1.3). */
 export const EULER_GAMMA = 0.5772156649015329;
@@ -29,18 +35,18 @@ export const E1_UNDERFLOW_U = 740;
 export function theisWellFunction(u: number): number {
   if (u <= 1) {
     if (!(u > 0)) requirePositive('theisWellFunction', 'u', u);
-    return -EULER_GAMMA - Math.log(u) + u * evaluatePolynomial(E1_SMALL, 2 * u - 1);
+    return -EULER_GAMMA - Math.log(u) + u * e1Small(2 * u - 1);
   }
   if (u <= 4) {
-    const g = u <= 2 ? evaluatePolynomial(E1_1_2, 2 * u - 3) : evaluatePolynomial(E1_2_4, u - 3);
+    const g = u <= 2 ? e1Scaled1To2(2 * u - 3) : e1Scaled2To4(u - 3);
     return (Math.exp(-u) / u) * g;
   }
   if (u <= 16) {
-    const g = u <= 8 ? evaluatePolynomial(E1_4_8, 0.5 * u - 3) : evaluatePolynomial(E1_8_16, 0.25 * u - 3);
+    const g = u <= 8 ? e1Scaled4To8(0.5 * u - 3) : e1Scaled8To16(0.25 * u - 3);
     return (Math.exp(-u) / u) * g;
   }
   if (u > E1_UNDERFLOW_U) return 0; // also +Infinity
-  const g = evaluatePolynomial(E1_TAIL, 32 / u - 1);
+  const g = e1ScaledTail(32 / u - 1);
   if (u < 708) return (Math.exp(-u) / u) * g;
   // e^(−u) alone would be subnormal here: scale by e^64 first so that only the final product
   // rounds into the subnormal range.

@@ -23,6 +23,8 @@ export interface LinkView {
   computeError: string | null;
   /** Program and version that computed levels and design. */
   computedBy: string;
+  /** When the results were frozen for this pinned revision (null: computed live). */
+  frozenAt: string | null;
   design: DesignResult | null;
   designError: string | null;
   cautions: string[];

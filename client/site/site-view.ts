@@ -244,7 +244,7 @@ export class SiteView extends LitElement {
         <a href=${this.api?.exportUrl('dxf') ?? '#'} download>DXF</a>
       </div>
       <p class="note">Scenario checksum ${v.revision.sha256.slice(0, 16)}… — the same number on the designer's copy means the same plan.
-        Levels and design computed by ${v.computedBy}.</p>`;
+        Levels and design computed by ${v.computedBy}${v.frozenAt ? `, fixed ${new Date(v.frozenAt).toLocaleString()} with this revision` : ''}.</p>`;
   }
 
   private pickWell(index: number): void {

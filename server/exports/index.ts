@@ -1,5 +1,6 @@
 /** Serving exports and computed views of stored revisions. */
 export * from './send-export';
 export * from './computed-views';
+export * from './computed-view';
 export * from './design-for';
 export * from './field-engine';

@@ -11,8 +11,8 @@ import {
 } from '../../shared/exports';
 import type { ExportFormat } from '../storage/http';
 import type { ReadingRecord, RevisionRecord } from '../storage';
-import { COMPUTED_BY, monitoringPlanFor, planResultsFor } from './computed-views';
-import { designFor } from './design-for';
+import { monitoringPlanFor } from './computed-views';
+import type { ComputedView } from './computed-view';
 
 /** What an export is made from. */
 export interface ExportSource {
@@ -20,6 +20,8 @@ export interface ExportSource {
   readings: readonly ReadingRecord[];
   /** True when a specific revision was asked for (file name says so either way). */
   pinned: boolean;
+  /** The computed plan and design to show (frozen snapshot or live); called only by formats that need it. */
+  computed: () => Promise<ComputedView>;
 }
 
 /** A file-name-safe slug of the scenario name (ASCII letters, digits, dashes). */
@@ -48,23 +50,22 @@ export async function renderExport(format: ExportFormat, source: ExportSource): 
     case 'setout-csv':
       return writeSetoutCsv({ scenario, projection });
     case 'geojson':
-      return writeGeoJson({ scenario, projection, revision: record.revision, results: planResultsFor(record.sha256, scenario).results });
+      return writeGeoJson({ scenario, projection, revision: record.revision, results: (await source.computed()).results });
     case 'dxf':
-      return writeDxf({ scenario, results: planResultsFor(record.sha256, scenario).results });
+      return writeDxf({ scenario, results: (await source.computed()).results });
     case 'monitoring-csv':
       return writeMonitoringCsv(monitoringPlanFor(scenario, source.readings));
     case 'report-html': {
-      const plan = planResultsFor(record.sha256, scenario);
-      const design = await designFor(record.sha256, scenario);
+      const computed = await source.computed();
       return writeReportHtml({
         scenario,
         projection,
         revision: record,
-        results: plan.results,
-        resultsError: plan.error ?? null,
-        computedBy: COMPUTED_BY,
-        design: design.design,
-        designError: design.error,
+        results: computed.results,
+        resultsError: computed.resultsError,
+        computedBy: computed.frozenAt ? `${computed.computedBy} (frozen ${computed.frozenAt}, when a link fixed this revision)` : computed.computedBy,
+        design: computed.design,
+        designError: computed.designError,
         monitoring: monitoringPlanFor(scenario, source.readings),
       });
     }

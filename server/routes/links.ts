@@ -22,7 +22,7 @@ import {
   type ExportFormat,
 } from '../storage/http';
 import { writeRateLimit } from '../security';
-import { COMPUTED_BY, designFor, monitoringPlanFor, planResultsFor, sendExport } from '../exports';
+import { computedViewFor, monitoringPlanFor, sendExport } from '../exports';
 import { saveOn } from './scenarios';
 
 interface OpenedLink {
@@ -65,8 +65,8 @@ const routes = async (app: FastifyInstance) => {
     const opened = await openLink(store, request.params.token);
     const { record, link } = opened;
     const projection = createSiteProjection(record.scenario);
-    const plan = planResultsFor(record.sha256, record.scenario);
-    const design = await designFor(record.sha256, record.scenario);
+    const computed = await computedViewFor(store, record);
+    const plan = computed.results;
     reply.header('cache-control', 'no-store');
     return {
       link: linkInfo(link),
@@ -77,18 +77,17 @@ const routes = async (app: FastifyInstance) => {
       georeferenced: projection !== null,
       crs: record.scenario.crs ?? null,
       setout: buildSetoutRows(record.scenario, projection),
-      contours: plan.results
-        ? { time_s: plan.results.time_s, lines: plan.results.contours.lines.map((l) => ({ level_m: l.level, coordinates: l.coordinates })) }
-        : null,
-      excavationChecks: plan.results?.excavations ?? [],
-      flagCounts: plan.results?.flagCounts ?? null,
-      method: plan.results?.model.method ?? null,
-      modelNotes: plan.results?.model.notes ?? [],
-      computeError: plan.error ?? null,
-      computedBy: COMPUTED_BY,
-      design: design.design,
-      designError: design.error,
-      cautions: [...DESIGN_CAUTIONS, ...(design.design?.cautions ?? [])],
+      contours: plan ? { time_s: plan.time_s, lines: plan.contours.lines.map((l) => ({ level_m: l.level, coordinates: l.coordinates })) } : null,
+      excavationChecks: plan?.excavations ?? [],
+      flagCounts: plan?.flagCounts ?? null,
+      method: plan?.model.method ?? null,
+      modelNotes: plan?.model.notes ?? [],
+      computeError: computed.resultsError,
+      computedBy: computed.computedBy,
+      frozenAt: computed.frozenAt,
+      design: computed.design,
+      designError: computed.designError,
+      cautions: [...DESIGN_CAUTIONS, ...(computed.design?.cautions ?? [])],
     };
   });
 
@@ -97,7 +96,9 @@ const routes = async (app: FastifyInstance) => {
     { schema: { summary: 'Export through a share link', description: 'The same exports as the scenario route, of the revision the link shows.', tags: ['links'], params: Type.Composite([TokenParamsSchema, Type.Object({ format: ExportFormatSchema })]) } },
     async (request, reply) => {
       const { link, record } = await openLink(store, request.params.token);
-      return sendExport(reply, request.params.format, { record, readings: await store.listReadings(link.scenarioId), pinned: link.revision !== null });
+      return sendExport(reply, request.params.format, {
+        record, readings: await store.listReadings(link.scenarioId), pinned: link.revision !== null, computed: () => computedViewFor(store, record),
+      });
     },
   );
 

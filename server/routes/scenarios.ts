@@ -32,7 +32,7 @@ import {
 } from '../storage/http';
 import { createShareToken, hashShareToken } from '../storage';
 import { writeRateLimit } from '../security';
-import { buildMonitoringSeries, sendExport } from '../exports';
+import { buildMonitoringSeries, computedViewFor, freezeComputedView, sendExport } from '../exports';
 
 declare module 'fastify' {
   interface FastifyInstance {
@@ -147,7 +147,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
       const revision = request.query.revision === undefined ? undefined : parseRevisionParam(request.query.revision, '/revision');
       const record = await requireRevision(store, request.params.id, revision);
       const readings = await store.listReadings(request.params.id);
-      return sendExport(reply, request.params.format, { record, readings, pinned: revision !== undefined });
+      return sendExport(reply, request.params.format, { record, readings, pinned: revision !== undefined, computed: () => computedViewFor(store, record) });
     },
   );
 
@@ -185,7 +185,9 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
     { bodyLimit: SMALL_BODY_LIMIT_BYTES, schema: { summary: 'Create a share link', description: 'A view-only or edit link with a 256-bit token (shown once; only its SHA-256 is stored), pinned to a revision or following the latest. sitePath opens the site view.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: LinkCreateBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const pinned = request.body.revision ?? null;
-      await requireRevision(store, request.params.id, pinned ?? undefined);
+      const record = await requireRevision(store, request.params.id, pinned ?? undefined);
+      // A pinned link is the agreed plan: freeze what is computed from it, so it reads the same later.
+      if (pinned !== null) await freezeComputedView(store, record);
       const token = createShareToken();
       const link = await store.createLink({
         scenarioId: request.params.id,

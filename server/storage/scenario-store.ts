@@ -112,6 +112,16 @@ export interface ReadingRecord {
 
 export type AppendReadingInput = Omit<ReadingRecord, 'readingId' | 'enteredAt'>;
 
+/** Results computed for a revision and frozen when a link pinned it (JSON text, engine-defined). */
+export interface SnapshotRecord {
+  /** Checksum of the revision the results belong to. */
+  sha256: string;
+  /** Program and version that computed them, e.g. "drydig 0.1.0". */
+  computedBy: string;
+  computedAt: string;
+  body: string;
+}
+
 /** The storage engine behind the scenario, link and reading routes. */
 export interface ScenarioStore {
   /** Stores revision 1 of a new scenario. */
@@ -132,6 +142,9 @@ export interface ScenarioStore {
   appendReading(input: AppendReadingInput): Promise<ReadingRecord>;
   /** Oldest first. */
   listReadings(scenarioId: string): Promise<ReadingRecord[]>;
+  /** Stores computed results for a revision checksum; the first one stored stays (insert-only). */
+  putSnapshot(input: Omit<SnapshotRecord, 'computedAt'>): Promise<void>;
+  getSnapshot(sha256: string): Promise<SnapshotRecord | undefined>;
   close(): Promise<void>;
 }
 

@@ -26,7 +26,7 @@ import {
 import { summariseScenarioChanges } from './summarise-changes';
 import { createRecordId, sha256Hex } from './tokens';
 
-const SCHEMA_VERSION = 1;
+const SCHEMA_VERSION = 2;
 
 const MIGRATION_1 = `
 CREATE TABLE scenarios (
@@ -74,6 +74,21 @@ CREATE TRIGGER revisions_no_update BEFORE UPDATE ON revisions BEGIN SELECT RAISE
 CREATE TRIGGER revisions_no_delete BEFORE DELETE ON revisions BEGIN SELECT RAISE(ABORT, 'revisions are immutable'); END;
 CREATE TRIGGER readings_no_update BEFORE UPDATE ON readings BEGIN SELECT RAISE(ABORT, 'readings are append-only'); END;
 CREATE TRIGGER readings_no_delete BEFORE DELETE ON readings BEGIN SELECT RAISE(ABORT, 'readings are append-only'); END;
+`;
+
+/**
+ * Schema 2: results computed for a revision when a link pins it (the agreed plan), so the link
+ * shows the same numbers after an engine upgrade. Keyed by the revision's checksum; insert-only.
+ */
+const MIGRATION_2 = `
+CREATE TABLE snapshots (
+  sha256 TEXT PRIMARY KEY,
+  computed_by TEXT NOT NULL,
+  computed_at TEXT NOT NULL,
+  body TEXT NOT NULL
+) WITHOUT ROWID;
+CREATE TRIGGER snapshots_no_update BEFORE UPDATE ON snapshots BEGIN SELECT RAISE(ABORT, 'snapshots are immutable'); END;
+CREATE TRIGGER snapshots_no_delete BEFORE DELETE ON snapshots BEGIN SELECT RAISE(ABORT, 'snapshots are immutable'); END;
 `;
 
 interface RevisionRow {
@@ -175,10 +190,14 @@ export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): Sc
   const version = db.pragma('user_version', { simple: true }) as number;
   if (version > SCHEMA_VERSION)
     throw new Error(`the database was written by a newer drydig (schema ${version}, this one knows ${SCHEMA_VERSION})`);
-  if (version < 1) {
+  // Each step runs once, in order, inside a transaction with the version bump.
+  const migrations: Array<[number, string]> = [[1, MIGRATION_1], [2, MIGRATION_2]];
+  for (const [target, sql] of migrations) {
     db.transaction(() => {
-      db.exec(MIGRATION_1);
-      db.pragma(`user_version = ${SCHEMA_VERSION}`);
+      const current = db.pragma('user_version', { simple: true }) as number;
+      if (current >= target) return;
+      db.exec(sql);
+      db.pragma(`user_version = ${target}`);
     }).immediate();
   }
 
@@ -210,6 +229,8 @@ export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): Sc
     ),
     readingById: db.prepare('SELECT * FROM readings WHERE reading_id = ?'),
     readingsOf: db.prepare('SELECT * FROM readings WHERE scenario_id = ? ORDER BY time_s, reading_id'),
+    insertSnapshot: db.prepare('INSERT OR IGNORE INTO snapshots (sha256, computed_by, computed_at, body) VALUES (?, ?, ?, ?)'),
+    snapshot: db.prepare('SELECT sha256, computed_by, computed_at, body FROM snapshots WHERE sha256 = ?'),
   };
 
   const now = () => new Date().toISOString();
@@ -308,6 +329,13 @@ export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): Sc
     },
     async listReadings(scenarioId) {
       return (q.readingsOf.all(scenarioId) as ReadingRow[]).map(toReading);
+    },
+    async putSnapshot(input) {
+      q.insertSnapshot.run(input.sha256, input.computedBy, now(), input.body);
+    },
+    async getSnapshot(sha256) {
+      const row = q.snapshot.get(sha256) as { sha256: string; computed_by: string; computed_at: string; body: string } | undefined;
+      return row ? { sha256: row.sha256, computedBy: row.computed_by, computedAt: row.computed_at, body: row.body } : undefined;
     },
     async close() {
       if (db.open) db.close();

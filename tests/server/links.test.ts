@@ -105,6 +105,42 @@ describe('GET /api/v1/links/:token', () => {
     expect(f.scenario).toEqual(second);
   });
 
+  it('serves a pinned revision’s computed results frozen when the link was made, not recomputed', async () => {
+    const scenario = demoScenario('confined');
+    const id = await createStored(app, scenario);
+    const record = (await app.inject({ method: 'GET', url: `/api/v1/scenarios/${id}` })).json();
+    // Stand-in for results from an older engine: whatever was frozen first is what the link shows.
+    await app.scenarioStore.putSnapshot({
+      sha256: record.sha256,
+      computedBy: 'drydig 0.0.9',
+      body: JSON.stringify({ resultsError: 'frozen with the agreed plan', design: null, designError: 'frozen design marker' }),
+    });
+    const pinned = await createLink(app, id, 'view', 1);
+    const following = await createLink(app, id, 'view');
+    const p = (await app.inject({ method: 'GET', url: `/api/v1/links/${pinned}` })).json();
+    expect(p).toMatchObject({ computedBy: 'drydig 0.0.9', computeError: 'frozen with the agreed plan', designError: 'frozen design marker', contours: null });
+    expect(p.frozenAt).toMatch(/^\d{4}-\d{2}-\d{2}T/);
+    const report = await app.inject({ method: 'GET', url: `/api/v1/links/${pinned}/export/report-html` });
+    expect(report.body).toContain('drydig 0.0.9 (frozen');
+    // The following link is the same revision today, so it shows the same frozen snapshot.
+    expect((await app.inject({ method: 'GET', url: `/api/v1/links/${following}` })).json().computedBy).toBe('drydig 0.0.9');
+  });
+
+  it('freezes the computed results when a pinned link is made', async () => {
+    const id = await createStored(app, demoScenario('confined'));
+    const sha = (await app.inject({ method: 'GET', url: `/api/v1/scenarios/${id}` })).json().sha256;
+    expect(await app.scenarioStore.getSnapshot(sha)).toBeUndefined();
+    await createLink(app, id, 'view');
+    expect(await app.scenarioStore.getSnapshot(sha)).toBeUndefined();
+    const token = await createLink(app, id, 'view', 1);
+    const snapshot = await app.scenarioStore.getSnapshot(sha);
+    expect(snapshot?.computedBy).toMatch(/^drydig /);
+    const frozen = JSON.parse(snapshot!.body);
+    const view = (await app.inject({ method: 'GET', url: `/api/v1/links/${token}` })).json();
+    expect(view.design.totalRate_m3_s).toBe(frozen.design.totalRate_m3_s);
+    expect(view.contours.lines.length).toBe(frozen.results.contours.lines.length);
+  });
+
   it.each([
     ['a well-formed token nobody issued', 'A'.repeat(43), 404],
     ['a token with a character outside base64url', `${'A'.repeat(42)}!`, 400],

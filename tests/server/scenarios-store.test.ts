@@ -46,6 +46,30 @@ describe('openScenarioStore(dataDir)', () => {
     await reopened.close();
   });
 
+  it('migrates to the current schema once, and refuses a database from a newer drydig', async () => {
+    const dir = tempDir();
+    (await openScenarioStore(dir).close());
+    const raw = new Database(join(dir, DATABASE_FILE));
+    expect(raw.pragma('user_version', { simple: true })).toBe(2);
+    expect(raw.prepare("SELECT name FROM sqlite_master WHERE type = 'table' ORDER BY name").all().map((r) => (r as { name: string }).name))
+      .toEqual(expect.arrayContaining(['links', 'readings', 'revisions', 'scenarios', 'snapshots']));
+    raw.close();
+    const again = openScenarioStore(dir);
+    await again.close();
+    const newer = new Database(join(dir, DATABASE_FILE));
+    newer.pragma('user_version = 99');
+    newer.close();
+    expect(() => openScenarioStore(dir)).toThrow(/newer drydig \(schema 99/);
+  });
+
+  it('keeps the first snapshot stored for a checksum', async () => {
+    const store = openScenarioStore(':memory:');
+    await store.putSnapshot({ sha256: 'a'.repeat(64), computedBy: 'drydig 1', body: '{"n":1}' });
+    await store.putSnapshot({ sha256: 'a'.repeat(64), computedBy: 'drydig 2', body: '{"n":2}' });
+    expect(await store.getSnapshot('a'.repeat(64))).toMatchObject({ computedBy: 'drydig 1', body: '{"n":1}' });
+    await store.close();
+  });
+
   it("':memory:' keeps nothing between stores", async () => {
     const a = openScenarioStore(':memory:');
     const saved = await a.createScenario({ scenario: demoScenario('confined') });

@@ -1,0 +1,57 @@
+/**
+ * Everything computed from a stored revision that a view or export shows beside it: the plan
+ * (levels, contours, checks, flags) and the design result. Live from the engine, or — once a link
+ * has pinned the revision as the agreed plan — the snapshot frozen then, so the link keeps showing
+ * the same numbers after an engine upgrade. The snapshot says which engine made it.
+ */
+import type { PlanResults } from '../../shared/exports';
+import type { DesignResult } from '../../shared/design';
+import type { RevisionRecord, ScenarioStore } from '../storage';
+import { COMPUTED_BY, planResultsFor } from './computed-views';
+import { designFor } from './design-for';
+
+export interface ComputedView {
+  results?: PlanResults;
+  /** Why there are no plan results, in words (null when there are). */
+  resultsError: string | null;
+  design: DesignResult | null;
+  designError: string | null;
+  /** Program and version that computed this, e.g. "drydig 0.1.0". */
+  computedBy: string;
+  /** When the snapshot was frozen (a pinned link), or null for live results. */
+  frozenAt: string | null;
+}
+
+interface SnapshotBody {
+  results?: PlanResults;
+  resultsError: string | null;
+  design: DesignResult | null;
+  designError: string | null;
+}
+
+async function computeLive(record: RevisionRecord): Promise<ComputedView> {
+  const plan = planResultsFor(record.sha256, record.scenario);
+  const design = await designFor(record.sha256, record.scenario);
+  return {
+    results: plan.results, resultsError: plan.error ?? null, design: design.design, designError: design.error,
+    computedBy: COMPUTED_BY, frozenAt: null,
+  };
+}
+
+/** The frozen snapshot of a revision if a link pinned it, else live results. */
+export async function computedViewFor(store: ScenarioStore, record: RevisionRecord): Promise<ComputedView> {
+  const snapshot = await store.getSnapshot(record.sha256);
+  if (!snapshot) return computeLive(record);
+  const body = JSON.parse(snapshot.body) as SnapshotBody;
+  return { ...body, computedBy: snapshot.computedBy, frozenAt: snapshot.computedAt };
+}
+
+/** Freezes the revision's computed results (first freeze wins; later calls return it). */
+export async function freezeComputedView(store: ScenarioStore, record: RevisionRecord): Promise<ComputedView> {
+  if (!(await store.getSnapshot(record.sha256))) {
+    const live = await computeLive(record);
+    const body: SnapshotBody = { results: live.results, resultsError: live.resultsError, design: live.design, designError: live.designError };
+    await store.putSnapshot({ sha256: record.sha256, computedBy: live.computedBy, body: JSON.stringify(body) });
+  }
+  return computedViewFor(store, record);
+}

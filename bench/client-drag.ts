@@ -115,6 +115,8 @@ async function main(): Promise<void> {
       idle_fine_grid_after_open_ms: idleMs,
       chromium: version,
       cpus: os.cpus().length,
+      // Other work on the machine skews the tail: report the load the figure was taken under.
+      load_average_1min: Number(os.loadavg()[0]!.toFixed(2)),
       node: process.version,
     };
     console.log(JSON.stringify(result, null, 2));

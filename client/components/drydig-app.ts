@@ -50,8 +50,12 @@ const TOOLS: Array<[MapTool, string, string]> = [
 ];
 
 /** Grid nodes on the longer side of the view: coarse while dragging, fine when idle. */
-const COARSE_NODES = 44;
+const COARSE_NODES_START = 40;
+const COARSE_NODES_MIN = 24;
+const COARSE_NODES_MAX = 80;
 const FINE_NODES = 150;
+/** Worker time a drag frame should take, ms: the coarse grid adapts to stay near it. */
+const COARSE_TARGET_MS = 20;
 
 /** The read-only test hook (`window.__drydig`): counts and state, never a way to edit. */
 export interface DrydigTestHook {
@@ -98,6 +102,8 @@ export class DrydigApp extends LightElement {
   /** Times of drag inputs not yet reflected on screen (for the input-to-contours measure). */
   private unshownInputs: number[] = [];
   private lastDrawnId = 0;
+  /** Current coarse-grid size, adapted to the measured worker time (machine speed, well count). */
+  private coarseNodes = COARSE_NODES_START;
   private engineKey = '';
   private pickingRef: 0 | 1 | null = null;
   private projection: SiteProjection | ProjectionProblem | null = null;
@@ -283,7 +289,7 @@ export class DrydigApp extends LightElement {
       return;
     }
     const issuedAt = performance.now();
-    const grid = c.viewGrid(mode === 'coarse' ? COARSE_NODES : FINE_NODES);
+    const grid = c.viewGrid(mode === 'coarse' ? this.coarseNodes : FINE_NODES);
     const view = getViewSettings(this.scenario);
     try {
       const res = await engine.field(
@@ -295,6 +301,12 @@ export class DrydigApp extends LightElement {
         mode === 'fine' ? (f) => (this.computing = f < 1 ? f : -1) : undefined,
       );
       if (mode === 'fine') this.computing = -1;
+      if (res && mode === 'coarse') {
+        // Work grows with nodes (∝ n²): scale n by √(target / measured), damped, within bounds.
+        const factor = Math.sqrt(COARSE_TARGET_MS / Math.max(res.compute_ms, 1));
+        const next = this.coarseNodes * Math.min(1.25, Math.max(0.7, factor));
+        this.coarseNodes = Math.round(Math.min(COARSE_NODES_MAX, Math.max(COARSE_NODES_MIN, next)));
+      }
       if (!res || res.id < this.lastDrawnId) return;
       this.lastDrawnId = res.id;
       this.engineError = '';

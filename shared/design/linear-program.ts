@@ -63,13 +63,36 @@ export interface LinearProgramSolution {
   mipGap?: number;
 }
 
+/** Something that solves a LinearProgram (in process, or elsewhere: see `setLinearProgramSolver`). */
+export type LinearProgramSolver = (problem: LinearProgram) => Promise<LinearProgramSolution>;
+
+let external: LinearProgramSolver | null = null;
+
 /**
- * Solves `min cost·x` subject to the rows and bounds. Rows are passed to HiGHS as a CSR matrix;
- * the caller scales them (each row's largest coefficient near 1) so HiGHS's tolerances mean the
- * same thing in every row.
+ * Sends every later solve to `solver` (the server runs HiGHS in a worker thread so a long layout
+ * search does not hold its event loop); null solves in process again. Returns the previous one.
+ */
+export function setLinearProgramSolver(solver: LinearProgramSolver | null): LinearProgramSolver | null {
+  const previous = external;
+  external = solver;
+  return previous;
+}
+
+/**
+ * Solves `min cost·x` subject to the rows and bounds, in process or by the solver set with
+ * `setLinearProgramSolver`. Rows are passed to HiGHS as a CSR matrix; the caller scales them
+ * (each row's largest coefficient near 1) so HiGHS's tolerances mean the same thing in every row.
  */
 export async function solveLinearProgram(problem: LinearProgram): Promise<LinearProgramSolution> {
-  const highs = await loadLinearSolver();
+  if (external) return external(problem);
+  return solveWithHighs(await loadLinearSolver(), problem);
+}
+
+/**
+ * One solve with a loaded HiGHS runtime. Self-contained on purpose (it uses nothing but its
+ * arguments), so a worker thread can run the same code from its source text.
+ */
+export function solveWithHighs(highs: Highs, problem: LinearProgram): LinearProgramSolution {
   const inf = highs.infinity;
   const nCols = problem.cost.length;
   const starts = new Int32Array(problem.rows.length + 1);

@@ -11,7 +11,8 @@ describe('runDesign when the target cannot be reached', () => {
   it('names the suction-lift limit: well points with the header at ground cannot lift to the target', async () => {
     // Header 12 m, limit 5.5 m (common practice): pumping level ≥ 6.5 m, the same as the target,
     // so the level between the well points cannot fall to it.
-    const result = await runDesign({ scenario: fixture('demo-wellpoints-unconfined'), mode: 'optimal' });
+    const atGround = { ...fixture('demo-wellpoints-unconfined'), designOptions: { headerLevel_m: 12.0 } } as Scenario;
+    const result = await runDesign({ scenario: atGround, mode: 'optimal' });
     expect(result.feasible).toBe(false);
     expect(codes(result)).toContain('suction-lift');
     expect(result.excavations[0]!.met).toBe(false);

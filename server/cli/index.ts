@@ -41,6 +41,7 @@ export async function runCli(argv: readonly string[], io: CliIo = processIo()): 
     if (command === '--help' || command === '-h' || command === 'help') {
       const topic = command === 'help' ? args[0] : undefined;
       if (topic !== undefined && !(topic in COMMANDS)) throw new DrydigError('DRYDIG_ERR_CLI_USAGE', `help: unknown command "${topic}" (commands: ${Object.keys(COMMANDS).join(', ')})`);
+      if (topic !== undefined && HELP[topic] === undefined) return await (await COMMANDS[topic]!())(['--help'], io);
       io.stdout(topic !== undefined ? (HELP[topic] ?? USAGE) : USAGE);
       return EXIT_OK;
     }

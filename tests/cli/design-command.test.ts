@@ -28,6 +28,15 @@ async function run(...args: string[]) {
 }
 
 describe('drydig design', () => {
+  it('drydig help design prints the design options, as design --help does', async () => {
+    const viaHelp = captureIo(dir);
+    expect(await runCli(['help', 'design'], viaHelp)).toBe(0);
+    const viaFlag = await run('--help');
+    expect(viaFlag.code).toBe(0);
+    expect(viaHelp.out()).toBe(viaFlag.out);
+    expect(viaHelp.out()).toMatch(/--suction-lift M/);
+  });
+
   it('prints the design contract for each mode, as the engine computes it', async () => {
     for (const mode of ['uniform', 'optimal', 'layout']) {
       const { code, out, err } = await run('confined.json', '--mode', mode);

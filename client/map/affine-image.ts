@@ -3,7 +3,7 @@
  * site-plan underlay (two reference points fix scale, rotation and offset) and for web tiles
  * reprojected into site metres (each tile's corners placed through the projection).
  */
-import L from 'leaflet';
+import type L from 'leaflet';
 
 /** A similarity transform image pixel (u right, v down) → site metres, from two reference points. */
 export interface Similarity {

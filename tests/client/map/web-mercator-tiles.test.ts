@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { lonLatToTile, tileToLonLat } from '../../../client/map/projected-tile-layer';
+import { lonLatToTile, tileToLonLat } from '../../../client/map/web-mercator-tiles';
 
 function expectNear(a: number, b: number, tol = 1e-9) {
   expect(Math.abs(a - b), `${a} vs ${b}`).toBeLessThanOrEqual(tol);

@@ -238,6 +238,16 @@ describe('editing on the plan map', () => {
     expect(kept).toEqual([{ from_s: 0, rate_m3_s: 0.012 }, { from_s: 432000, rate_m3_s: 0 }]);
   });
 
+  it('saves the scenario as a JSON file that validates and keeps the view settings', async () => {
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('button[name="save"]')]);
+    expect(download.suggestedFilename()).toMatch(/\.drydig\.json$/);
+    const path = await download.path();
+    const saved = JSON.parse(readFileSync(path!, 'utf8'));
+    const { validateScenario } = await import('../../shared/schema');
+    expect(validateScenario(saved).ok).toBe(true);
+    expect(saved.wells[0].schedule).toEqual([{ from_s: 0, rate_m3_s: 0.012 }, { from_s: 432000, rate_m3_s: 0 }]);
+  });
+
   it('shows a steady-state scenario without a time control', async () => {
     const steady = { ...(await page.evaluate(() => (window as unknown as { __drydig: { scenario(): object } }).__drydig.scenario())), name: 'steady', design: { time_s: null } };
     const before = await fieldsDrawn(page);

@@ -5,9 +5,13 @@ import { validateScenario, parseScenario, DrydigError, type Scenario } from '../
 const demoUnconfined = JSON.parse(readFileSync('fixtures/demo-wellpoints-unconfined.json', 'utf8')) as Scenario;
 const demoConfined = JSON.parse(readFileSync('fixtures/demo-deepwells-confined.json', 'utf8')) as Scenario;
 
+/** A loosely typed scenario document, so a test can break any field the way a user file might. */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- deliberately untyped: the point is to write invalid documents
+type LooseDocument = Record<string, any>;
+
 /** A deep copy of a demo with one change applied. */
-function variant(base: Scenario, change: (s: Record<string, any>) => void): unknown {
-  const copy = structuredClone(base) as Record<string, any>;
+function variant(base: Scenario, change: (s: LooseDocument) => void): unknown {
+  const copy = structuredClone(base) as LooseDocument;
   change(copy);
   return copy;
 }

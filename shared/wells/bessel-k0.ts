@@ -18,7 +18,8 @@ export const K0_UNDERFLOW_X = 745;
  * @throws RangeError when x ≤ 0 or x is NaN
  */
 export function besselK0(x: number): number {
-  if (x <= 2) {
+  // Written as !(x > 2) so that NaN takes this branch and reaches the guard.
+  if (!(x > 2)) {
     if (!(x > 0)) requirePositive('besselK0', 'x', x);
     const y = 0.25 * x * x;
     const z = 2 * y - 1;

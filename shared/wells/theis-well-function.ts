@@ -33,7 +33,8 @@ export const E1_UNDERFLOW_U = 740;
  * @throws RangeError when u ≤ 0 or u is NaN
  */
 export function theisWellFunction(u: number): number {
-  if (u <= 1) {
+  // Written as !(u > 1) so that NaN takes this branch and reaches the guard.
+  if (!(u > 1)) {
     if (!(u > 0)) requirePositive('theisWellFunction', 'u', u);
     return -EULER_GAMMA - Math.log(u) + u * e1Small(2 * u - 1);
   }

@@ -5,7 +5,8 @@ import { E1_UNDERFLOW_U, theisWellFunction } from './theis-well-function';
 
 /**
  * Largest r/B for which the series branch is used. Its rounding error grows like
- * I0(β)·e^(β/2)·2^(−53) (≈ 1e−14 at β = 4, ≈ 5e−11 at β = 10); beyond it the integral is taken by quadrature.
+ * I0(β)·e^(β/2)·2^(−53) (≈ 1e−14 at β = 4, ≈ 5e−11 at β = 10); beyond it the integral is
+ * taken by quadrature.
  */
 export const HANTUSH_SERIES_MAX_R_OVER_B = 4;
 
@@ -24,7 +25,7 @@ const PANEL_LEVELS = [0, 0.5, 2, 4.5, 8, 12.5, 18, 24.5, 32, 40.5];
 /**
  * Hantush–Jacob leaky well function W(u, β) = ∫_u^∞ exp(−y − β²/(4y)) / y dy, with β = r/B.
  *
- * Hantush & Jacob (1955) Trans. AGU 36; Hantush (1956). Three exact relations do the work:
+ * Hantush & Jacob (1955) Trans. AGU 36; Hantush (1956). Three routes, chosen by (u, β):
  * - for u ≥ β/2, expanding exp(−β²/(4y)) in powers gives the convergent series
  *   W(u, β) = Σ_n (−β²/(4u))^n / n! · E_{n+1}(u) (cf. Veling & Maas 2010, J. Hydrology), with
  *   the generalised exponential integrals from the recurrence A&S 5.1.14;

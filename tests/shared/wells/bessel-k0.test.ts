@@ -6,9 +6,11 @@ import { MIN_NORMAL, SUBNORMAL_SPACING, expectRelativelyClose, relativeError } f
 const reference = loadWellFunctionReference();
 
 /**
- * Abramowitz & Stegun (1964), Table 9.8 (modified Bessel functions of orders 0, 1, 2), whose
- * K0 column for larger x is the scaled e^x·K0(x); for x ≤ 2 K0(x) itself is quoted. FROM
- * MEMORY (no printed copy at hand), then compared with mpmath 1.3.0: those here agree to the
+ * Abramowitz & Stegun (1964), Table 9.8 (modified Bessel functions), which prints the scaled
+ * e^x·K0(x) for x = 0(.1)10(.2)20 (per the chapter's list of tables in the NIST scan, p. 356); small
+ * arguments are covered by an auxiliary table of K0(x) + I0(x)·ln x, so the rows below marked
+ * form 'K0' are values of K0 itself rather than a printed column. FROM MEMORY (the table pages
+ * could not be found here), then compared with mpmath 1.3.0: those here agree to the
  * decimals given. Two recollections did not — e^x·K0(x) at x = 5 (0.547807524 recalled, mpmath
  * 0.547807564) and x = 15 (0.320814608 recalled, mpmath 0.321002354) — and were left out; we
  * trust mpmath (40-digit computation, matched by our independent implementation to 1e−16).

@@ -6,9 +6,10 @@ import { MIN_NORMAL, SUBNORMAL_SPACING, expectRelativelyClose, relativeError } f
 const reference = loadWellFunctionReference();
 
 /**
- * Abramowitz & Stegun (1964), Table 5.1 (exponential integrals), in the table's own forms:
- * E1(x) directly for 0.1 ≤ x ≤ 2 and the auxiliary x·e^x·E1(x) for x ≥ 2, to the 9 decimals the
- * table prints. FROM MEMORY: no printed copy was at hand in this environment, so these digits
+ * Abramowitz & Stegun (1964), Table 5.1 (exponential integrals), in the forms as remembered:
+ * E1(x) for 0.1 ≤ x ≤ 2 (for the smallest x the printed table may give only an auxiliary
+ * function such as [E1(x) + ln x + γ]/x — not checked) and the auxiliary x·e^x·E1(x) for x ≥ 2, to
+ * the 9 decimals the table prints. FROM MEMORY: no printed copy was at hand in this environment, so these digits
  * were entered from memory of the table and then compared with mpmath 1.3.0 (40 digits).
  * Those shown here agree with mpmath to the last printed digit. Six further recollections did
  * not — E1(0.3) (0.905677867 recalled, mpmath 0.905676652), x·e^x·E1(x) at x = 3, 4, 5, 6, 8

@@ -300,7 +300,7 @@ export class LeafletMapController {
       if (!m) {
         m = L.circleMarker([w.y, w.x], this.wellStyle(w));
         m.bindTooltip('', { direction: 'top', offset: [0, -6], className: 'dd-tip' });
-        m.on('mousedown', (e: L.LeafletMouseEvent) => this.startWellDrag(w.id, e));
+        this.onPointerDown(m, (ev) => this.startWellDrag(w.id, ev));
         m.on('click', (e: L.LeafletMouseEvent) => {
           L.DomEvent.stop(e);
           if (Date.now() < this.suppressClickUntil) return;
@@ -334,40 +334,67 @@ export class LeafletMapController {
     }
   }
 
-  private startWellDrag(id: string, e: L.LeafletMouseEvent): void {
-    if (this.tool !== 'select' || e.originalEvent.button !== 0) return;
-    L.DomEvent.stop(e);
+  private startWellDrag(id: string, ev: PointerEvent): void {
     this.cb.selectWell(id);
-    this.dragGesture(e, (ll, phase) => this.cb.dragWell(id, round3(ll.lng), round3(ll.lat), phase));
+    this.dragGesture(ev, (ll, phase) => this.cb.dragWell(id, round3(ll.lng), round3(ll.lat), phase));
   }
 
-  /** A mouse drag on the map: `move` per pointer move, `end` on release, `cancel` on Escape. */
-  private dragGesture(e: L.LeafletMouseEvent, report: (ll: L.LatLng, phase: 'move' | 'end' | 'cancel') => void): void {
+  /**
+   * Starts a drag from a pointerdown on a vector layer's element: pointer events cover mouse,
+   * touch and pen alike (a finger on a phone drags a well as a mouse does).
+   */
+  private onPointerDown(layer: L.Path, start: (ev: PointerEvent) => void): void {
+    const attach = () => {
+      const el = layer.getElement() as SVGElement | undefined;
+      if (!el || (el as SVGElement & { ddDrag?: boolean }).ddDrag) return;
+      (el as SVGElement & { ddDrag?: boolean }).ddDrag = true;
+      el.style.touchAction = 'none';
+      el.addEventListener('pointerdown', (ev: PointerEvent) => {
+        if (this.tool !== 'select' || ev.button !== 0 || !ev.isPrimary) return;
+        ev.preventDefault();
+        ev.stopPropagation();
+        start(ev);
+      });
+    };
+    layer.on('add', attach);
+    if (layer.getElement()) attach();
+  }
+
+  /** A pointer drag on the map: `move` per pointer move, `end` on release, `cancel` on Escape. */
+  private dragGesture(start: PointerEvent, report: (ll: L.LatLng, phase: 'move' | 'end' | 'cancel') => void): void {
     const map = this.map;
     map.dragging.disable();
     this.dragging = true;
     let moved = false;
-    let last = e.latlng;
-    const onMove = (ev: L.LeafletMouseEvent) => {
+    let last = map.mouseEventToLatLng(start as unknown as MouseEvent);
+    const onMove = (ev: PointerEvent) => {
+      if (ev.pointerId !== start.pointerId) return;
       moved = true;
-      last = ev.latlng;
-      report(ev.latlng, 'move');
+      last = map.mouseEventToLatLng(ev as unknown as MouseEvent);
+      report(last, 'move');
     };
     const finish = (phase: 'end' | 'cancel') => {
-      map.off('mousemove', onMove);
-      document.removeEventListener('mouseup', onUp, true);
+      document.removeEventListener('pointermove', onMove, true);
+      document.removeEventListener('pointerup', onUp, true);
+      document.removeEventListener('pointercancel', onCancel, true);
       document.removeEventListener('keydown', onKey, true);
       map.dragging.enable();
       this.dragging = false;
       if (moved) this.suppressClickUntil = Date.now() + 250;
       if (moved || phase === 'cancel') report(last, phase);
     };
-    const onUp = () => finish('end');
+    const onUp = (ev: PointerEvent) => {
+      if (ev.pointerId === start.pointerId) finish('end');
+    };
+    const onCancel = (ev: PointerEvent) => {
+      if (ev.pointerId === start.pointerId) finish('cancel');
+    };
     const onKey = (ev: KeyboardEvent) => {
       if (ev.key === 'Escape') finish('cancel');
     };
-    map.on('mousemove', onMove);
-    document.addEventListener('mouseup', onUp, true);
+    document.addEventListener('pointermove', onMove, true);
+    document.addEventListener('pointerup', onUp, true);
+    document.addEventListener('pointercancel', onCancel, true);
     document.addEventListener('keydown', onKey, true);
   }
 
@@ -406,15 +433,11 @@ export class LeafletMapController {
   private drawVertexHandles(id: string, outline: ReadonlyArray<readonly [number, number]>): void {
     outline.forEach(([x, y], i) => {
       const h = L.circleMarker([y, x], { radius: 5, color: SELECTION_COLOUR, weight: 2, fillColor: '#fff', fillOpacity: 1, className: 'dd-vertex', bubblingMouseEvents: false });
-      h.on('mousedown', (e: L.LeafletMouseEvent) => {
-        if (this.tool !== 'select') return;
-        L.DomEvent.stop(e);
-        this.dragGesture(e, (ll, phase) => {
-          h.setLatLng(ll);
-          this.cb.dragVertex(id, i, round3(ll.lng), round3(ll.lat), phase);
-        });
-      });
       h.addTo(this.handleLayer);
+      this.onPointerDown(h, (ev) => this.dragGesture(ev, (ll, phase) => {
+        h.setLatLng(ll);
+        this.cb.dragVertex(id, i, round3(ll.lng), round3(ll.lat), phase);
+      }));
       const next = outline[(i + 1) % outline.length]!;
       const mid: [number, number] = [(x + next[0]) / 2, (y + next[1]) / 2];
       const m = L.circleMarker([mid[1], mid[0]], { radius: 3.5, color: SELECTION_COLOUR, weight: 1.5, fillColor: SELECTION_COLOUR, fillOpacity: 0.5, className: 'dd-vertex-add', bubblingMouseEvents: false });

@@ -109,6 +109,33 @@ describe('editing on the plan map', () => {
     expect(await page.locator('ground-panel .dd-facts').innerText()).toMatch(/Transmissivity T = K·H = 0\.0037\sm²\/s/);
   });
 
+  it('pauses results with the field named when an edit makes the scenario invalid, and resumes on undo', async () => {
+    await loadDemo(page, 'wellpoints');
+    await page.click('button[name="tab-ground"]');
+    await page.fill('ground-panel input[name="base_m"]', '20');
+    await page.locator('ground-panel input[name="base_m"]').blur();
+    await expect.poll(() => page.locator('.dd-issues').first().innerText()).toMatch(/Results paused[\s\S]*\/aquifer\/base_m/);
+    const before = await fieldsDrawn(page);
+    await page.click('button[name="undo"]');
+    await settle(page, before);
+    expect(await page.locator('.dd-issues').count()).toBe(0);
+  });
+
+  it('says why when the engine cannot use the boundaries drawn', async () => {
+    // Two boundaries meeting at 60°: the image-well method handles one line, a right angle, or parallels.
+    await page.click('button[name="tool-boundary"]');
+    await clickSite(page, -20, -30);
+    await clickSite(page, -20, 50);
+    await page.click('button[name="tool-boundary"]');
+    await clickSite(page, -20, -30);
+    await clickSite(page, 20, 39.282);
+    await expect.poll(() => page.locator('.dd-issues').first().innerText(), { timeout: 10_000 }).toMatch(/Not computed:.*boundar/i);
+    expect(s.errors).toEqual([]);
+    await page.click('button[name="undo"]');
+    await page.click('button[name="undo"]');
+    await expect.poll(() => page.locator('.dd-issues').count()).toBe(0);
+  });
+
   it('deletes the selected well with the Delete key, undoably', async () => {
     await loadDemo(page, 'deepwells');
     await page.click('button[name="tab-layout"]');

@@ -146,6 +146,14 @@ export class DrydigApp extends LightElement {
     (window as unknown as { __drydig: DrydigTestHook }).__drydig = this.hook;
   }
 
+  /**
+   * The page's scenario store, for features that plug in (server storage, share links): load a
+   * scenario with `store.load()`, watch edits with `store.subscribe()`. Every edit goes through it.
+   */
+  get scenarioStore(): ScenarioStore {
+    return this.store;
+  }
+
   // ————— derived —————
 
   private get units(): DisplayUnits {

@@ -212,7 +212,10 @@ export class DesignPanel extends LightElement {
     this.options = { ...this.options, [key]: value };
   }
 
-  private field(key: keyof PanelOptions, label: string, unit: string, placeholder: string) {
+  /** A blank field shows what the run will use: the scenario's stored designOptions value, else the default. */
+  private field(key: keyof PanelOptions, label: string, unit: string, defaultText: string) {
+    const stored = (this.scenario as { designOptions?: Record<string, unknown> } | undefined)?.designOptions?.[key];
+    const placeholder = typeof stored === 'number' ? `${stored} (scenario)` : defaultText;
     return html`<label class="dd-field"><span>${label}</span><span class="dd-input-unit">
       <input type="text" inputmode="decimal" name=${`design-${key}`} placeholder=${placeholder} .value=${this.options[key]}
         @change=${(e: Event) => this.setOption(key, (e.target as HTMLInputElement).value)} /><em>${unit}</em></span></label>`;

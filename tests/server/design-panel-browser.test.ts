@@ -63,6 +63,12 @@ describe('<design-panel>', () => {
     await settle(page, before);
     await page.click('button[name="tab-design"]');
     await page.click('design-panel input[name="design-mode"][value="uniform"]');
+    // The demo's header sits on a platform at 10.8 m; put it at ground (12 m), where the
+    // common-practice 5.5 m suction lift stops the well points at the target itself.
+    await page.click('design-panel details.dd-section-block summary');
+    expect(await page.locator('design-panel input[name="design-headerLevel_m"]').getAttribute('placeholder')).toBe('10.8 (scenario)');
+    await page.fill('design-panel input[name="design-headerLevel_m"]', '12');
+    await page.press('design-panel input[name="design-headerLevel_m"]', 'Tab');
     await page.click('design-panel button[name="run-design"]');
     await page.waitForSelector('design-panel .dd-design-verdict[data-feasible="false"]', { timeout: 60_000 });
     expect(await page.locator('design-panel .dd-flag[data-code="suction-lift"]').count()).toBeGreaterThan(0);

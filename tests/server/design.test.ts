@@ -34,7 +34,9 @@ describe('POST /api/v1/design', () => {
   }, 60_000);
 
   it('answers feasible:false with reasons (not an error) when the target cannot be met', async () => {
-    const r = await postJson(app, '/api/v1/design', { scenario: loadFixture('unconfined'), mode: 'uniform' });
+    // Header at ground (12 m): the common-practice 5.5 m suction lift stops the well points at the target.
+    const scenario = { ...loadFixture('unconfined'), designOptions: { headerLevel_m: 12 } };
+    const r = await postJson(app, '/api/v1/design', { scenario, mode: 'uniform' });
     expect(r.status).toBe(200);
     const json = r.json() as { feasible: boolean; reasons: Array<{ code: string }> };
     expect(json.feasible).toBe(false);

@@ -102,8 +102,8 @@ describe('POST /api/v1/evaluate with a grid', () => {
     { fixture: 'unconfined', grid: { origin: [-50, -50], spacing_m: [5, 4], counts: [30, 30] }, time_s: 86_400, rateFactor: 1 },
     // Straddles the constant-head river line x = 389380 (beyond-boundary on the far side).
     { fixture: 'confined', grid: { origin: [389100, 5819300], spacing_m: [10, 10], counts: [40, 25] }, time_s: 604_800, rateFactor: 1 },
-    // Twice the demo rates: a partly dewatered pit (mixed masks) — level = base where dewatered.
-    { fixture: 'unconfined', grid: { origin: [-1.5, -1.5], spacing_m: [1, 1], counts: [44, 24] }, time_s: 1_209_600, rateFactor: 2 },
+    // 2.4 × the demo rates (1.2 L/s per well point): a partly dewatered pit (mixed masks) — level = base where dewatered.
+    { fixture: 'unconfined', grid: { origin: [-1.5, -1.5], spacing_m: [1, 1], counts: [44, 24] }, time_s: 1_209_600, rateFactor: 2.4 },
     // Three times the demo rates: the head falls below the confined aquifer's top.
     { fixture: 'confined', grid: { origin: [389150, 5819350], spacing_m: [5, 5], counts: [25, 25] }, time_s: 604_800, rateFactor: 3 },
   ];

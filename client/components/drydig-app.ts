@@ -33,8 +33,10 @@ import './time-chart';
 import './section-chart';
 import './caution-note';
 import './design-panel';
+import './scenario-store-panel';
+import type { ScenarioStorePanel } from './scenario-store-panel';
 
-type Tab = 'layout' | 'ground' | 'results' | 'design' | 'backdrop';
+type Tab = 'layout' | 'ground' | 'results' | 'design' | 'store' | 'backdrop';
 
 const DEMOS: Record<string, { label: string; scenario: Scenario }> = {
   wellpoints: { label: 'Demo: well points, unconfined (Quarry Lane)', scenario: demoWellpoints as unknown as Scenario },
@@ -564,6 +566,7 @@ export class DrydigApp extends LightElement {
     const scenario = v.scenario as Scenario & { view?: unknown };
     if (viewIssues.length > 0) delete scenario.view;
     this.demo = '';
+    this.storePanel()?.detach();
     this.store.load(scenario);
     this.say(viewIssues.length > 0
       ? `Opened ${file.name}; its view settings were ignored (${viewIssues[0]!.path} ${viewIssues[0]!.message}) — the design data is intact.`
@@ -624,6 +627,7 @@ export class DrydigApp extends LightElement {
             const demo = DEMOS[key];
             if (!demo) return;
             this.demo = key;
+            this.storePanel()?.detach();
             this.store.load(demo.scenario);
           }}>
             <option value="" ?selected=${this.demo === ''} disabled>Own scenario</option>
@@ -670,11 +674,29 @@ export class DrydigApp extends LightElement {
         </section>
         <aside class="dd-side" aria-label="Panels">
           <nav class="dd-tabs" role="tablist">
-            ${(['layout', 'ground', 'results', 'design', 'backdrop'] as Tab[]).map((t) => html`<button type="button" role="tab" name=${`tab-${t}`} aria-selected=${this.tab === t} class=${this.tab === t ? 'dd-on' : ''} @click=${() => (this.tab = t)}>${({ layout: 'Layout', ground: 'Ground', results: 'Results', design: 'Design', backdrop: 'Backdrop' })[t]}</button>`)}
+            ${(['layout', 'ground', 'results', 'design', 'store', 'backdrop'] as Tab[]).map((t) => html`<button type="button" role="tab" name=${`tab-${t}`} aria-selected=${this.tab === t} class=${this.tab === t ? 'dd-on' : ''} @click=${() => (this.tab = t)}>${({ layout: 'Layout', ground: 'Ground', results: 'Results', design: 'Design', store: 'Store', backdrop: 'Backdrop' })[t]}</button>`)}
           </nav>
-          <div class="dd-tab-body" role="tabpanel">${this.renderTab(times, ti, view.contour?.step_m)}</div>
+          <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab === 'store'}>${this.tab === 'store' ? nothing : this.renderTab(times, ti, view.contour?.step_m)}</div>
+          <!-- Kept alive across tab switches: it remembers which stored scenario and revision the editor holds. -->
+          <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'store'}>
+            <scenario-store-panel .scenario=${s} @scenario-loaded=${(e: CustomEvent<Scenario>) => this.openStored(e.detail)}></scenario-store-panel>
+            <caution-note compact></caution-note>
+          </div>
         </aside>
       </main>`;
+  }
+
+  private storePanel(): ScenarioStorePanel | null {
+    return this.querySelector('scenario-store-panel');
+  }
+
+  /** A scenario opened from the store (a revision, a restore, theirs after a conflict). */
+  private openStored(scenario: Scenario): void {
+    const v = validateScenario(scenario);
+    if (!v.ok) return this.say(`The stored scenario could not be opened — ${v.issues[0]?.path} ${v.issues[0]?.message}. Your current scenario is unchanged.`);
+    this.demo = '';
+    this.store.load(v.scenario);
+    this.say(`Opened the stored scenario “${v.scenario.name}”.`);
   }
 
   private renderTab(times: Array<number | null>, ti: number, step: number | undefined) {

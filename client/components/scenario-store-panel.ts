@@ -126,6 +126,24 @@ export class ScenarioStorePanel extends LitElement {
     return body.error ? `${body.error.message}. ${body.error.fix}` : fallback;
   }
 
+  /**
+   * The editor now holds a document that did not come from the store (a demo, a local file): the
+   * panel lets go of the stored scenario, so the next save stores it anew instead of writing a
+   * revision of something else.
+   */
+  detach(): void {
+    this.scenarioId = null;
+    this.revision = null;
+    this.shownRevision = null;
+    this.savedJson = '';
+    this.conflict = null;
+    this.newer = null;
+    this.history = null;
+    this.links = null;
+    this.newLink = null;
+    this.message = '';
+  }
+
   private loaded(scenario: Scenario, scenarioId: string, revision: number, latestRevision = revision): void {
     this.scenarioId = scenarioId;
     // Saving an opened past revision builds on the latest one, so it can never be refused as stale.

@@ -7,6 +7,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import type { FastifyInstance } from 'fastify';
+import { afterAll, beforeAll } from 'vitest';
 import { buildApp } from '../../server/app';
 
 export const ARTIFACTS_DIR = path.resolve('artifacts/browser');
@@ -23,31 +24,55 @@ export interface BrowserSession {
   close(): Promise<void>;
 }
 
-/** Starts the server and a page at `/`, waiting until the first field is on the map. */
-export async function openPlanMap(options: { viewport?: { width: number; height: number } } = {}): Promise<BrowserSession> {
-  const app = await buildApp({ clientDir: 'client/dist', dataDir: ':memory:' });
+/** Chromium flags for a quiet, sandbox-free headless run in CI (no GPU, no background traffic). */
+const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'];
+
+/** Launches Debian's Chromium headless with the flags every browser test uses. */
+export function launchChromium(): Promise<Browser> {
+  return chromium.launch({ executablePath: '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS });
+}
+
+/** The real app listening on 127.0.0.1 and a random port. */
+export interface TestServer {
+  app: FastifyInstance;
+  /** `http://127.0.0.1:<port>` without a trailing slash. */
+  origin: string;
+}
+
+/** Starts `buildApp` with storage in memory, serving the built client from `clientDir`. */
+export async function startServer(options: { clientDir: string }): Promise<TestServer> {
+  const app = await buildApp({ clientDir: options.clientDir, dataDir: ':memory:' });
   await app.listen({ host: '127.0.0.1', port: 0 });
   const address = app.server.address();
   const port = typeof address === 'object' && address ? address.port : 0;
-  const url = `http://127.0.0.1:${port}/`;
-  const browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'],
-  });
-  const page = await browser.newPage({ viewport: options.viewport ?? { width: 1440, height: 900 }, deviceScaleFactor: 1 });
-  const errors: string[] = [];
+  return { app, origin: `http://127.0.0.1:${port}` };
+}
+
+/**
+ * Records page errors and console errors into `errors`, and aborts (and records) any request
+ * leaving 127.0.0.1: there is no internet, so everything must be bundled.
+ */
+export async function watchPage(page: Page, errors: string[]): Promise<void> {
   page.on('pageerror', (e) => errors.push(`pageerror: ${e.message}`));
   page.on('console', (m) => {
     if (m.type() === 'error') errors.push(`console: ${m.text()}`);
   });
-  // No internet: any request leaving 127.0.0.1 is a bug (everything must be bundled).
   await page.route('**/*', (route) => {
     const u = new URL(route.request().url());
     if (u.hostname === '127.0.0.1' || u.protocol === 'data:' || u.protocol === 'blob:') return route.continue();
     errors.push(`external request: ${u.href}`);
     return route.abort();
   });
+}
+
+/** Starts the server and a page at `/`, waiting until the first field is on the map. */
+export async function openPlanMap(options: { viewport?: { width: number; height: number } } = {}): Promise<BrowserSession> {
+  const { app, origin } = await startServer({ clientDir: 'client/dist' });
+  const url = `${origin}/`;
+  const browser = await launchChromium();
+  const page = await browser.newPage({ viewport: options.viewport ?? { width: 1440, height: 900 }, deviceScaleFactor: 1 });
+  const errors: string[] = [];
+  await watchPage(page, errors);
   await page.goto(url);
   await waitForField(page);
   mkdirSync(ARTIFACTS_DIR, { recursive: true });
@@ -63,6 +88,34 @@ export async function openPlanMap(options: { viewport?: { width: number; height:
       await app.close();
     },
   };
+}
+
+/**
+ * Registers `beforeAll`/`afterAll` hooks that open the plan map once for the test file (hook
+ * timeout from vitest.config.ts) and close it afterwards; `onOpen` receives the session.
+ */
+export function usePlanMap(onOpen: (session: BrowserSession) => void): void {
+  let session: BrowserSession | undefined;
+  beforeAll(async () => {
+    session = await openPlanMap();
+    onOpen(session);
+  });
+  afterAll(async () => {
+    await session?.close();
+  });
+}
+
+/** Selects a demo in the header and waits until its field has settled. */
+export async function loadDemo(page: Page, key: 'wellpoints' | 'deepwells'): Promise<void> {
+  const before = await fieldsDrawn(page);
+  await page.selectOption('select[name="demo"]', key);
+  await settle(page, before);
+}
+
+/** Clicks the map at a site point (site coordinates, m). */
+export async function clickSite(page: Page, x: number, y: number): Promise<void> {
+  const q = await pagePoint(page, x, y);
+  await page.mouse.click(q.x, q.y);
 }
 
 /** Waits until a field result has been drawn and no fine computation is pending. */

@@ -4,35 +4,20 @@
  * undo) and the site-plan underlay. Each file runs its own server on a random 127.0.0.1 port.
  */
 import { readFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { fieldsDrawn, openPlanMap, pagePoint, settle, type BrowserSession } from './browser-harness';
+import { clickSite, fieldsDrawn, loadDemo, pagePoint, settle, usePlanMap, type BrowserSession } from './browser-harness';
 
 let s: BrowserSession;
 let page: Page;
-
-async function loadDemo(p: Page, key: 'wellpoints' | 'deepwells'): Promise<void> {
-  const before = await fieldsDrawn(p);
-  await p.selectOption('select[name="demo"]', key);
-  await settle(p, before);
-}
-
-async function clickSite(p: Page, x: number, y: number): Promise<void> {
-  const q = await pagePoint(p, x, y);
-  await p.mouse.click(q.x, q.y);
-}
 
 async function badge(p: Page, id: string): Promise<string> {
   return (await p.locator(`.dd-map-top .dd-badge[data-excavation="${id}"]`).innerText()).replace(/\s+/g, ' ');
 }
 
-beforeAll(async () => {
-  s = await openPlanMap();
-  page = s.page;
-});
-
-afterAll(async () => {
-  await s?.close();
+usePlanMap((session) => {
+  s = session;
+  page = session.page;
 });
 
 describe('editing on the plan map', () => {

@@ -4,20 +4,16 @@
  * and open it in a second browser context as the site team would, and let go of the stored
  * scenario when another document is opened.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openPlanMap, fieldsDrawn, settle, type BrowserSession } from './browser-harness';
+import { loadDemo, usePlanMap, type BrowserSession } from './browser-harness';
 
 let s: BrowserSession;
 let page: Page;
 
-beforeAll(async () => {
-  s = await openPlanMap();
-  page = s.page;
-}, 60_000);
-
-afterAll(async () => {
-  await s?.close();
+usePlanMap((session) => {
+  s = session;
+  page = session.page;
 });
 
 const panel = () => page.locator('scenario-store-panel');
@@ -59,9 +55,7 @@ describe('the Store tab', () => {
   }, 60_000);
 
   it('lets go of the stored scenario when another demo is opened, so the next save stores it anew', async () => {
-    const before = await fieldsDrawn(page);
-    await page.selectOption('select[name="demo"]', 'deepwells');
-    await settle(page, before);
+    await loadDemo(page, 'deepwells');
     await page.click('button[name="tab-store"]');
     expect(await panel().locator('.status').first().innerText()).toMatch(/Not stored yet/);
     expect(s.errors).toEqual([]);

@@ -5,10 +5,10 @@
  * `window.__drydig` is read only to wait for results and to find where a site point is drawn.
  * Screenshots of each state go to artifacts/browser/.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import proj4 from 'proj4';
-import { fieldsDrawn, openPlanMap, pagePoint, settle, type BrowserSession } from './browser-harness';
+import { clickSite, fieldsDrawn, loadDemo, pagePoint, settle, usePlanMap, type BrowserSession } from './browser-harness';
 import demoWellpoints from '../../fixtures/demo-wellpoints-unconfined.json';
 
 let s: BrowserSession;
@@ -30,24 +30,9 @@ async function badgeText(p: Page, id: string): Promise<string> {
   return (await p.locator(`.dd-map-top .dd-badge[data-excavation="${id}"]`).innerText()).replace(/\s+/g, ' ');
 }
 
-async function loadDemo(p: Page, key: 'wellpoints' | 'deepwells'): Promise<void> {
-  const before = await fieldsDrawn(p);
-  await p.selectOption('select[name="demo"]', key);
-  await settle(p, before);
-}
-
-async function clickSite(p: Page, x: number, y: number): Promise<void> {
-  const q = await pagePoint(p, x, y);
-  await p.mouse.click(q.x, q.y);
-}
-
-beforeAll(async () => {
-  s = await openPlanMap();
-  page = s.page;
-});
-
-afterAll(async () => {
-  await s?.close();
+usePlanMap((session) => {
+  s = session;
+  page = session.page;
 });
 
 describe('the plan-map page', () => {

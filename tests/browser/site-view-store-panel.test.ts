@@ -7,13 +7,13 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { build } from 'vite';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import type { FastifyInstance } from 'fastify';
-import { buildApp } from '../../server/app';
+import { ARTIFACTS_DIR, launchChromium, startServer } from './browser-harness';
 
 const PAGE_DIR = path.resolve('tests/browser/site-view-panel-page');
 const OUT_DIR = path.resolve('artifacts/site-view-panel-dist');
-const SCREENSHOTS = path.resolve('artifacts/browser');
+const SCREENSHOTS = ARTIFACTS_DIR;
 
 let app: FastifyInstance;
 let browser: Browser;
@@ -21,15 +21,8 @@ let origin: string;
 
 beforeAll(async () => {
   await build({ root: PAGE_DIR, base: './', logLevel: 'warn', configFile: false, build: { outDir: OUT_DIR, emptyOutDir: true, assetsInlineLimit: 0 } });
-  app = await buildApp({ clientDir: OUT_DIR, dataDir: ':memory:' });
-  await app.listen({ host: '127.0.0.1', port: 0 });
-  const address = app.server.address();
-  origin = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}`;
-  browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'],
-  });
+  ({ app, origin } = await startServer({ clientDir: OUT_DIR }));
+  browser = await launchChromium();
   mkdirSync(SCREENSHOTS, { recursive: true });
 });
 

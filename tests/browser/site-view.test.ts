@@ -9,12 +9,12 @@ import { execFileSync } from 'node:child_process';
 import { existsSync, mkdirSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import type { FastifyInstance } from 'fastify';
-import { buildApp } from '../../server/app';
+import { ARTIFACTS_DIR, launchChromium, startServer, watchPage } from './browser-harness';
 import type { Scenario } from '../../shared/schema';
 
-const SCREENSHOTS = path.resolve('artifacts/browser');
+const SCREENSHOTS = ARTIFACTS_DIR;
 
 /** Newest modification time among the site view's sources, ms. */
 function newestSourceTime(): number {
@@ -37,15 +37,8 @@ let browser: Browser;
 let origin: string;
 
 beforeAll(async () => {
-  app = await buildApp({ clientDir: builtClientDir(), dataDir: ':memory:' });
-  await app.listen({ host: '127.0.0.1', port: 0 });
-  const address = app.server.address();
-  origin = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}`;
-  browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'],
-  });
+  ({ app, origin } = await startServer({ clientDir: builtClientDir() }));
+  browser = await launchChromium();
   mkdirSync(SCREENSHOTS, { recursive: true });
 });
 
@@ -68,14 +61,7 @@ async function phoneContext(geolocation?: { latitude: number; longitude: number 
   });
   const page = await context.newPage();
   const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(`pageerror: ${e.message}`));
-  page.on('console', (m) => { if (m.type() === 'error') errors.push(`console: ${m.text()}`); });
-  await page.route('**/*', (route) => {
-    const u = new URL(route.request().url());
-    if (u.hostname === '127.0.0.1' || u.protocol === 'data:' || u.protocol === 'blob:') return route.continue();
-    errors.push(`external request: ${u.href}`);
-    return route.abort();
-  });
+  await watchPage(page, errors);
   return { context, page, errors };
 }
 

@@ -4,27 +4,21 @@
  * verdict, badges, flow, pumps, quick check and the time chart, export CSV, and apply the rates.
  * Needs the built client (npm run build). Screenshots under artifacts/browser/.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openPlanMap, fieldsDrawn, settle, type BrowserSession } from '../browser/browser-harness';
+import { usePlanMap, loadDemo, type BrowserSession } from './browser-harness';
 
 let s: BrowserSession;
 let page: Page;
 
-beforeAll(async () => {
-  s = await openPlanMap();
-  page = s.page;
-}, 60_000);
-
-afterAll(async () => {
-  await s?.close();
+usePlanMap((session) => {
+  s = session;
+  page = session.page;
 });
 
 describe('<design-panel>', () => {
   it('runs a design for the deep-well demo and shows the summary, the chart and the critical point', async () => {
-    const before = await fieldsDrawn(page);
-    await page.selectOption('select[name="demo"]', 'deepwells');
-    await settle(page, before);
+    await loadDemo(page, 'deepwells');
     await page.click('button[name="tab-design"]');
     await page.click('design-panel input[name="design-mode"][value="optimal"]');
     await page.click('design-panel button[name="run-design"]');
@@ -58,9 +52,7 @@ describe('<design-panel>', () => {
   });
 
   it('shows the reasons when the target cannot be met', async () => {
-    const before = await fieldsDrawn(page);
-    await page.selectOption('select[name="demo"]', 'wellpoints');
-    await settle(page, before);
+    await loadDemo(page, 'wellpoints');
     await page.click('button[name="tab-design"]');
     await page.click('design-panel input[name="design-mode"][value="uniform"]');
     // The demo's header sits on a platform at 10.8 m; put it at ground (12 m), where the

@@ -680,7 +680,7 @@ export class DrydigApp extends LightElement {
           <!-- Kept alive across tab switches: it remembers which stored scenario and revision the editor holds. -->
           <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'store'}>
             <scenario-store-panel .scenario=${s} @scenario-loaded=${(e: CustomEvent<Scenario>) => this.openStored(e.detail)}></scenario-store-panel>
-            <caution-note compact></caution-note>
+            ${this.tab === 'store' ? html`<caution-note compact></caution-note>` : nothing}
           </div>
         </aside>
       </main>`;

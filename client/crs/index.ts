@@ -1,2 +1,2 @@
-export * from './projection-registry';
+export * from '../../shared/crs';
 export * from './format-lonlat';

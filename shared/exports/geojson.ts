@@ -8,7 +8,7 @@ import type { Scenario } from '../schema';
 import { contourSetToGeoJSON, type FeatureCollectionJson } from '../contours';
 import { cautionsText } from './design-cautions';
 import type { PlanResults } from './plan-results';
-import type { SiteProjection } from './site-projection';
+import type { SiteProjection } from '../crs';
 
 type Feature = FeatureCollectionJson['features'][number];
 

@@ -1,6 +1,6 @@
 /** Pure export writers: scenario JSON, set-out CSV, GeoJSON, DXF, report HTML, monitoring plan and CSV. */
 export * from './design-cautions';
-export * from './site-projection';
+export { createSiteProjection, type SiteProjection } from '../crs';
 export * from './csv-cell';
 export * from './escape-html';
 export * from './field-engine';

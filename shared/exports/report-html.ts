@@ -13,7 +13,7 @@ import type { MonitoringPlan } from './monitoring-plan';
 import type { PlanResults } from './plan-results';
 import { renderPlanSvg } from './plan-svg';
 import { buildSetoutRows } from './setout-csv';
-import type { SiteProjection } from './site-projection';
+import type { SiteProjection } from '../crs';
 
 /** Options for `writeReportHtml`. */
 export interface ReportOptions {

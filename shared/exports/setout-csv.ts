@@ -4,7 +4,7 @@
  */
 import type { Scenario, Well } from '../schema';
 import { csvRows, roundTo } from './csv-cell';
-import type { SiteProjection } from './site-projection';
+import type { SiteProjection } from '../crs';
 
 /** One row of the set-out table. */
 export interface SetoutRow {

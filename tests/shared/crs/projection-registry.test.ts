@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import proj4 from 'proj4';
-import { formatLonLat, lookupProjectionDefinition, resolveSiteProjection } from '../../../client/crs';
+import { lookupProjectionDefinition, resolveSiteProjection } from '../../../shared/crs';
 
 function expectNear(a: number, b: number, tol: number) {
   expect(Math.abs(a - b), `${a} vs ${b}`).toBeLessThanOrEqual(tol);
@@ -69,13 +69,5 @@ describe('resolveSiteProjection({crs, proj4}) converts site metres to latitude/l
     const p = resolveSiteProjection(opts);
     expect(p.ok).toBe(false);
     expect(!p.ok && p.message).toMatch(message);
-  });
-});
-
-describe('formatLonLat(lon, lat) writes hemispheres', () => {
-  it('formats to six decimals', () => {
-    expect(formatLonLat(13.3674424, 52.5135792)).toBe('52.513579° N, 13.367442° E');
-    expect(formatLonLat(-70.5, -33.25)).toBe('33.250000° S, 70.500000° W');
-    expect(formatLonLat(Number.NaN, 0)).toBe('—');
   });
 });

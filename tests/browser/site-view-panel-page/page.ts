@@ -10,7 +10,7 @@ import demo from '../../../fixtures/demo-deepwells-confined.json';
 const panel = document.querySelector('scenario-store-panel') as ScenarioStorePanel;
 const name = document.getElementById('name') as HTMLInputElement;
 const loaded = document.getElementById('loaded') as HTMLPreElement;
-panel.scenario = structuredClone(demo) as Scenario;
+panel.scenario = structuredClone(demo) as unknown as Scenario;
 name.value = panel.scenario.name;
 document.getElementById('apply')!.addEventListener('click', () => {
   panel.scenario = { ...panel.scenario!, name: name.value };

@@ -12,7 +12,7 @@ import { scenarioRoutes } from './routes/scenarios';
 import { linkRoutes } from './routes/links';
 import { clientStatic } from './routes/client-static';
 import { DEFAULT_MAX_GRID_NODES, DEFAULT_MAX_POINTS } from './request-schemas';
-import { securityPlugin, withRedactedLogging, type SecurityOptions } from './security';
+import { checkTileOrigin, securityPlugin, withRedactedLogging, type SecurityOptions } from './security';
 
 export interface AppOptions {
   /** Folder for stored scenarios (SQLite). Default `./data`; ':memory:' keeps nothing on disk. */
@@ -29,10 +29,26 @@ export interface AppOptions {
   clientDir?: string | false;
   /** Security headers and write rate limits (server/security). Default: 300 writes per minute per client. */
   security?: SecurityOptions;
+  /**
+   * https origin of a background map-tile server the client may load images from and connect
+   * to, added to the Content-Security-Policy (img-src, connect-src), e.g.
+   * 'https://tiles.example.org'. Takes precedence over `security.tileOrigin`. Default none: the
+   * client loads same-origin resources only. Anything that is not an https origin is refused.
+   */
+  tileOrigin?: string;
 }
 
 export const DEFAULT_BODY_LIMIT_BYTES = 8 * 1024 * 1024;
 export { DEFAULT_MAX_GRID_NODES, DEFAULT_MAX_POINTS };
+
+/** The CSP tile origin from the options, checked; throws naming the option when it is not an https origin. */
+function resolveTileOrigin(options: AppOptions): string | undefined {
+  const [text, source] = options.tileOrigin !== undefined ? [options.tileOrigin, 'tileOrigin'] : [options.security?.tileOrigin, 'security.tileOrigin'];
+  if (text === undefined) return undefined;
+  const checked = checkTileOrigin(text, source);
+  if (!checked.ok) throw new TypeError(checked.message);
+  return checked.origin;
+}
 
 export async function buildApp(options: AppOptions = {}): Promise<FastifyInstance> {
   const bodyLimit_bytes = options.bodyLimit_bytes ?? DEFAULT_BODY_LIMIT_BYTES;
@@ -52,7 +68,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   // Before any plugin, so every route (whoever adds it) lands in the OpenAPI description.
   installRouteCatalog(app);
   // Before the routes: the rate limiter attaches to write routes as they are added.
-  await app.register(securityPlugin, options.security ?? {});
+  await app.register(securityPlugin, { ...options.security, tileOrigin: resolveTileOrigin(options) });
   const maxGridNodes = options.maxGridNodes ?? DEFAULT_MAX_GRID_NODES;
   const maxPoints = options.maxPoints ?? DEFAULT_MAX_POINTS;
   await app.register(healthRoutes, { prefix: '/api/v1', limits: { bodyLimit_bytes, maxGridNodes, maxPoints } });

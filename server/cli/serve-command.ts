@@ -1,13 +1,15 @@
 /**
  * `drydig serve` and `server/main.ts`: build the app and listen. Options come from the command
- * line first, then the environment (PORT, HOST, DRYDIG_DATA), then defaults: 127.0.0.1:8080 and
- * ./data — the service listens on the loopback interface unless told otherwise.
+ * line first, then the environment (PORT, HOST, DRYDIG_DATA, DRYDIG_TILE_ORIGIN), then defaults:
+ * 127.0.0.1:8080, ./data and no tile origin — the service listens on the loopback interface
+ * unless told otherwise.
  */
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import type { FastifyInstance } from 'fastify';
 import { buildApp, DEFAULT_BODY_LIMIT_BYTES } from '../app';
 import { DrydigError } from '../../shared/schema';
+import { checkTileOrigin } from '../security';
 import type { CliCommand, CliIo } from './cli-io';
 import { parseOptions, usageError } from './parse-options';
 import { SERVE_HELP } from './usage-text';
@@ -27,6 +29,8 @@ export interface ServeSettings {
   bodyLimit_bytes: number;
   /** Log level (fatal, error, warn, info, debug, trace, silent). Default: DRYDIG_LOG_LEVEL, else info. */
   logLevel?: string;
+  /** https origin of a background map-tile server allowed by the CSP. Default: DRYDIG_TILE_ORIGIN, else none. */
+  tileOrigin?: string;
 }
 
 const LOG_LEVELS = ['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'];
@@ -38,7 +42,7 @@ function parsePort(text: string, source: string): number {
 
 /** Resolves serve settings from arguments, then environment, then defaults. */
 export function resolveServeSettings(args: readonly string[], env: Record<string, string | undefined>, cwd: string): ServeSettings & { help: boolean } {
-  const { positionals, values } = parseOptions(args, { port: 'value', host: 'value', data: 'value', 'body-limit': 'value', help: 'flag' }, 'serve');
+  const { positionals, values } = parseOptions(args, { port: 'value', host: 'value', data: 'value', 'body-limit': 'value', 'tile-origin': 'value', help: 'flag' }, 'serve');
   if (positionals.length > 0) throw usageError(`serve: unexpected argument ${positionals[0]}`);
   const port = values.port !== undefined ? parsePort(values.port, '--port') : env.PORT ? parsePort(env.PORT, 'PORT') : DEFAULT_PORT;
   const host = values.host ?? (env.HOST || DEFAULT_HOST);
@@ -51,7 +55,21 @@ export function resolveServeSettings(args: readonly string[], env: Record<string
   }
   const logLevel = env.DRYDIG_LOG_LEVEL || 'info';
   if (!LOG_LEVELS.includes(logLevel)) throw usageError(`DRYDIG_LOG_LEVEL: "${logLevel}" is not one of ${LOG_LEVELS.join(', ')}`);
-  return { port, host, dataDir: data === ':memory:' ? data : path.resolve(cwd, data), bodyLimit_bytes, logLevel, help: values.help === 'true' };
+  const tileOrigin = parseTileOrigin(values['tile-origin'], env.DRYDIG_TILE_ORIGIN);
+  return {
+    port, host, dataDir: data === ':memory:' ? data : path.resolve(cwd, data), bodyLimit_bytes, logLevel,
+    ...(tileOrigin ? { tileOrigin } : {}),
+    help: values.help === 'true',
+  };
+}
+
+/** --tile-origin, else DRYDIG_TILE_ORIGIN (empty = unset), checked to be an https origin. */
+function parseTileOrigin(argument: string | undefined, variable: string | undefined): string | undefined {
+  const [text, source] = argument !== undefined ? [argument, '--tile-origin'] : [variable || undefined, 'DRYDIG_TILE_ORIGIN'];
+  if (text === undefined) return undefined;
+  const checked = checkTileOrigin(text, source);
+  if (!checked.ok) throw usageError(checked.message);
+  return checked.origin;
 }
 
 /** Builds the app with logging on and listens; resolves once listening, with the URL. */
@@ -67,6 +85,7 @@ export async function startServer(settings: ServeSettings): Promise<{ app: Fasti
     dataDir: settings.dataDir,
     bodyLimit_bytes: settings.bodyLimit_bytes,
     logger: { level: settings.logLevel ?? 'info' },
+    ...(settings.tileOrigin ? { tileOrigin: settings.tileOrigin } : {}),
   });
   try {
     await app.listen({ port: settings.port, host: settings.host });

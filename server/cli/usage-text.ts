@@ -37,12 +37,14 @@ Prints {"points":[{"x","y","time_s","level_m","drawdown_m","flags"}], "model", "
 "cautions"}; one entry per point per time. Flags mark results outside a method's validity.
 `;
 
-export const SERVE_HELP = `drydig serve [--port N] [--host H] [--data DIR] [--body-limit BYTES]
+export const SERVE_HELP = `drydig serve [--port N] [--host H] [--data DIR] [--body-limit BYTES] [--tile-origin URL]
 
   --port N           port to listen on (default: PORT, else 8080; 0 picks a free port)
   --host H           address to listen on (default: HOST, else 127.0.0.1)
   --data DIR         folder for stored scenarios (default: DRYDIG_DATA, else ./data)
   --body-limit B     largest request body accepted, bytes (default 8388608)
+  --tile-origin URL  https origin of a map-tile server the page may load from
+                     (default: DRYDIG_TILE_ORIGIN, else none)
 
 Stops on Ctrl-C (SIGINT) or SIGTERM.
 `;

@@ -8,6 +8,23 @@ export interface ContentSecurityPolicyOptions {
   tileOrigin?: string;
 }
 
+// Scheme, host (optionally "*." for a tile server's lettered subdomains) and port; nothing else
+// may reach the header, so no path, query or credentials and no "; directive" smuggled in.
+const HTTPS_ORIGIN = /^https:\/\/(\*\.)?[a-z0-9-]+(\.[a-z0-9-]+)*(:\d{1,5})?\/?$/i;
+
+/**
+ * Checks a map-tile origin for the CSP: an https origin such as 'https://tiles.example.org' (a
+ * trailing slash is dropped, the host lower-cased). Returns the origin, or a one-line reason
+ * naming `source` (the option or variable it came from) when the text is not one.
+ */
+export function checkTileOrigin(text: string, source: string): { ok: true; origin: string } | { ok: false; message: string } {
+  const trimmed = text.trim();
+  if (!HTTPS_ORIGIN.test(trimmed)) {
+    return { ok: false, message: `${source}: "${text}" is not an https origin; give scheme, host and optional port only, e.g. https://tiles.example.org` };
+  }
+  return { ok: true, origin: trimmed.replace(/\/$/, '').toLowerCase() };
+}
+
 /** Helmet `contentSecurityPolicy.directives` for drydig. */
 export function buildCspDirectives(options: ContentSecurityPolicyOptions = {}): Record<string, string[]> {
   const tiles = options.tileOrigin ? [options.tileOrigin] : [];

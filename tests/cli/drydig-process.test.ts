@@ -143,6 +143,20 @@ describe('starting the service', () => {
     await server.stop();
   });
 
+  it('server/main.ts takes DRYDIG_TILE_ORIGIN into the Content-Security-Policy', async () => {
+    const tsx = path.join(repo, 'node_modules', 'tsx', 'dist', 'cli.mjs');
+    const server = await startServe([tsx, path.join(repo, 'server', 'main.ts')], { PORT: '0', DRYDIG_DATA: ':memory:', DRYDIG_TILE_ORIGIN: 'https://tiles.example.org' });
+    const csp = (await fetch(`${server.url}/api/v1/health`)).headers.get('content-security-policy') ?? '';
+    expect(csp).toContain("img-src 'self' data: blob: https://tiles.example.org;");
+    await server.stop();
+  });
+
+  it('drydig serve with an http tile origin exits 2 with one line naming the option', async () => {
+    const result = await drydig(['serve', '--port', '0', '--tile-origin', 'http://tiles.example.org']);
+    expect(result.code).toBe(2);
+    expect(result.stderr.trim()).toBe('DRYDIG_ERR_CLI_USAGE: --tile-origin: "http://tiles.example.org" is not an https origin; give scheme, host and optional port only, e.g. https://tiles.example.org');
+  });
+
   it('drydig serve with a bad port exits 2 with one line', async () => {
     const result = await drydig(['serve', '--port', 'eighty']);
     expect(result.code).toBe(2);

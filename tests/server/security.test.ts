@@ -37,6 +37,23 @@ describe('security headers', () => {
     expect(csp).toContain("script-src 'self';");
     await app.close();
   });
+
+  it('take the tile origin from buildApp({ tileOrigin }) as well', async () => {
+    const app = await memoryApp({ tileOrigin: 'https://Tiles.Example.org:8443/' });
+    const csp = String((await app.inject({ method: 'GET', url: '/api/v1/scenarios' })).headers['content-security-policy']);
+    expect(csp).toContain("img-src 'self' data: blob: https://tiles.example.org:8443;");
+    expect(csp).toContain("connect-src 'self' https://tiles.example.org:8443;");
+    await app.close();
+  });
+
+  it.each([
+    ['http://tiles.example.org'],
+    ['https://tiles.example.org/{z}/{x}/{y}.png'],
+    ["https://tiles.example.org; script-src *"],
+    ['tiles.example.org'],
+  ])('refuse tileOrigin %j, naming the option', async (tileOrigin) => {
+    await expect(memoryApp({ tileOrigin })).rejects.toThrow(/^tileOrigin: ".*" is not an https origin/);
+  });
 });
 
 describe('write rate limit', () => {

@@ -8,11 +8,12 @@ import { html, nothing } from 'lit';
 import { LightElement } from './light-element';
 import demoWellpoints from '../../fixtures/demo-wellpoints-unconfined.json';
 import demoDeepwells from '../../fixtures/demo-deepwells-confined.json';
-import { validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
+import { validateMonitoring, validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
 import { logSpacedTimes } from '../../shared/field';
 import { signedDistanceToRing } from '../../shared/contours';
 import { formatQuantity, resolveDisplayUnits, toSi, type DisplayUnits, type UnitSystem } from '../../shared/units';
 import { ScenarioStore, checkViewSettings, getViewSettings, setViewSettings, type ChangeKind, type ContourQuantity, type SectionLine } from '../state';
+import { MAX_PIEZOMETERS, deletePiezometer, getPiezometers, placePiezometer } from '../state';
 import { EngineClient, EngineError, type FieldResult, type InspectResult, type SectionResult } from '../worker';
 import { resolveSiteProjection, formatLonLat, type ProjectionProblem, type SiteProjection } from '../crs';
 import type { LeafletMapController, MapTool } from '../map';
@@ -32,6 +33,7 @@ import './backdrop-panel';
 import './time-chart';
 import './section-chart';
 import './caution-note';
+import './monitoring-editor';
 import './design-panel';
 import './scenario-store-panel';
 import type { ScenarioStorePanel } from './scenario-store-panel';
@@ -46,6 +48,7 @@ const DEMOS: Record<string, { label: string; scenario: Scenario }> = {
 const TOOLS: Array<[MapTool, string, string]> = [
   ['select', 'Select', 'Select, drag and inspect (Esc)'],
   ['add-well', 'Well', 'Click to place wells (W)'],
+  ['add-piezometer', 'Piezometer', 'Click to place piezometers for the monitoring plan (P)'],
   ['draw-excavation', 'Outline', 'Click the corners of an excavation; double-click or Enter to finish (O)'],
   ['section', 'Section', 'Click A then B to draw a cross-section (X)'],
   ['boundary', 'Boundary', 'Click two points on a straight boundary line (B)'],
@@ -77,6 +80,7 @@ export class DrydigApp extends LightElement {
     result: { state: true }, computing: { state: true }, engineError: { state: true }, issues: { state: true },
     timeIndex: { state: true }, cursor: { state: true }, notice: { state: true }, inspect: { state: true },
     section: { state: true }, drawer: { state: true }, demo: { state: true }, newWell: { state: true },
+    piezometerId: { state: true },
   };
   declare scenario: Scenario;
   declare tab: Tab;
@@ -95,6 +99,8 @@ export class DrydigApp extends LightElement {
   declare drawer: 'inspect' | 'section' | null;
   declare demo: string;
   declare newWell: { kind: WellKind; radius_m: number; rate_m3_s: number };
+  /** Selected piezometer of the monitoring plan. */
+  declare piezometerId: string | null;
 
   private readonly store: ScenarioStore;
   private engine: EngineClient | null = null;
@@ -121,6 +127,7 @@ export class DrydigApp extends LightElement {
     this.tool = 'select';
     this.wellId = null;
     this.excavationId = null;
+    this.piezometerId = null;
     this.result = null;
     this.computing = -1;
     this.engineError = '';
@@ -233,6 +240,7 @@ export class DrydigApp extends LightElement {
     }
     if (this.wellId && !s.wells.some((w) => w.id === this.wellId)) this.wellId = null;
     if (this.excavationId && !s.excavations.some((e) => e.id === this.excavationId)) this.excavationId = null;
+    if (kind === 'load' || (this.piezometerId && !getPiezometers(s).some((p) => p.id === this.piezometerId))) this.piezometerId = null;
     this.syncMap();
     this.validate();
     this.scheduleField('coarse');
@@ -241,7 +249,8 @@ export class DrydigApp extends LightElement {
 
   private validate(): void {
     const v = validateScenario(this.scenario);
-    this.issues = v.ok ? [] : v.issues;
+    // The monitoring plan is checked too: the server refuses to store a scenario whose plan is bad.
+    this.issues = v.ok ? validateMonitoring(this.scenario) : v.issues;
   }
 
   private syncMap(): void {
@@ -249,6 +258,7 @@ export class DrydigApp extends LightElement {
     if (!c) return;
     const s = this.scenario;
     const view = getViewSettings(s);
+    c.setSelectedPiezometer(this.piezometerId);
     c.setScenario(s, { wellId: this.wellId, excavationId: this.excavationId });
     c.setImperialScale(this.unitSystem === 'us');
     const u = this.units;
@@ -378,6 +388,7 @@ export class DrydigApp extends LightElement {
       case 'map-click': {
         const [tool, x, y] = a as [MapTool, number, number];
         if (tool === 'add-well') this.addWell(x, y);
+        else if (tool === 'add-piezometer') this.addPiezometer(x, y);
         else if (tool === 'pick-point') this.pickUnderlayPoint(x, y);
         else if (tool === 'select') {
           this.drawer = 'inspect';
@@ -407,6 +418,24 @@ export class DrydigApp extends LightElement {
           if (w) {
             w.x = x;
             w.y = y;
+          }
+        });
+        if (phase === 'end') this.store.commit(`move ${id}`);
+        return;
+      }
+      case 'map-selectPiezometer': {
+        const [id] = a as [string | null];
+        this.selectPiezometer(id);
+        return;
+      }
+      case 'map-dragPiezometer': {
+        const [id, x, y, phase] = a as [string, number, number, 'move' | 'end' | 'cancel'];
+        if (phase === 'cancel') return this.store.cancelGesture();
+        this.store.preview((d) => {
+          const p = getPiezometers(d).find((k) => k.id === id);
+          if (p) {
+            p.x = x;
+            p.y = y;
           }
         });
         if (phase === 'end') this.store.commit(`move ${id}`);
@@ -485,6 +514,30 @@ export class DrydigApp extends LightElement {
     this.wellId = null;
   }
 
+  private addPiezometer(x: number, y: number): void {
+    if (getPiezometers(this.scenario).length >= MAX_PIEZOMETERS) return this.say(`The monitoring plan holds at most ${MAX_PIEZOMETERS} piezometers.`);
+    let id = '';
+    this.store.apply('place piezometer', (d) => void (id = placePiezometer(d, x, y)));
+    this.selectPiezometer(id);
+    this.say(`Placed ${id}. Set its alert offset and action level under Layout → Monitoring.`);
+  }
+
+  /** Selects a piezometer (null clears); a selected piezometer takes the Delete key from a well. */
+  private selectPiezometer(id: string | null): void {
+    this.piezometerId = id;
+    if (id) {
+      this.wellId = null;
+      this.tab = 'layout';
+      this.controller?.setScenario(this.scenario, { wellId: null, excavationId: this.excavationId });
+    }
+    this.controller?.setSelectedPiezometer(id);
+  }
+
+  private removePiezometer(id: string): void {
+    this.store.apply(`delete ${id}`, (d) => deletePiezometer(d, id));
+    this.piezometerId = null;
+  }
+
   private focusExcavation(id: string): void {
     const s = this.result?.shortfall.find((k) => k.id === id);
     if (!s) return;
@@ -538,7 +591,9 @@ export class DrydigApp extends LightElement {
       this.setTool('select');
     } else if (e.key === 'Enter' && this.tool === 'draw-excavation') this.controller?.finishOutline();
     else if ((e.key === 'Delete' || e.key === 'Backspace') && this.wellId) this.deleteWell(this.wellId);
+    else if ((e.key === 'Delete' || e.key === 'Backspace') && this.piezometerId) this.removePiezometer(this.piezometerId);
     else if (e.key === 'w' || e.key === 'W') this.setTool('add-well');
+    else if (e.key === 'p' || e.key === 'P') this.setTool('add-piezometer');
     else if (e.key === 'o' || e.key === 'O') this.setTool('draw-excavation');
     else if (e.key === 'x' || e.key === 'X') this.setTool('section');
     else if (e.key === 'b' || e.key === 'B') this.setTool('boundary');
@@ -562,6 +617,8 @@ export class DrydigApp extends LightElement {
       const first = v.issues.slice(0, 3).map((i) => `${i.path} ${i.message}`).join('; ');
       return this.say(`${file.name} was not opened — ${first}${v.issues.length > 3 ? ` (+${v.issues.length - 3} more)` : ''}. Your current scenario is unchanged.`);
     }
+    const monitoringIssue = validateMonitoring(v.scenario)[0];
+    if (monitoringIssue) return this.say(`${file.name} was not opened — ${monitoringIssue.path} ${monitoringIssue.message}. Your current scenario is unchanged.`);
     const viewIssues = checkViewSettings(v.scenario);
     const scenario = v.scenario as Scenario & { view?: unknown };
     if (viewIssues.length > 0) delete scenario.view;
@@ -656,7 +713,7 @@ export class DrydigApp extends LightElement {
         <section class="dd-map-area" aria-label="Plan">
           <plan-map @map-ready=${(e: CustomEvent<LeafletMapController>) => this.onMapReady(e.detail)}
             @map-cursor=${this.onMapEvent} @map-click=${this.onMapEvent} @map-selectWell=${this.onMapEvent} @map-selectExcavation=${this.onMapEvent}
-            @map-dragWell=${this.onMapEvent} @map-dragVertex=${this.onMapEvent} @map-insertVertex=${this.onMapEvent} @map-drawnOutline=${this.onMapEvent}
+            @map-dragWell=${this.onMapEvent} @map-selectPiezometer=${this.onMapEvent} @map-dragPiezometer=${this.onMapEvent} @map-dragVertex=${this.onMapEvent} @map-insertVertex=${this.onMapEvent} @map-drawnOutline=${this.onMapEvent}
             @map-drawnLine=${this.onMapEvent} @map-viewChanged=${this.onMapEvent} @map-focusExcavation=${this.onMapEvent}></plan-map>
           <div class="dd-map-top">
             ${this.result ? html`<shortfall-badges .shortfall=${this.result.shortfall} .units=${u} ?stale=${this.computing >= 0}
@@ -756,6 +813,11 @@ export class DrydigApp extends LightElement {
             this.controller?.setScenario(this.scenario, { wellId: w.id, excavationId: this.excavationId });
           }}><strong>${w.id}</strong><span>${w.kind}</span><span>${w.active === false ? 'off' : w.schedule ? 'schedule' : formatQuantity(w.rate_m3_s ?? 0, u.rate)}</span></button></li>`)}
           ${s.wells.length > 400 ? html`<li class="dd-hint">… ${s.wells.length - 400} more (select them on the map)</li>` : nothing}</ul>
+      </details>
+      <details open class="dd-section-block dd-monitoring-block"><summary><h3>Monitoring <small>${getPiezometers(s).length} piezometers</small></h3></summary>
+        <monitoring-editor .store=${this.store} .scenario=${s} .units=${u} .piezometerId=${this.piezometerId} .engine=${this.engine} ?paused=${this.issues.length > 0}
+          @select-piezometer=${(e: CustomEvent<string>) => this.selectPiezometer(e.detail)} @delete-piezometer=${(e: CustomEvent<string>) => this.removePiezometer(e.detail)}
+          @choose-tool=${(e: CustomEvent<MapTool>) => this.setTool(e.detail)}></monitoring-editor>
       </details>
       <details open class="dd-section-block"><summary><h3>Ring of wells</h3></summary>
         <ring-generator .store=${this.store} .scenario=${s} .units=${u}

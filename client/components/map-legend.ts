@@ -1,6 +1,6 @@
 /**
  * <map-legend>: the key to the plan — the drawdown colour steps with their contour values,
- * the symbols (well kinds, outlines, boundaries, shortfall, validity flags present) and a short
+ * the symbols (well kinds, piezometers, outlines, boundaries, shortfall, validity flags present) and a short
  * caution, in the corner of the map where the results are.
  */
 import { html, nothing } from 'lit';
@@ -56,6 +56,7 @@ export class MapLegend extends LightElement {
         <li><span class="dd-sym dd-sym-wellpoint"></span>Well point</li>
         <li><span class="dd-sym dd-sym-deep"></span>Deep well</li>
         <li><span class="dd-sym dd-sym-ejector"></span>Ejector</li>
+        <li><span class="dd-sym dd-sym-piezometer"></span>Piezometer (monitoring)</li>
         <li><span class="dd-sym dd-sym-pit"></span>Excavation</li>
         <li><span class="dd-sym dd-sym-short"></span>Above target (shortfall)</li>
         <li><span class="dd-sym dd-sym-ch"></span>Constant-head boundary</li>

@@ -29,6 +29,8 @@ export class PlanMap extends LightElement {
       selectExcavation: forward('selectExcavation'),
       dragWell: forward('dragWell'),
       dragVertex: forward('dragVertex'),
+      selectPiezometer: forward('selectPiezometer'),
+      dragPiezometer: forward('dragPiezometer'),
       insertVertex: forward('insertVertex'),
       drawnOutline: forward('drawnOutline'),
       drawnLine: forward('drawnLine'),

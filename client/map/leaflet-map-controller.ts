@@ -5,7 +5,7 @@
  * The controller owns no scenario state: it shows what it is given and reports gestures.
  */
 import L from 'leaflet';
-import type { Scenario, Well } from '../../shared/schema';
+import type { Piezometer, Scenario, Well } from '../../shared/schema';
 import type { GridSpec } from '../../shared/field/types';
 import type { FieldResult } from '../worker/engine-protocol';
 import type { SectionLine, UnderlaySettings } from '../state/view-settings';
@@ -17,18 +17,22 @@ import { ProjectedTileLayer } from './projected-tile-layer';
 import { CRITICAL_COLOUR, INK, MET_COLOUR, SELECTION_COLOUR, SHORTFALL_COLOUR } from './colour-scale';
 
 /** The pointer tool in use. */
-export type MapTool = 'select' | 'add-well' | 'draw-excavation' | 'section' | 'boundary' | 'pick-point';
+export type MapTool = 'select' | 'add-well' | 'add-piezometer' | 'draw-excavation' | 'section' | 'boundary' | 'pick-point';
 
 /** What the map reports back to its owner. Positions are site metres. */
 export interface MapCallbacks {
   cursor(x: number | null, y?: number): void;
-  /** A click on empty map in `select` (inspect), `add-well` or `pick-point` mode. */
+  /** A click on empty map in `select` (inspect), `add-well`, `add-piezometer` or `pick-point` mode. */
   click(tool: MapTool, x: number, y: number): void;
   selectWell(id: string | null): void;
   selectExcavation(id: string | null): void;
   /** Drag of a well: `phase` 'move' repeatedly, then 'end' (or 'cancel' on Escape). */
   dragWell(id: string, x: number, y: number, phase: 'move' | 'end' | 'cancel'): void;
   dragVertex(excavationId: string, index: number, x: number, y: number, phase: 'move' | 'end' | 'cancel'): void;
+  /** A click on a piezometer marker (null: the selection was cleared by a click on empty map). */
+  selectPiezometer(id: string | null): void;
+  /** Drag of a piezometer, as for wells. */
+  dragPiezometer(id: string, x: number, y: number, phase: 'move' | 'end' | 'cancel'): void;
   insertVertex(excavationId: string, afterIndex: number, x: number, y: number): void;
   drawnOutline(points: Array<[number, number]>): void;
   drawnLine(tool: 'section' | 'boundary', from: [number, number], to: [number, number]): void;
@@ -54,6 +58,9 @@ export class LeafletMapController {
   private readonly renderer = L.svg({ padding: 0.5 });
   private readonly wells = new Map<string, L.CircleMarker>();
   private readonly wellLayer = L.layerGroup();
+  private readonly piezometers = new Map<string, L.Marker>();
+  private readonly piezometerLayer = L.layerGroup();
+  private piezometerId: string | null = null;
   private readonly excavationLayer = L.layerGroup();
   private readonly boundaryLayer = L.layerGroup();
   private readonly handleLayer = L.layerGroup();
@@ -91,7 +98,7 @@ export class LeafletMapController {
     this.tiles.addTo(this.map);
     this.underlay.addTo(this.map);
     this.field.addTo(this.map);
-    for (const layer of [this.excavationLayer, this.boundaryLayer, this.sectionLayer, this.ringPreview, this.markLayer, this.wellLayer, this.handleLayer, this.draftLayer]) layer.addTo(this.map);
+    for (const layer of [this.excavationLayer, this.boundaryLayer, this.sectionLayer, this.ringPreview, this.markLayer, this.wellLayer, this.piezometerLayer, this.handleLayer, this.draftLayer]) layer.addTo(this.map);
     this.setImperialScale(false);
     L.control.zoom({ position: 'topleft' }).addTo(this.map);
     this.map.removeControl(this.map.zoomControl);
@@ -142,8 +149,15 @@ export class LeafletMapController {
     this.scenario = scenario;
     this.selection = selection;
     this.syncWells(scenario.wells);
+    this.syncPiezometers((scenario as Scenario & { monitoring?: { piezometers?: Piezometer[] } }).monitoring?.piezometers ?? []);
     if (outlinesChanged) this.drawExcavations(scenario);
     if (boundariesChanged) this.drawBoundaries(scenario);
+  }
+
+  /** Highlights one piezometer (kept apart from `MapSelection`: wells and pits select on their own). */
+  setSelectedPiezometer(id: string | null): void {
+    this.piezometerId = id;
+    for (const [pid, m] of this.piezometers) m.getElement()?.classList.toggle('dd-selected', pid === id);
   }
 
   setField(result: FieldResult | null, style: FieldStyle): void {
@@ -334,6 +348,60 @@ export class LeafletMapController {
     }
   }
 
+  // ————— piezometers —————
+
+  /**
+   * Piezometers as our own symbol, a ring with a centre dot and the id beside it (wells are
+   * plain discs), in the marker pane so they stay above the wells they sit among.
+   */
+  private syncPiezometers(list: readonly Piezometer[]): void {
+    const seen = new Set<string>();
+    for (const p of list) {
+      seen.add(p.id);
+      let m = this.piezometers.get(p.id);
+      if (!m) {
+        m = L.marker([p.y, p.x], {
+          icon: L.divIcon({
+            className: 'dd-piezometer',
+            html: '<svg viewBox="0 0 18 18" width="18" height="18" aria-hidden="true"><circle class="dd-pz-ring" cx="9" cy="9" r="6.5"/><circle class="dd-pz-dot" cx="9" cy="9" r="2"/></svg><span class="dd-pz-label"></span>',
+            iconSize: [18, 18],
+          }),
+          keyboard: false,
+          bubblingMouseEvents: false,
+        });
+        const id = p.id;
+        this.onPointerDown(m, (ev) => {
+          this.cb.selectPiezometer(id);
+          this.dragGesture(ev, (ll, phase) => this.cb.dragPiezometer(id, round3(ll.lng), round3(ll.lat), phase));
+        });
+        m.on('click', (e: L.LeafletMouseEvent) => {
+          L.DomEvent.stop(e);
+          if (Date.now() < this.suppressClickUntil) return;
+          this.cb.selectPiezometer(id);
+        });
+        m.addTo(this.piezometerLayer);
+        this.piezometers.set(p.id, m);
+      } else {
+        const ll = m.getLatLng();
+        if (ll.lat !== p.y || ll.lng !== p.x) m.setLatLng([p.y, p.x]);
+      }
+      const el = m.getElement();
+      if (el) {
+        el.setAttribute('data-piezometer-id', p.id);
+        el.title = `${p.id} · piezometer${p.label ? ` — ${p.label}` : ''}`;
+        el.classList.toggle('dd-selected', this.piezometerId === p.id);
+        const label = el.querySelector('.dd-pz-label');
+        if (label && label.textContent !== p.id) label.textContent = p.id;
+      }
+    }
+    for (const [id, m] of this.piezometers) {
+      if (!seen.has(id)) {
+        m.remove();
+        this.piezometers.delete(id);
+      }
+    }
+  }
+
   private startWellDrag(id: string, ev: PointerEvent): void {
     this.cb.selectWell(id);
     this.dragGesture(ev, (ll, phase) => this.cb.dragWell(id, round3(ll.lng), round3(ll.lat), phase));
@@ -343,11 +411,12 @@ export class LeafletMapController {
    * Starts a drag from a pointerdown on a vector layer's element: pointer events cover mouse,
    * touch and pen alike (a finger on a phone drags a well as a mouse does).
    */
-  private onPointerDown(layer: L.Path, start: (ev: PointerEvent) => void): void {
+  private onPointerDown(layer: L.Path | L.Marker, start: (ev: PointerEvent) => void): void {
     const attach = () => {
-      const el = layer.getElement() as SVGElement | undefined;
-      if (!el || (el as SVGElement & { ddDrag?: boolean }).ddDrag) return;
-      (el as SVGElement & { ddDrag?: boolean }).ddDrag = true;
+      // An SVG path (wells, handles) or a div icon (piezometers): both take pointer listeners alike.
+      const el = layer.getElement() as HTMLElement | undefined;
+      if (!el || (el as HTMLElement & { ddDrag?: boolean }).ddDrag) return;
+      (el as HTMLElement & { ddDrag?: boolean }).ddDrag = true;
       el.style.touchAction = 'none';
       el.addEventListener('pointerdown', (ev: PointerEvent) => {
         if (this.tool !== 'select' || ev.button !== 0 || !ev.isPrimary) return;
@@ -501,9 +570,11 @@ export class LeafletMapController {
       case 'select':
         this.cb.selectWell(null);
         this.cb.selectExcavation(null);
+        this.cb.selectPiezometer(null);
         this.cb.click('select', x, y);
         break;
       case 'add-well':
+      case 'add-piezometer':
       case 'pick-point':
         this.cb.click(this.tool, x, y);
         break;

@@ -1,2 +1,3 @@
 export * from './scenario-store';
 export * from './view-settings';
+export * from './monitoring-section';

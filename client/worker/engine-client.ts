@@ -4,7 +4,8 @@
  * requests simply queue.
  */
 import type {
-  EngineRequest, EngineResponse, FieldRequest, FieldResult, InspectRequest, InspectResult, SectionRequest, SectionResult,
+  EngineRequest, EngineResponse, FieldRequest, FieldResult, InspectRequest, InspectResult, MonitoringRequest, MonitoringResult,
+  SectionRequest, SectionResult,
 } from './engine-protocol';
 
 type Pending = {
@@ -53,6 +54,11 @@ export class EngineClient {
 
   async section(req: Omit<SectionRequest, 'id' | 'kind'>): Promise<SectionResult | null> {
     return this.unwrap<SectionResult>(await this.send({ ...req, kind: 'section' }, this.nextId++));
+  }
+
+  /** Expected, alert and action levels over time at one piezometer. */
+  async monitoring(req: Omit<MonitoringRequest, 'id' | 'kind'>): Promise<MonitoringResult | null> {
+    return this.unwrap<MonitoringResult>(await this.send({ ...req, kind: 'monitoring' }, this.nextId++));
   }
 
   dispose(): void {

@@ -7,6 +7,7 @@ import type { Scenario } from '../../shared/schema';
 import type { GridSpec, ModelInfo, PointFlag, PointResult } from '../../shared/field/types';
 import type { SeriesSample } from '../../shared/field';
 import type { ContourSet, XY } from '../../shared/contours';
+import type { PiezometerPlan } from '../../shared/exports';
 
 /** Which field the contours show. */
 export type FieldQuantity = 'drawdown' | 'level';
@@ -53,13 +54,21 @@ export interface SectionRequest {
   time_s: number | null;
 }
 
+/** One piezometer's expected, alert and action levels over time, as the site team will get them. */
+export interface MonitoringRequest {
+  kind: 'monitoring';
+  id: number;
+  scenario: Scenario;
+  piezometerId: string;
+}
+
 /** Stop a running or queued job (its answer, if any, is `cancelled`). */
 export interface CancelRequest {
   kind: 'cancel';
   id: number;
 }
 
-export type EngineRequest = FieldRequest | InspectRequest | SectionRequest | CancelRequest;
+export type EngineRequest = FieldRequest | InspectRequest | SectionRequest | MonitoringRequest | CancelRequest;
 
 /** How one excavation stands against its target at the design time. */
 export interface ExcavationShortfall {
@@ -122,6 +131,19 @@ export interface SectionResult {
   model: ModelInfo;
 }
 
+/** Answer to a MonitoringRequest: the plan row of `buildMonitoringPlan` for that piezometer. */
+export interface MonitoringResult {
+  kind: 'monitoring';
+  id: number;
+  /** Null when the scenario has no piezometer of that id. */
+  piezometer: PiezometerPlan | null;
+  pumpingStart: string | null;
+  /** Interval of the expected-level table, s (null: steady state). */
+  interval_s: number | null;
+  staticLevel_m: number;
+  notes: string[];
+}
+
 export interface ProgressMessage {
   kind: 'progress';
   id: number;
@@ -141,4 +163,4 @@ export interface CancelledMessage {
   id: number;
 }
 
-export type EngineResponse = FieldResult | InspectResult | SectionResult | ProgressMessage | ErrorMessage | CancelledMessage;
+export type EngineResponse = FieldResult | InspectResult | SectionResult | MonitoringResult | ProgressMessage | ErrorMessage | CancelledMessage;

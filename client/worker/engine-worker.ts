@@ -6,6 +6,7 @@
 import { DrydigError } from '../../shared/schema';
 import type { EngineRequest, EngineResponse } from './engine-protocol';
 import { JobCancelled, runFieldJob, runInspectJob, runSectionJob } from './field-job';
+import { runMonitoringJob } from './monitoring-job';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 const queue: EngineRequest[] = [];
@@ -45,6 +46,8 @@ async function drain(): Promise<void> {
         post(result);
       } else if (req.kind === 'inspect') {
         post(runInspectJob(req));
+      } else if (req.kind === 'monitoring') {
+        post(runMonitoringJob(req));
       } else {
         post(runSectionJob(req));
       }

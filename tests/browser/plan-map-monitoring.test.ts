@@ -1,0 +1,142 @@
+/**
+ * The monitoring plan on the plan map in a real browser: the demo's piezometers are drawn with
+ * their own symbol and listed, the Piezometer tool places PZ3, its alert offset is edited (one
+ * undo step), bad input names its field and is refused, the expected-level chart shows the alert
+ * and action lines, a drag moves it, and undo takes every step back until it is gone.
+ */
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { clickSite, pagePoint, usePlanMap, type BrowserSession } from './browser-harness';
+
+let s: BrowserSession;
+let page: Page;
+
+usePlanMap((session) => {
+  s = session;
+  page = session.page;
+});
+
+interface HookPiezometer { id: string; x: number; y: number; alertOffset_m?: number; actionLevel_m?: number; label?: string }
+
+async function piezometers(p: Page): Promise<HookPiezometer[]> {
+  return p.evaluate(() => {
+    const sc = (window as unknown as { __drydig: { scenario(): { monitoring?: { piezometers: HookPiezometer[] } } } }).__drydig.scenario();
+    return sc.monitoring?.piezometers ?? [];
+  });
+}
+
+const demo = JSON.parse(readFileSync('fixtures/demo-wellpoints-unconfined.json', 'utf8')) as {
+  excavations: Array<{ formationLevel_m: number; margin_m: number }>;
+  monitoring: { piezometers: HookPiezometer[] };
+};
+
+describe('piezometers on the plan map', () => {
+  it('draws the demo piezometers with their own symbol, in the key and in the Monitoring list', async () => {
+    await expect.poll(() => page.locator('.dd-piezometer').count()).toBe(demo.monitoring.piezometers.length);
+    for (const p of demo.monitoring.piezometers) expect(await page.locator(`.dd-piezometer[data-piezometer-id="${p.id}"] .dd-pz-label`).innerText()).toBe(p.id);
+    // Wells stay plain discs: no well carries the piezometer class.
+    expect(await page.locator('path.dd-well.dd-piezometer').count()).toBe(0);
+    expect(await page.locator('map-legend .dd-sym-piezometer').count()).toBe(1);
+    await page.click('button[name="tab-layout"]');
+    expect(await page.locator('monitoring-editor .dd-pz-list button[data-piezometer]').count()).toBe(demo.monitoring.piezometers.length);
+    expect(await page.locator('monitoring-editor input[name="pumping-start"]').inputValue()).toBe('2027-03-01T07:00:00Z');
+  });
+
+  it('places PZ3 with the tool, edits its alert offset, shows the expected-level chart, and undo removes it', async () => {
+    await page.click('button[name="tool-add-piezometer"]');
+    // West of the pit, clear of the key in the lower right.
+    await clickSite(page, -20, 10);
+    await expect.poll(() => page.locator('.dd-piezometer[data-piezometer-id="PZ3"]').count()).toBe(1);
+    let list = await piezometers(page);
+    expect(list.map((p) => p.id)).toEqual(['PZ1', 'PZ2', 'PZ3']);
+    // Placed where clicked, to within a screen pixel (site metres are rounded to mm).
+    const placed = list[2]!;
+    expect(Object.keys(placed).sort()).toEqual(['id', 'x', 'y']);
+    expect(Math.abs(placed.x - -20)).toBeLessThan(0.2);
+    expect(Math.abs(placed.y - 10)).toBeLessThan(0.2);
+    expect(await page.locator('monitoring-editor .dd-pz-list button[data-piezometer="PZ3"]').getAttribute('class')).toContain('dd-on');
+    expect(await page.locator('.dd-piezometer[data-piezometer-id="PZ3"]').getAttribute('class')).toContain('dd-selected');
+
+    // The alert offset: blank means 0.3 m (common practice); set 0.5 m.
+    expect(await page.locator('monitoring-editor input[name="pz-alertOffset_m"]').getAttribute('placeholder')).toBe('0.3');
+    await page.fill('monitoring-editor input[name="pz-alertOffset_m"]', '0.5');
+    await page.locator('monitoring-editor input[name="pz-alertOffset_m"]').blur();
+    await expect.poll(async () => (await piezometers(page))[2]?.alertOffset_m).toBe(0.5);
+
+    // The chart the site team will be given: expected curve, alert line, action level. PZ3 is
+    // outside pit-A, the only excavation, so the action level is pit-A's target (formation − margin).
+    const chart = page.locator('monitoring-editor piezometer-chart');
+    await expect.poll(() => chart.locator('path.dd-pz-expected').count(), { timeout: 20_000 }).toBe(1);
+    expect(await chart.locator('path.dd-pz-alert').count()).toBe(1);
+    // The action level applies from the design time (the end of this table): faint before, drawn from then on.
+    expect(await chart.locator('line.dd-pz-action:not(.dd-pz-action-before)').count()).toBe(1);
+    expect(await chart.locator('line.dd-pz-action-before').count()).toBe(1);
+    const target = demo.excavations[0]!.formationLevel_m - demo.excavations[0]!.margin_m;
+    const key = (await chart.locator('.dd-pz-key').innerText()).replace(/\s+/g, ' ');
+    expect(key).toContain('alert: expected + 0.50 m');
+    expect(key).toContain(`action ${target.toFixed(2)} m`);
+    // The alert line runs 0.5 m above the expected curve: the same shape, shifted up on screen.
+    const firstY = async (cls: string) => Number(/^M[\d.]+,([\d.]+)/.exec((await chart.locator(`path.${cls}`).getAttribute('d'))!)![1]);
+    expect(await firstY('dd-pz-alert')).toBeLessThan(await firstY('dd-pz-expected'));
+    expect(await page.locator('monitoring-editor .dd-field small').allInnerTexts()).toContainEqual(expect.stringContaining('pit-A'));
+    // Outside the pit the design expects a level above the pit's target: the editor warns that the
+    // default action level would call for action on a reading that matches the design.
+    expect(await page.locator('monitoring-editor .dd-pz-clash').innerText()).toMatch(/above the action level\s+6\.50\sm: a reading that matches the design would already call for action/);
+    await chart.scrollIntoViewIfNeeded();
+    await s.screenshot('30-monitoring-piezometer');
+
+    // Bad input names the field and is refused; the scenario is unchanged.
+    await page.fill('monitoring-editor input[name="pz-x"]', 'east');
+    await page.locator('monitoring-editor input[name="pz-x"]').blur();
+    expect(await page.locator('monitoring-editor .dd-pz-input-error').innerText()).toBe('/monitoring/piezometers/2/x: easting "east" is not a number');
+    expect((await piezometers(page))[2]).toEqual({ ...placed, alertOffset_m: 0.5 });
+    await page.fill('monitoring-editor input[name="pz-alertOffset_m"]', '-1');
+    await page.locator('monitoring-editor input[name="pz-alertOffset_m"]').blur();
+    expect(await page.locator('monitoring-editor .dd-pz-input-error').innerText()).toMatch(/^\/monitoring\/piezometers\/2\/alertOffset_m: /);
+    expect((await piezometers(page))[2]?.alertOffset_m).toBe(0.5);
+    await page.fill('monitoring-editor input[name="pumping-start"]', 'next Monday');
+    await page.locator('monitoring-editor input[name="pumping-start"]').blur();
+    expect(await page.locator('monitoring-editor .dd-pz-input-error').innerText()).toMatch(/^\/monitoring\/pumpingStart: "next Monday" must be an ISO 8601 date-time/);
+
+    // Drag PZ3 5 m west with the Select tool: one undo step.
+    await page.keyboard.press('Escape');
+    const from = await pagePoint(page, placed.x, placed.y);
+    const to = await pagePoint(page, placed.x - 5, placed.y);
+    await page.mouse.move(from.x, from.y);
+    await page.mouse.down();
+    await page.mouse.move((from.x + to.x) / 2, to.y, { steps: 4 });
+    await page.mouse.move(to.x, to.y, { steps: 4 });
+    await page.mouse.up();
+    await expect.poll(async () => Math.abs(((await piezometers(page))[2]?.x ?? 0) - (placed.x - 5))).toBeLessThan(0.2);
+
+    // Undo: the drag, the alert offset, the placement — then PZ3 is gone from the plan and the list.
+    await page.click('button[name="undo"]');
+    await expect.poll(async () => (await piezometers(page))[2]?.x).toBe(placed.x);
+    await page.click('button[name="undo"]');
+    await expect.poll(async () => (await piezometers(page))[2]?.alertOffset_m).toBeUndefined();
+    await page.click('button[name="undo"]');
+    await expect.poll(() => page.locator('.dd-piezometer[data-piezometer-id="PZ3"]').count()).toBe(0);
+    list = await piezometers(page);
+    expect(list).toEqual(demo.monitoring.piezometers);
+    expect(await page.locator('monitoring-editor .dd-pz-list button[data-piezometer="PZ3"]').count()).toBe(0);
+    expect(s.errors).toEqual([]);
+  });
+
+  it('deletes a selected piezometer with the Delete key and keeps the rest of the scenario', async () => {
+    const before = await page.evaluate(() => (window as unknown as { __drydig: { scenario(): unknown } }).__drydig.scenario());
+    await page.click('monitoring-editor .dd-pz-list button[data-piezometer="PZ2"]');
+    await page.locator('.dd-tabs').click({ position: { x: 2, y: 2 } }); // focus off the inputs
+    await page.keyboard.press('Delete');
+    await expect.poll(() => page.locator('.dd-piezometer[data-piezometer-id="PZ2"]').count()).toBe(0);
+    const after = await page.evaluate(() => (window as unknown as { __drydig: { scenario(): Record<string, unknown> } }).__drydig.scenario());
+    const { monitoring: m0, ...rest0 } = before as Record<string, unknown>;
+    const { monitoring: m1, ...rest1 } = after;
+    expect(rest1).toEqual(rest0);
+    expect((m1 as { piezometers: HookPiezometer[]; pumpingStart: string }).piezometers.map((p) => p.id)).toEqual(['PZ1']);
+    expect((m1 as { pumpingStart: string }).pumpingStart).toBe((m0 as { pumpingStart: string }).pumpingStart);
+    await page.click('button[name="undo"]');
+    await expect.poll(() => page.locator('.dd-piezometer').count()).toBe(2);
+    expect(s.errors).toEqual([]);
+  });
+});

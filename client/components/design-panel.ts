@@ -19,6 +19,7 @@ import { designResultToCsv } from '../../shared/design/design-csv';
 import { linearScale, niceTicks } from './chart-axes';
 import { formatDuration } from './time-format';
 import { CAUTION_TEXT } from './caution-note';
+import { defaultDisplayUnits, formatQuantity, fromSi, type DisplayUnits, type FormatQuantityOptions, type UnitId } from '../../shared/units';
 
 /** The options the panel edits, in display units (converted to SI when the request is built). */
 interface PanelOptions {
@@ -70,12 +71,36 @@ design-panel .dd-design-options { display: grid; grid-template-columns: 1fr 1fr;
 
 const num = (v: number | null | undefined, digits = 3) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : String(Number(v.toPrecision(digits))));
 const fixed = (v: number | null | undefined, decimals = 2) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(decimals));
-const lps = (q_m3_s: number) => `${num(q_m3_s * 1000)} L/s (${num(q_m3_s * 3600)} m³/h)`;
 const money = (v: number) => (Number.isFinite(v) ? Math.round(v).toLocaleString('en-GB') : '—');
+
+/** An SI value in a display unit, '—' when absent; a plain space before the unit, as the panel's other figures. */
+function inUnit(value_si: number | null | undefined, unit: UnitId, options: Pick<FormatQuantityOptions, 'significant' | 'decimals'> = {}): string {
+  if (value_si === null || value_si === undefined) return `— ${unit}`;
+  return `${formatQuantity(value_si, unit, { ...options, withUnit: false })} ${unit}`;
+}
+
+/**
+ * Whether two scenarios pose the same design problem: identical but for `view` (display units,
+ * contour settings), compared by reference so any doubt counts as a change and marks the result stale.
+ */
+function sameDesignInput(a: Scenario | undefined, b: Scenario | undefined): boolean {
+  if (a === b) return true;
+  if (!a || !b) return false;
+  const ra = a as Record<string, unknown>;
+  const rb = b as Record<string, unknown>;
+  const keys = new Set([...Object.keys(ra), ...Object.keys(rb)]);
+  keys.delete('view');
+  for (const k of keys) if (ra[k] !== rb[k]) return false;
+  return true;
+}
+
+/** True when the display rate unit is metric: the panel then gives L/s with m³/h, the two units pumps are sized in. */
+const isMetricRate = (units: DisplayUnits) => units.rate !== 'gpm';
 
 export class DesignPanel extends LightElement {
   static override properties = {
     scenario: { attribute: false },
+    units: { attribute: false },
     apiBase: { type: String },
     mode: { state: true },
     options: { state: true },
@@ -86,6 +111,8 @@ export class DesignPanel extends LightElement {
     stale: { state: true },
   };
   declare scenario: Scenario | undefined;
+  /** Display units for flows, heads, levels and lengths (the app's choice). Default SI. */
+  declare units: DisplayUnits;
   /** Prefix of the HTTP API (same origin by default). */
   declare apiBase: string;
   declare mode: DesignMode;
@@ -103,6 +130,7 @@ export class DesignPanel extends LightElement {
   constructor() {
     super();
     this.scenario = undefined;
+    this.units = defaultDisplayUnits('si');
     this.apiBase = '';
     this.mode = 'optimal';
     this.options = { ...EMPTY_OPTIONS };
@@ -120,8 +148,29 @@ export class DesignPanel extends LightElement {
     this.timer = null;
   }
 
+  /** A flow: L/s (m³/h) in metric units, else the display rate unit (gpm). */
+  private flow(q_m3_s: number): string {
+    return isMetricRate(this.units) ? `${inUnit(q_m3_s, 'L/s')} (${inUnit(q_m3_s, 'm³/h')})` : inUnit(q_m3_s, this.units.rate);
+  }
+
+  /** A level or head in the display length unit, to `decimals` places. */
+  private length(value_m: number | null | undefined, decimals: number): string {
+    return inUnit(value_m, this.units.length, { decimals });
+  }
+
+  /** A site coordinate in the display length unit, as the map's read-out gives it (no unit label). */
+  private coordinate(value_m: number): string {
+    return fixed(fromSi(value_m, this.units.length), 1);
+  }
+
+  /** A small signed level difference: centimetres in metric units, else the display length unit. */
+  private shortfall(value_m: number, signed: boolean): string {
+    const sign = signed && value_m > 0 ? '+' : '';
+    return this.units.length === 'm' ? `${sign}${fixed(value_m * 100, 1)} cm` : `${sign}${inUnit(value_m, this.units.length, { decimals: 2 })}`;
+  }
+
   protected override willUpdate(changed: Map<string, unknown>): void {
-    if (changed.has('scenario') && this.result !== null) this.stale = this.scenario !== this.resultFor;
+    if (changed.has('scenario') && this.result !== null) this.stale = !sameDesignInput(this.scenario, this.resultFor);
   }
 
   /** Options to send: only the fields the user filled in, converted to SI; a bad entry is reported, not guessed. */
@@ -268,6 +317,9 @@ export class DesignPanel extends LightElement {
 
   private renderResult(r: DesignResult) {
     const sm = r.summary;
+    // Per-well rates stay in L/s with metric units: the figure a well point's pump is chosen by.
+    const rateUnit: UnitId = isMetricRate(this.units) ? 'L/s' : this.units.rate;
+    const lengthUnit = this.units.length;
     return html`
       ${this.stale ? html`<p class="dd-warn">The scenario has changed since this design was run: run it again before using the numbers.</p>` : nothing}
       <div class=${`dd-design-verdict ${r.feasible ? 'dd-yes' : 'dd-no'}`} role="status" data-feasible=${String(r.feasible)}>
@@ -278,8 +330,8 @@ export class DesignPanel extends LightElement {
           (e) => html`<div class=${`dd-badge ${e.met ? 'dd-met' : 'dd-short'}`} data-excavation=${e.id}>
             <span class="dd-badge-icon" aria-hidden="true">${e.met ? '✓' : '!'}</span>
             <span class="dd-badge-text"><strong>${e.id}</strong>
-              <span class="dd-badge-value">${e.met ? 'met' : 'not met'}, highest level ${fixed(e.critical.level_m)} m vs target ${fixed(e.targetLevel_m)} m (${e.worstShortfall_m > 0 ? '+' : ''}${fixed(e.worstShortfall_m * 100, 1)} cm)</span>
-              <small>critical point (${fixed(e.critical.x, 1)}, ${fixed(e.critical.y, 1)}), ${e.critical.kind};
+              <span class="dd-badge-value">${e.met ? 'met' : 'not met'}, highest level ${this.length(e.critical.level_m, 2)} vs target ${this.length(e.targetLevel_m, 2)} (${this.shortfall(e.worstShortfall_m, true)})</span>
+              <small>critical point (${this.coordinate(e.critical.x)}, ${this.coordinate(e.critical.y)}), ${e.critical.kind};
                 ${e.timeToTarget_s !== null ? `target reached after ${formatDuration(e.timeToTarget_s)}` : r.designTime_s === null ? 'steady design' : 'target not reached by the design time'};
                 power failure: back at formation level after ${e.recoveryToFormation_s === null ? 'more than the checked span' : formatDuration(e.recoveryToFormation_s)}</small></span>
           </div>`,
@@ -288,38 +340,38 @@ export class DesignPanel extends LightElement {
       ${r.reasons.length > 0 ? html`<h3>Why not</h3><ul class="dd-flags">${r.reasons.map((x) => html`<li class="dd-flag" data-code=${x.code}><strong>${x.code}</strong> ${x.message}</li>`)}</ul>` : nothing}
       <h3>Flow and pumps</h3>
       <dl class="dd-design-kv">
-        <dt>Total flow</dt><dd data-total>${lps(r.totalRate_m3_s)}</dd>
-        <dt>Design flow (× ${num(sm.safetyFactor)})</dt><dd>${lps(sm.designFlow_m3_s)}</dd>
-        ${sm.initialRate_m3_s !== null ? html`<dt>First ${formatDuration(sm.initialPeriod_s)} (storage draining)</dt><dd>${lps(sm.initialRate_m3_s)}</dd>` : nothing}
-        ${sm.maxWellHead_m !== null ? html`<dt>Deep-well head (largest)</dt><dd>${fixed(sm.maxWellHead_m, 1)} m</dd>` : nothing}
-        ${sm.headerSystemHead_m !== null ? html`<dt>Header pump head</dt><dd>${fixed(sm.headerSystemHead_m, 1)} m</dd>` : nothing}
+        <dt>Total flow</dt><dd data-total>${this.flow(r.totalRate_m3_s)}</dd>
+        <dt>Design flow (× ${num(sm.safetyFactor)})</dt><dd>${this.flow(sm.designFlow_m3_s)}</dd>
+        ${sm.initialRate_m3_s !== null ? html`<dt>First ${formatDuration(sm.initialPeriod_s)} (storage draining)</dt><dd>${this.flow(sm.initialRate_m3_s)}</dd>` : nothing}
+        ${sm.maxWellHead_m !== null ? html`<dt>Deep-well head (largest)</dt><dd>${this.length(sm.maxWellHead_m, 1)}</dd>` : nothing}
+        ${sm.headerSystemHead_m !== null ? html`<dt>Header pump head</dt><dd>${this.length(sm.headerSystemHead_m, 1)}</dd>` : nothing}
         <dt>Hydraulic / input power</dt><dd>${num(sm.hydraulicPower_kW)} / ${num(sm.inputPower_kW)} kW</dd>
         <dt>Installed power (× safety factor)</dt><dd>${num(sm.installedPower_kW)} kW</dd>
-        <dt>Pumps (${num(sm.pumpCapacity_m3_s * 1000)} L/s each)</dt><dd>${sm.dutyPumps} duty + ${sm.standbyPumps} standby</dd>
+        <dt>Pumps (${inUnit(sm.pumpCapacity_m3_s, isMetricRate(this.units) ? 'L/s' : this.units.rate)} each)</dt><dd>${sm.dutyPumps} duty + ${sm.standbyPumps} standby</dd>
         ${sm.undersizedPumpWellIds.length > 0 ? html`<dt class="dd-bad">Need a larger pump</dt><dd class="dd-bad">${sm.undersizedPumpWellIds.slice(0, 6).join(', ')}${sm.undersizedPumpWellIds.length > 6 ? '…' : ''}</dd>` : nothing}
         <dt>Energy over ${formatDuration(sm.duration_s)}</dt><dd>${money(sm.energy_kWh)} kWh</dd>
         <dt>Discharge volume (permit)</dt><dd>${money(sm.dischargeVolume_m3)} m³</dd>
         <dt>Cost: energy + volume + wells</dt><dd>${money(sm.energyCost)} + ${money(sm.pumpedVolumeCost)} + ${money(sm.wellCost)} = ${money(sm.totalCost)}</dd>
-        <dt>Quantities</dt><dd>${sm.quantities.wells} wells (${sm.quantities.wellsByKind.wellpoint} well points, ${sm.quantities.wellsByKind.deep} deep, ${sm.quantities.wellsByKind.ejector} ejectors), ${num(sm.quantities.screen_m)} m screen, ${num(sm.quantities.header_m)} m header</dd>
+        <dt>Quantities</dt><dd>${sm.quantities.wells} wells (${sm.quantities.wellsByKind.wellpoint} well points, ${sm.quantities.wellsByKind.deep} deep, ${sm.quantities.wellsByKind.ejector} ejectors), ${inUnit(sm.quantities.screen_m, this.units.length)} screen, ${inUnit(sm.quantities.header_m, this.units.length)} header</dd>
       </dl>
       <h3>Checks</h3>
       <dl class="dd-design-kv">
         ${r.quickCheck.map(
-          (q) => html`<dt title=${q.note}>Equivalent well, ${q.excavationId}</dt><dd data-quick-check>${q.equivalentWellInflow_m3_s === null ? '—' : lps(q.equivalentWellInflow_m3_s)}; ratio ${num(q.ratio, 2)}</dd>`,
+          (q) => html`<dt title=${q.note}>Equivalent well, ${q.excavationId}</dt><dd data-quick-check>${q.equivalentWellInflow_m3_s === null ? '—' : this.flow(q.equivalentWellInflow_m3_s)}; ratio ${num(q.ratio, 2)}</dd>`,
         )}
         ${r.outOfService
-          ? html`<dt>${r.outOfService.wellId} out of service</dt><dd class=${r.outOfService.met ? 'dd-good' : 'dd-bad'}>${r.outOfService.met ? 'target still met' : `short by ${fixed(r.outOfService.worstShortfall_m * 100, 1)} cm`}</dd>
-            ${r.outOfService.chosenBy === 'option' ? html`<dt>Worst single well out</dt><dd>${r.outOfService.worstWellId}: ${fixed(r.outOfService.worstWellShortfall_m * 100, 1)} cm</dd>` : nothing}`
+          ? html`<dt>${r.outOfService.wellId} out of service</dt><dd class=${r.outOfService.met ? 'dd-good' : 'dd-bad'}>${r.outOfService.met ? 'target still met' : `short by ${this.shortfall(r.outOfService.worstShortfall_m, false)}`}</dd>
+            ${r.outOfService.chosenBy === 'option' ? html`<dt>Worst single well out</dt><dd>${r.outOfService.worstWellId}: ${this.shortfall(r.outOfService.worstWellShortfall_m, false)}</dd>` : nothing}`
           : nothing}
         ${r.chosenWellIds ? html`<dt>Chosen to install</dt><dd>${r.chosenWellIds.length} of ${r.wells.length}</dd>` : nothing}
       </dl>
       ${r.timeSeries ? this.renderChart(r) : nothing}
       <details class="dd-section-block"><summary><h3>Wells <small>${r.wells.filter((w) => w.rate_m3_s > 0).length} pumping</small></h3></summary>
         <div class="dd-design-wells"><table class="dd-design-table">
-          <thead><tr><th>Well</th><th>L/s</th><th>cap. L/s</th><th>use</th><th>pumping level m</th><th>limit</th></tr></thead>
+          <thead><tr><th>Well</th><th>${rateUnit}</th><th>cap. ${rateUnit}</th><th>use</th><th>pumping level ${lengthUnit}</th><th>limit</th></tr></thead>
           <tbody>${r.wells.map(
-            (w) => html`<tr data-well=${w.id}><td>${w.id}${w.installed ? '' : ' ·'}</td><td>${fixed(w.rate_m3_s * 1000, 3)}</td><td>${fixed(w.capacity_m3_s * 1000, 3)}</td>
-              <td>${w.utilisation === null ? '—' : `${Math.round(w.utilisation * 100)} %`}</td><td>${fixed(w.pumpingLevel_m)}</td><td>${w.limit ?? ''}</td></tr>`,
+            (w) => html`<tr data-well=${w.id}><td>${w.id}${w.installed ? '' : ' ·'}</td><td>${fixed(fromSi(w.rate_m3_s, rateUnit), 3)}</td><td>${fixed(fromSi(w.capacity_m3_s, rateUnit), 3)}</td>
+              <td>${w.utilisation === null ? '—' : `${Math.round(w.utilisation * 100)} %`}</td><td>${fixed(fromSi(w.pumpingLevel_m, lengthUnit))}</td><td>${w.limit ?? ''}</td></tr>`,
           )}</tbody></table></div>
       </details>
       ${r.cautions.length > 0 ? html`<ul class="dd-flags">${r.cautions.map((c) => html`<li class="dd-flag">${c}</li>`)}</ul>` : nothing}
@@ -332,7 +384,7 @@ export class DesignPanel extends LightElement {
     const pumping = ts.pumping.filter((p) => p.time_s > 0);
     const recovery = ts.recovery.filter((p) => p.time_s > ts.stop_s).map((p) => ({ time_s: p.time_s - ts.stop_s, level_m: p.level_m }));
     const recoveryAt = r.excavations.find((e) => e.id === ts.excavationId)?.criticalRecoveryToFormation_s ?? null;
-    return html`<h3>Level at the critical point <small>${ts.excavationId} (${fixed(ts.x, 1)}, ${fixed(ts.y, 1)})</small></h3>
+    return html`<h3>Level at the critical point <small>${ts.excavationId} (${this.coordinate(ts.x)}, ${this.coordinate(ts.y)})</small></h3>
       ${this.logChart(pumping, 'dd-curve', 'time since pumping started (log)', ts, r.designTime_s, 'Level against time at the critical point, pumping on')}
       <ul class="dd-section-key">
         <li><span class="dd-k dd-k-water"></span>pumping on</li>
@@ -351,13 +403,16 @@ export class DesignPanel extends LightElement {
     const W = 420, H = 190, L = 46, R = 10, T = 12, B = 30;
     const t0 = Math.log10(pts[0]!.time_s);
     const t1 = Math.log10(pts[pts.length - 1]!.time_s);
-    const levels = pts.map((p) => p.level_m).concat([ts.targetLevel_m, ts.formationLevel_m]);
+    const unit = this.units.length;
+    const levels = pts.map((p) => p.level_m).concat([ts.targetLevel_m, ts.formationLevel_m]).map((v) => fromSi(v, unit));
     const lo = Math.min(...levels);
     const hi = Math.max(...levels);
     const pad = Math.max((hi - lo) * 0.08, 0.05);
     const x = linearScale(t0, t1, L, W - R);
     const y = linearScale(lo - pad, hi + pad, H - B, T);
-    const path = pts.map((p, i) => `${i ? 'L' : 'M'}${x(Math.log10(p.time_s)).toFixed(1)},${y(p.level_m).toFixed(1)}`).join('');
+    const path = pts.map((p, i) => `${i ? 'L' : 'M'}${x(Math.log10(p.time_s)).toFixed(1)},${y(fromSi(p.level_m, unit)).toFixed(1)}`).join('');
+    const targetY = y(fromSi(ts.targetLevel_m, unit));
+    const formationY = y(fromSi(ts.formationLevel_m, unit));
     const decades: number[] = [];
     for (let d = Math.ceil(t0); d <= Math.floor(t1); d++) decades.push(d);
     const yTicks = niceTicks(lo - pad, hi + pad, 5);
@@ -365,11 +420,11 @@ export class DesignPanel extends LightElement {
     return html`<svg class="dd-chart" viewBox="0 0 ${W} ${H}" role="img" aria-label=${label}>
       ${yTicks.map((v) => svg`<line class="dd-grid" x1=${L} x2=${W - R} y1=${y(v)} y2=${y(v)}></line><text class="dd-tick" x=${L - 4} y=${y(v) + 3} text-anchor="end">${num(v, 4)}</text>`)}
       ${decades.map((d) => svg`<line class="dd-grid" x1=${x(d)} x2=${x(d)} y1=${T} y2=${H - B}></line><text class="dd-tick" x=${x(d)} y=${H - B + 13} text-anchor="middle">${formatDuration(10 ** d)}</text>`)}
-      <line class="dd-target" x1=${L} x2=${W - R} y1=${y(ts.targetLevel_m)} y2=${y(ts.targetLevel_m)}></line>
-      <line class="dd-formation" x1=${L} x2=${W - R} y1=${y(ts.formationLevel_m)} y2=${y(ts.formationLevel_m)}></line>
+      <line class="dd-target" x1=${L} x2=${W - R} y1=${targetY} y2=${targetY}></line>
+      <line class="dd-formation" x1=${L} x2=${W - R} y1=${formationY} y2=${formationY}></line>
       ${mark !== null && mark >= t0 && mark <= t1 ? svg`<line class="dd-now" x1=${x(mark)} x2=${x(mark)} y1=${T} y2=${H - B}></line>` : nothing}
       <path class=${curveClass} d=${path}></path>
-      <text class="dd-axis" x=${12} y=${T + (H - B - T) / 2} transform="rotate(-90 12 ${T + (H - B - T) / 2})" text-anchor="middle">level (m)</text>
+      <text class="dd-axis" x=${12} y=${T + (H - B - T) / 2} transform="rotate(-90 12 ${T + (H - B - T) / 2})" text-anchor="middle">level (${unit})</text>
       <text class="dd-axis" x=${L + (W - R - L) / 2} y=${H - 3} text-anchor="middle">${xLabel}</text>
     </svg>`;
   }

@@ -775,7 +775,7 @@ export class DrydigApp extends LightElement {
       case 'ground':
         return html`<ground-panel .store=${this.store} .scenario=${s} .units=${u} @choose-tool=${(e: CustomEvent<MapTool>) => this.setTool(e.detail)}></ground-panel>`;
       case 'design':
-        return html`<design-panel .scenario=${s} @design-result=${this.onDesignResult}></design-panel>
+        return html`<design-panel .scenario=${s} .units=${u} @design-result=${this.onDesignResult}></design-panel>
           <caution-note .notes=${this.result?.model.notes ?? []} compact></caution-note>`;
       case 'backdrop':
         return html`<backdrop-panel .store=${this.store} .scenario=${s} .units=${u} .projection=${this.projection}

@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { usePlanMap, loadDemo, type BrowserSession } from './browser-harness';
+import { fieldsDrawn, loadDemo, settle, usePlanMap, type BrowserSession } from './browser-harness';
 
 let s: BrowserSession;
 let page: Page;
@@ -44,6 +44,27 @@ describe('<design-panel>', () => {
     for await (const chunk of stream) text += String(chunk);
     expect(text.split('\r\n')[0]).toBe('quantity,value,unit');
     expect(text).toMatch(/\r\nfeasible,yes,\r\n/);
+  });
+
+  it('shows the design total in gpm after switching to US units, the same flow as in L/s', async () => {
+    const si = await page.locator('design-panel [data-total]').innerText();
+    const litres_s = Number(/^([\d.]+) L\/s/.exec(si)![1]);
+    const before = await fieldsDrawn(page);
+    await page.click('button[name="units-us"]');
+    await settle(page, before);
+    await page.click('button[name="tab-design"]');
+    const us = await page.locator('design-panel [data-total]').innerText();
+    expect(us).toMatch(/^[\d.]+ gpm$/);
+    // 1 US gallon = 3.785411784 L exactly (NIST SP 811); both figures carry 3 significant digits.
+    const gpm = Number(/^([\d.]+) gpm/.exec(us)![1]);
+    expect(Math.abs(gpm * 3.785411784 / 60 - litres_s) / litres_s).toBeLessThan(0.01);
+    expect(await page.locator('design-panel .dd-badge[data-excavation="basement"]').innerText()).toMatch(/highest level \d+\.\d\d ft vs target \d+\.\d\d ft/);
+    await s.screenshot('design-panel-us-units');
+    const back = await fieldsDrawn(page);
+    await page.click('button[name="units-si"]');
+    await settle(page, back);
+    await page.click('button[name="tab-design"]');
+    expect(await page.locator('design-panel [data-total]').innerText()).toMatch(/L\/s \(.* m³\/h\)/);
   });
 
   it('applies the solved rates to the wells', async () => {

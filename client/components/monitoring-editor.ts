@@ -3,7 +3,8 @@
  * position, alert offset, action level, label), the pumping start, and for the selected
  * piezometer the level the design expects there over time with its alert and action lines.
  * Lengths in display units, stored SI; every edit is one undo step, and a value that does not
- * parse or that `validateMonitoring` refuses is not kept, with a message naming its field.
+ * parse or that `validateMonitoring` refuses is not kept, with a message naming its field, and
+ * the input goes back to the stored value, so what is shown is what the scenario holds.
  */
 import { html, nothing } from 'lit';
 import { LightElement } from './light-element';
@@ -39,7 +40,8 @@ export class MonitoringEditor extends LightElement {
 
   private planTimer = 0;
   private planSeq = 0;
-  private planKey = '';
+  /** What the current plan was asked for: the store's snapshots are immutable, so identity will do. */
+  private planFor: { scenario: Scenario | undefined; id: string | null; paused: boolean } = { scenario: undefined, id: null, paused: false };
 
   constructor() {
     super();
@@ -58,11 +60,11 @@ export class MonitoringEditor extends LightElement {
 
   override updated(): void {
     // Recompute only when what the plan depends on changed: the scenario or the selection.
-    const key = this.scenario && this.piezometerId && !this.paused ? `${this.piezometerId}|${JSON.stringify(this.scenario)}` : '';
-    if (key === this.planKey) return;
-    this.planKey = key;
+    const f = this.planFor;
+    if (f.scenario === this.scenario && f.id === this.piezometerId && f.paused === this.paused) return;
+    this.planFor = { scenario: this.scenario, id: this.piezometerId, paused: this.paused };
     clearTimeout(this.planTimer);
-    if (!key) {
+    if (!this.scenario || !this.piezometerId || this.paused) {
       this.planSeq++;
       if (this.plan !== null) this.plan = null;
       return;
@@ -86,6 +88,12 @@ export class MonitoringEditor extends LightElement {
       this.plan = null;
       this.planError = (error as Error).message;
     }
+  }
+
+  /** Shows why an input was not kept and puts the stored value back in it. */
+  private refuse(message: string, input: HTMLInputElement, stored: string): void {
+    this.error = message;
+    input.value = stored;
   }
 
   private get index(): number {
@@ -127,10 +135,11 @@ export class MonitoringEditor extends LightElement {
             return;
           }
           const parsed = parseDisplayNumber(input.value, unit, pointer, label.toLowerCase());
-          if (!parsed.ok) return void (this.error = parsed.message);
+          const stored = displayValue(p[field], unit);
+          if (!parsed.ok) return this.refuse(parsed.message, input, stored);
           const v = parsed.value_si;
-          if (field === 'alertOffset_m' && (v < 0 || v > 20)) return void (this.error = `${pointer}: alert offset must lie between 0 and ${formatQuantity(20, unit, { decimals: 1 })}`);
-          this.editPiezometer(`set ${label.toLowerCase()} of ${p.id}`, (d) => void (d[field] = v));
+          if (field === 'alertOffset_m' && (v < 0 || v > 20)) return this.refuse(`${pointer}: alert offset must lie between 0 and ${formatQuantity(20, unit, { decimals: 1 })}`, input, stored);
+          if (!this.editPiezometer(`set ${label.toLowerCase()} of ${p.id}`, (d) => void (d[field] = v))) input.value = stored;
         }} /><em>${unit}</em></span>${opts.hint ? html`<small>${opts.hint}</small>` : nothing}</label>`;
   }
 
@@ -152,8 +161,9 @@ export class MonitoringEditor extends LightElement {
       <label class="dd-field"><span>Pumping start (t = 0), ISO 8601 with zone</span>
         <input type="text" name="pumping-start" placeholder="e.g. 2027-03-01T07:00:00Z" .value=${monitoring?.pumpingStart ?? ''}
           @change=${(e: Event) => {
-            const text = (e.target as HTMLInputElement).value.trim();
-            if (text !== '' && !isIsoDateTime(text)) return void (this.error = `/monitoring/pumpingStart: "${text.slice(0, 40)}" must be an ISO 8601 date-time with a zone, e.g. 2027-03-01T07:00:00Z`);
+            const input = e.target as HTMLInputElement;
+            const text = input.value.trim();
+            if (text !== '' && !isIsoDateTime(text)) return this.refuse(`/monitoring/pumpingStart: "${text.slice(0, 40)}" must be an ISO 8601 date-time with a zone, e.g. 2027-03-01T07:00:00Z`, input, monitoring?.pumpingStart ?? '');
             this.edit(text ? 'set pumping start' : 'clear pumping start', (d) => {
               const m = ensureMonitoring(d);
               if (text) m.pumpingStart = text;
@@ -199,10 +209,12 @@ export class MonitoringEditor extends LightElement {
       <div class="dd-form-row">
         <label class="dd-field"><span>Id</span><input type="text" name="pz-id" maxlength="64" .value=${p.id}
           @change=${(e: Event) => {
-            const id = (e.target as HTMLInputElement).value.trim();
-            if (!id) return void (this.error = `/monitoring/piezometers/${i}/id: an id is required`);
+            const input = e.target as HTMLInputElement;
+            const id = input.value.trim();
+            if (!id) return this.refuse(`/monitoring/piezometers/${i}/id: an id is required`, input, p.id);
             if (id === p.id) return;
             if (this.edit(`rename ${p.id}`, (d) => void (ensureMonitoring(d).piezometers[i]!.id = id))) this.emit('select-piezometer', id);
+            else input.value = p.id;
           }} /></label>
         <label class="dd-field"><span>Label</span><input type="text" name="pz-label" maxlength="200" .value=${p.label ?? ''} placeholder="where it is, for the site team"
           @change=${(e: Event) => {

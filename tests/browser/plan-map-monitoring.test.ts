@@ -7,7 +7,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { clickSite, pagePoint, usePlanMap, type BrowserSession } from './browser-harness';
+import { clickSite, loadDemo, pagePoint, usePlanMap, type BrowserSession } from './browser-harness';
 
 let s: BrowserSession;
 let page: Page;
@@ -91,6 +91,13 @@ describe('piezometers on the plan map', () => {
     await page.locator('monitoring-editor input[name="pz-x"]').blur();
     expect(await page.locator('monitoring-editor .dd-pz-input-error').innerText()).toBe('/monitoring/piezometers/2/x: easting "east" is not a number');
     expect((await piezometers(page))[2]).toEqual({ ...placed, alertOffset_m: 0.5 });
+    // The input shows what the scenario holds again, not the refused text.
+    await expect.poll(async () => Math.abs(Number(await page.locator('monitoring-editor input[name="pz-x"]').inputValue()) - placed.x)).toBeLessThan(0.01);
+    // A duplicate id is refused by validateMonitoring with its pointer.
+    await page.fill('monitoring-editor input[name="pz-id"]', 'PZ1');
+    await page.locator('monitoring-editor input[name="pz-id"]').blur();
+    expect(await page.locator('monitoring-editor .dd-pz-input-error').innerText()).toBe('/monitoring/piezometers/2/id: duplicate piezometer id "PZ1"');
+    expect((await piezometers(page)).map((p) => p.id)).toEqual(['PZ1', 'PZ2', 'PZ3']);
     await page.fill('monitoring-editor input[name="pz-alertOffset_m"]', '-1');
     await page.locator('monitoring-editor input[name="pz-alertOffset_m"]').blur();
     expect(await page.locator('monitoring-editor .dd-pz-input-error').innerText()).toMatch(/^\/monitoring\/piezometers\/2\/alertOffset_m: /);
@@ -98,6 +105,7 @@ describe('piezometers on the plan map', () => {
     await page.fill('monitoring-editor input[name="pumping-start"]', 'next Monday');
     await page.locator('monitoring-editor input[name="pumping-start"]').blur();
     expect(await page.locator('monitoring-editor .dd-pz-input-error').innerText()).toMatch(/^\/monitoring\/pumpingStart: "next Monday" must be an ISO 8601 date-time/);
+    await expect.poll(() => page.locator('monitoring-editor input[name="pumping-start"]').inputValue()).toBe('2027-03-01T07:00:00Z');
 
     // Drag PZ3 5 m west with the Select tool: one undo step.
     await page.keyboard.press('Escape');
@@ -123,6 +131,25 @@ describe('piezometers on the plan map', () => {
     expect(s.errors).toEqual([]);
   });
 
+  it('shows and takes lengths in the display units (US: feet) and stores them in metres', async () => {
+    await page.click('button[name="units-us"]');
+    await page.click('monitoring-editor .dd-pz-list button[data-piezometer="PZ1"]');
+    // Blank alert offset: 0.3 m = 0.3 / 0.3048 ft = 0.9843 ft (NIST SP 811: 1 ft = 0.3048 m exactly).
+    expect(await page.locator('monitoring-editor input[name="pz-alertOffset_m"]').getAttribute('placeholder')).toBe('0.9843');
+    // PZ1 stands at the pit centre, x = 20 m = 65.62 ft.
+    expect(await page.locator('monitoring-editor input[name="pz-x"]').inputValue()).toBe('65.62');
+    await page.fill('monitoring-editor input[name="pz-alertOffset_m"]', '1');
+    await page.locator('monitoring-editor input[name="pz-alertOffset_m"]').blur();
+    await expect.poll(async () => (await piezometers(page))[0]?.alertOffset_m).toBeCloseTo(0.3048, 12);
+    const chart = page.locator('monitoring-editor piezometer-chart');
+    await expect.poll(() => chart.locator('text.dd-axis').first().textContent(), { timeout: 20_000 }).toBe('level (ft)');
+    await page.click('button[name="undo"]');
+    await expect.poll(async () => (await piezometers(page))[0]?.alertOffset_m).toBeUndefined();
+    await page.click('button[name="undo"]'); // the unit switch
+    expect(await page.locator('button[name="units-si"]').getAttribute('aria-pressed')).toBe('true');
+    expect(s.errors).toEqual([]);
+  });
+
   it('deletes a selected piezometer with the Delete key and keeps the rest of the scenario', async () => {
     const before = await page.evaluate(() => (window as unknown as { __drydig: { scenario(): unknown } }).__drydig.scenario());
     await page.click('monitoring-editor .dd-pz-list button[data-piezometer="PZ2"]');
@@ -137,6 +164,23 @@ describe('piezometers on the plan map', () => {
     expect((m1 as { pumpingStart: string }).pumpingStart).toBe((m0 as { pumpingStart: string }).pumpingStart);
     await page.click('button[name="undo"]');
     await expect.poll(() => page.locator('.dd-piezometer').count()).toBe(2);
+    expect(s.errors).toEqual([]);
+  });
+
+  it('on the deep-well demo, whose design falls short of its target, warns that PZ1 expects a level above its action level', async () => {
+    await loadDemo(page, 'deepwells');
+    await page.click('button[name="tab-layout"]');
+    await page.click('monitoring-editor .dd-pz-list button[data-piezometer="PZ1"]');
+    const clash = page.locator('monitoring-editor .dd-pz-clash');
+    await expect.poll(() => clash.count(), { timeout: 20_000 }).toBe(1);
+    expect(await clash.innerText()).toMatch(/above the action level\s+6\.50\sm/);
+    // PZ2 has its own action level above what the design expects there: no warning.
+    await page.click('monitoring-editor .dd-pz-list button[data-piezometer="PZ2"]');
+    const key = async () => (await page.locator('monitoring-editor piezometer-chart .dd-pz-key').innerText()).replace(/\s+/g, ' ');
+    await expect.poll(key, { timeout: 20_000 }).toContain('action 10.00 m from day 7 (design time)');
+    expect(await clash.count()).toBe(0);
+    await page.locator('monitoring-editor piezometer-chart').scrollIntoViewIfNeeded();
+    await s.screenshot('31-monitoring-deepwells-pz2');
     expect(s.errors).toEqual([]);
   });
 });

@@ -376,6 +376,8 @@ export class LeafletMapController {
         });
         m.on('click', (e: L.LeafletMouseEvent) => {
           L.DomEvent.stop(e);
+          // Placement and drawing tools work on top of a piezometer, as they do inside a pit.
+          if (this.tool !== 'select') return this.onMapClick(e);
           if (Date.now() < this.suppressClickUntil) return;
           this.cb.selectPiezometer(id);
         });

@@ -9,6 +9,9 @@ import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { clickSite, loadDemo, pagePoint, usePlanMap, type BrowserSession } from './browser-harness';
 
+/** How long a poll waits for the page to catch up (the machine is shared; this bounds a wait, it times nothing). */
+const WAIT = { timeout: 20_000 };
+
 let s: BrowserSession;
 let page: Page;
 
@@ -33,7 +36,7 @@ const demo = JSON.parse(readFileSync('fixtures/demo-wellpoints-unconfined.json',
 
 describe('piezometers on the plan map', () => {
   it('draws the demo piezometers with their own symbol, in the key and in the Monitoring list', async () => {
-    await expect.poll(() => page.locator('.dd-piezometer').count()).toBe(demo.monitoring.piezometers.length);
+    await expect.poll(() => page.locator('.dd-piezometer').count(), WAIT).toBe(demo.monitoring.piezometers.length);
     for (const p of demo.monitoring.piezometers) expect(await page.locator(`.dd-piezometer[data-piezometer-id="${p.id}"] .dd-pz-label`).innerText()).toBe(p.id);
     // Wells stay plain discs: no well carries the piezometer class.
     expect(await page.locator('path.dd-well.dd-piezometer').count()).toBe(0);
@@ -43,11 +46,23 @@ describe('piezometers on the plan map', () => {
     expect(await page.locator('monitoring-editor input[name="pumping-start"]').inputValue()).toBe('2027-03-01T07:00:00Z');
   });
 
+  it('lets the Well tool place a well on top of a piezometer (placement tools click through it)', async () => {
+    const wells = async () => page.evaluate(() => (window as unknown as { __drydig: { scenario(): { wells: unknown[] } } }).__drydig.scenario().wells.length);
+    const n = await wells();
+    const pz2 = demo.monitoring.piezometers[1]!;
+    await page.click('button[name="tool-add-well"]');
+    await clickSite(page, pz2.x, pz2.y);
+    await expect.poll(wells, WAIT).toBe(n + 1);
+    await page.click('button[name="undo"]');
+    await expect.poll(wells, WAIT).toBe(n);
+    await page.keyboard.press('Escape');
+  });
+
   it('places PZ3 with the tool, edits its alert offset, shows the expected-level chart, and undo removes it', async () => {
     await page.click('button[name="tool-add-piezometer"]');
     // West of the pit, clear of the key in the lower right.
     await clickSite(page, -20, 10);
-    await expect.poll(() => page.locator('.dd-piezometer[data-piezometer-id="PZ3"]').count()).toBe(1);
+    await expect.poll(() => page.locator('.dd-piezometer[data-piezometer-id="PZ3"]').count(), WAIT).toBe(1);
     let list = await piezometers(page);
     expect(list.map((p) => p.id)).toEqual(['PZ1', 'PZ2', 'PZ3']);
     // Placed where clicked, to within a screen pixel (site metres are rounded to mm).
@@ -62,12 +77,12 @@ describe('piezometers on the plan map', () => {
     expect(await page.locator('monitoring-editor input[name="pz-alertOffset_m"]').getAttribute('placeholder')).toBe('0.3');
     await page.fill('monitoring-editor input[name="pz-alertOffset_m"]', '0.5');
     await page.locator('monitoring-editor input[name="pz-alertOffset_m"]').blur();
-    await expect.poll(async () => (await piezometers(page))[2]?.alertOffset_m).toBe(0.5);
+    await expect.poll(async () => (await piezometers(page))[2]?.alertOffset_m, WAIT).toBe(0.5);
 
     // The chart the site team will be given: expected curve, alert line, action level. PZ3 is
     // outside pit-A, the only excavation, so the action level is pit-A's target (formation − margin).
     const chart = page.locator('monitoring-editor piezometer-chart');
-    await expect.poll(() => chart.locator('path.dd-pz-expected').count(), { timeout: 20_000 }).toBe(1);
+    await expect.poll(() => chart.locator('path.dd-pz-expected').count(), WAIT).toBe(1);
     expect(await chart.locator('path.dd-pz-alert').count()).toBe(1);
     // The action level applies from the design time (the end of this table): faint before, drawn from then on.
     expect(await chart.locator('line.dd-pz-action:not(.dd-pz-action-before)').count()).toBe(1);
@@ -92,7 +107,7 @@ describe('piezometers on the plan map', () => {
     expect(await page.locator('monitoring-editor .dd-pz-input-error').innerText()).toBe('/monitoring/piezometers/2/x: easting "east" is not a number');
     expect((await piezometers(page))[2]).toEqual({ ...placed, alertOffset_m: 0.5 });
     // The input shows what the scenario holds again, not the refused text.
-    await expect.poll(async () => Math.abs(Number(await page.locator('monitoring-editor input[name="pz-x"]').inputValue()) - placed.x)).toBeLessThan(0.01);
+    await expect.poll(async () => Math.abs(Number(await page.locator('monitoring-editor input[name="pz-x"]').inputValue()) - placed.x), WAIT).toBeLessThan(0.01);
     // A duplicate id is refused by validateMonitoring with its pointer.
     await page.fill('monitoring-editor input[name="pz-id"]', 'PZ1');
     await page.locator('monitoring-editor input[name="pz-id"]').blur();
@@ -105,7 +120,7 @@ describe('piezometers on the plan map', () => {
     await page.fill('monitoring-editor input[name="pumping-start"]', 'next Monday');
     await page.locator('monitoring-editor input[name="pumping-start"]').blur();
     expect(await page.locator('monitoring-editor .dd-pz-input-error').innerText()).toMatch(/^\/monitoring\/pumpingStart: "next Monday" must be an ISO 8601 date-time/);
-    await expect.poll(() => page.locator('monitoring-editor input[name="pumping-start"]').inputValue()).toBe('2027-03-01T07:00:00Z');
+    await expect.poll(() => page.locator('monitoring-editor input[name="pumping-start"]').inputValue(), WAIT).toBe('2027-03-01T07:00:00Z');
 
     // Drag PZ3 5 m west with the Select tool: one undo step.
     await page.keyboard.press('Escape');
@@ -116,15 +131,15 @@ describe('piezometers on the plan map', () => {
     await page.mouse.move((from.x + to.x) / 2, to.y, { steps: 4 });
     await page.mouse.move(to.x, to.y, { steps: 4 });
     await page.mouse.up();
-    await expect.poll(async () => Math.abs(((await piezometers(page))[2]?.x ?? 0) - (placed.x - 5))).toBeLessThan(0.2);
+    await expect.poll(async () => Math.abs(((await piezometers(page))[2]?.x ?? 0) - (placed.x - 5)), WAIT).toBeLessThan(0.2);
 
     // Undo: the drag, the alert offset, the placement — then PZ3 is gone from the plan and the list.
     await page.click('button[name="undo"]');
-    await expect.poll(async () => (await piezometers(page))[2]?.x).toBe(placed.x);
+    await expect.poll(async () => (await piezometers(page))[2]?.x, WAIT).toBe(placed.x);
     await page.click('button[name="undo"]');
-    await expect.poll(async () => (await piezometers(page))[2]?.alertOffset_m).toBeUndefined();
+    await expect.poll(async () => (await piezometers(page))[2]?.alertOffset_m, WAIT).toBeUndefined();
     await page.click('button[name="undo"]');
-    await expect.poll(() => page.locator('.dd-piezometer[data-piezometer-id="PZ3"]').count()).toBe(0);
+    await expect.poll(() => page.locator('.dd-piezometer[data-piezometer-id="PZ3"]').count(), WAIT).toBe(0);
     list = await piezometers(page);
     expect(list).toEqual(demo.monitoring.piezometers);
     expect(await page.locator('monitoring-editor .dd-pz-list button[data-piezometer="PZ3"]').count()).toBe(0);
@@ -136,15 +151,16 @@ describe('piezometers on the plan map', () => {
     await page.click('monitoring-editor .dd-pz-list button[data-piezometer="PZ1"]');
     // Blank alert offset: 0.3 m = 0.3 / 0.3048 ft = 0.9843 ft (NIST SP 811: 1 ft = 0.3048 m exactly).
     expect(await page.locator('monitoring-editor input[name="pz-alertOffset_m"]').getAttribute('placeholder')).toBe('0.9843');
-    // PZ1 stands at the pit centre, x = 20 m = 65.62 ft.
-    expect(await page.locator('monitoring-editor input[name="pz-x"]').inputValue()).toBe('65.62');
+    // PZ1's easting in feet, to the 4 significant figures the form shows (1 ft = 0.3048 m).
+    const x_ft = Number(await page.locator('monitoring-editor input[name="pz-x"]').inputValue());
+    expect(Math.abs(x_ft - demo.monitoring.piezometers[0]!.x / 0.3048)).toBeLessThan(0.01);
     await page.fill('monitoring-editor input[name="pz-alertOffset_m"]', '1');
     await page.locator('monitoring-editor input[name="pz-alertOffset_m"]').blur();
-    await expect.poll(async () => (await piezometers(page))[0]?.alertOffset_m).toBeCloseTo(0.3048, 12);
+    await expect.poll(async () => (await piezometers(page))[0]?.alertOffset_m, WAIT).toBeCloseTo(0.3048, 12);
     const chart = page.locator('monitoring-editor piezometer-chart');
-    await expect.poll(() => chart.locator('text.dd-axis').first().textContent(), { timeout: 20_000 }).toBe('level (ft)');
+    await expect.poll(() => chart.locator('text.dd-axis').first().textContent(), WAIT).toBe('level (ft)');
     await page.click('button[name="undo"]');
-    await expect.poll(async () => (await piezometers(page))[0]?.alertOffset_m).toBeUndefined();
+    await expect.poll(async () => (await piezometers(page))[0]?.alertOffset_m, WAIT).toBeUndefined();
     await page.click('button[name="undo"]'); // the unit switch
     expect(await page.locator('button[name="units-si"]').getAttribute('aria-pressed')).toBe('true');
     expect(s.errors).toEqual([]);
@@ -155,7 +171,7 @@ describe('piezometers on the plan map', () => {
     await page.click('monitoring-editor .dd-pz-list button[data-piezometer="PZ2"]');
     await page.locator('.dd-tabs').click({ position: { x: 2, y: 2 } }); // focus off the inputs
     await page.keyboard.press('Delete');
-    await expect.poll(() => page.locator('.dd-piezometer[data-piezometer-id="PZ2"]').count()).toBe(0);
+    await expect.poll(() => page.locator('.dd-piezometer[data-piezometer-id="PZ2"]').count(), WAIT).toBe(0);
     const after = await page.evaluate(() => (window as unknown as { __drydig: { scenario(): Record<string, unknown> } }).__drydig.scenario());
     const { monitoring: m0, ...rest0 } = before as Record<string, unknown>;
     const { monitoring: m1, ...rest1 } = after;
@@ -163,7 +179,7 @@ describe('piezometers on the plan map', () => {
     expect((m1 as { piezometers: HookPiezometer[]; pumpingStart: string }).piezometers.map((p) => p.id)).toEqual(['PZ1']);
     expect((m1 as { pumpingStart: string }).pumpingStart).toBe((m0 as { pumpingStart: string }).pumpingStart);
     await page.click('button[name="undo"]');
-    await expect.poll(() => page.locator('.dd-piezometer').count()).toBe(2);
+    await expect.poll(() => page.locator('.dd-piezometer').count(), WAIT).toBe(2);
     expect(s.errors).toEqual([]);
   });
 
@@ -172,12 +188,12 @@ describe('piezometers on the plan map', () => {
     await page.click('button[name="tab-layout"]');
     await page.click('monitoring-editor .dd-pz-list button[data-piezometer="PZ1"]');
     const clash = page.locator('monitoring-editor .dd-pz-clash');
-    await expect.poll(() => clash.count(), { timeout: 20_000 }).toBe(1);
+    await expect.poll(() => clash.count(), WAIT).toBe(1);
     expect(await clash.innerText()).toMatch(/above the action level\s+6\.50\sm/);
     // PZ2 has its own action level above what the design expects there: no warning.
     await page.click('monitoring-editor .dd-pz-list button[data-piezometer="PZ2"]');
     const key = async () => (await page.locator('monitoring-editor piezometer-chart .dd-pz-key').innerText()).replace(/\s+/g, ' ');
-    await expect.poll(key, { timeout: 20_000 }).toContain('action 10.00 m from day 7 (design time)');
+    await expect.poll(key, WAIT).toContain('action 10.00 m from day 7 (design time)');
     expect(await clash.count()).toBe(0);
     await page.locator('monitoring-editor piezometer-chart').scrollIntoViewIfNeeded();
     await s.screenshot('31-monitoring-deepwells-pz2');

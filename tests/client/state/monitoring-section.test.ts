@@ -58,7 +58,8 @@ describe('monitoring edits on a store draft', () => {
     const s = store.scenario as Extra;
     expect(s.futureSection).toEqual({ a: [1, 2] });
     expect(s.monitoring!.pumpingStart).toBe('2027-03-01T07:00:00Z');
-    expect(getPiezometers(s).map((p) => [p.id, p.x])).toEqual([['PZ1', 21], ['PZ2', 20]]);
+    expect(getPiezometers(s).map((p) => [p.id, p.x])).toEqual([['PZ1', 21], ['PZ2', getPiezometers(base)[1]!.x]]);
+    expect(s.wells[0]!.x).toBe(3);
   });
 
   it('monitoringIssues() names the JSON pointer of a bad field', () => {

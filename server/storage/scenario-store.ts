@@ -6,6 +6,7 @@
  * Share links and site readings live beside the revisions but are not revisions themselves.
  */
 import { DrydigError, type Scenario } from '../../shared/schema';
+import type { PlanReading } from '../../shared/exports';
 
 /** What the history shows about one revision (no scenario body). */
 export interface RevisionMeta {
@@ -92,20 +93,13 @@ export interface CreateLinkInput {
   tokenHash: string;
 }
 
-/** One site reading of a piezometer: appended, never overwritten. */
-export interface ReadingRecord {
-  readingId: number;
+/**
+ * One site reading of a piezometer: appended, never overwritten. The fields the monitoring plan
+ * reads (id, piezometer, measuredAt, time_s — time since pumping started —, level_m, enteredBy,
+ * note) are `PlanReading`'s; the store adds where it belongs and when it was stored.
+ */
+export interface ReadingRecord extends PlanReading {
   scenarioId: string;
-  piezometerId: string;
-  /** When the reading was taken, ISO 8601. */
-  measuredAt: string;
-  /** Time since pumping started, s (from measuredAt and the scenario's pumping start, or given). */
-  time_s: number;
-  /** Measured groundwater / piezometric level, m above site datum. */
-  level_m: number;
-  /** Who entered it (free text). */
-  enteredBy: string;
-  note: string;
   /** When the server stored it, ISO 8601 UTC. */
   enteredAt: string;
 }

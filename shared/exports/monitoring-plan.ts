@@ -80,13 +80,17 @@ export interface MonitoringPlan {
   notes: string[];
 }
 
-/** Minimal reading shape the plan needs (the store's ReadingRecord fits). */
+/** A site reading as the plan needs it (the store's ReadingRecord extends it). */
 export interface PlanReading {
   readingId: number;
   piezometerId: string;
+  /** When the reading was taken, ISO 8601. */
   measuredAt: string;
+  /** Time since pumping started, s (from measuredAt and the scenario's pumping start, or given). */
   time_s: number;
+  /** Measured groundwater / piezometric level, m above site datum. */
   level_m: number;
+  /** Who entered it (free text). */
   enteredBy: string;
   note: string;
 }

@@ -12,6 +12,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Scenario } from '../../shared/schema';
 import { request, startServer, stopServer, type ServerProcess } from './reliability-harness';
+import { seededRandom as seeded } from '../helpers/seeded-random';
 
 const dir = mkdtempSync(join(tmpdir(), 'drydig-fuzz-'));
 let server: ServerProcess;
@@ -36,17 +37,6 @@ afterAll(async () => {
   rmSync(dir, { recursive: true, force: true });
 });
 
-/** mulberry32: small seeded generator (public-domain algorithm), so runs are repeatable. */
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 const rand = seeded(20270301);
 const pick = <T>(items: readonly T[]): T => items[Math.floor(rand() * items.length)]!;
 

@@ -14,18 +14,8 @@ import {
 import { wellLevels } from '../../../shared/field';
 import type { Scenario } from '../../../shared/schema';
 import { ringScenario } from './design-test-helpers';
+import { seededRandom as random } from '../../helpers/seeded-random';
 
-/** Deterministic pseudo-random numbers (mulberry32) so a failure can be reproduced. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function context(scenario: Scenario): DesignContext {
   const options = resolveDesignOptions({ scenario });

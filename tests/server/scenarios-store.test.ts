@@ -23,6 +23,23 @@ afterEach(() => {
   for (const dir of folders.splice(0)) rmSync(dir, { recursive: true, force: true });
 });
 
+
+/**
+ * Stores the confined demo, then damages its stored text as a disk fault would (replacing
+ * `from` by `to`); the no-update trigger stops ordinary updates, so it is dropped first.
+ */
+async function storeDamagedRevision(from: string, to: string) {
+  const dir = tempDir();
+  const store = openScenarioStore(dir);
+  const saved = await store.createScenario({ scenario: demoScenario('confined') });
+  await store.close();
+  const raw = new Database(join(dir, DATABASE_FILE));
+  raw.exec('DROP TRIGGER revisions_no_update');
+  raw.prepare('UPDATE revisions SET body = replace(body, ?, ?) WHERE scenario_id = ?').run(from, to, saved.scenarioId);
+  raw.close();
+  return { dir, saved };
+}
+
 describe('openScenarioStore(dataDir)', () => {
   it('keeps revisions across close and reopen, in a WAL-journal database file', async () => {
     const dir = tempDir();
@@ -96,29 +113,14 @@ describe('stored revisions', () => {
   });
 
   it('are checked against their SHA-256 on read; a damaged one is reported, not served', async () => {
-    const dir = tempDir();
-    const store = openScenarioStore(dir);
-    const saved = await store.createScenario({ scenario: demoScenario('confined') });
-    await store.close();
-    // Simulate disk damage: the trigger stops ordinary updates, so drop it first.
-    const raw = new Database(join(dir, DATABASE_FILE));
-    raw.exec('DROP TRIGGER revisions_no_update');
-    raw.prepare("UPDATE revisions SET body = replace(body, '\"confined\"', '\"unconfined\"') WHERE scenario_id = ?").run(saved.scenarioId);
-    raw.close();
+    const { dir, saved } = await storeDamagedRevision('"confined"', '"unconfined"');
     const reopened = openScenarioStore(dir);
     await expect(reopened.getLatest(saved.scenarioId)).rejects.toBeInstanceOf(StoredDataDamagedError);
     await reopened.close();
   });
 
   it('answer a damaged revision over HTTP with a 500 that says nothing internal', async () => {
-    const dir = tempDir();
-    const store = openScenarioStore(dir);
-    const saved = await store.createScenario({ scenario: demoScenario('confined') });
-    await store.close();
-    const raw = new Database(join(dir, DATABASE_FILE));
-    raw.exec('DROP TRIGGER revisions_no_update');
-    raw.prepare("UPDATE revisions SET body = replace(body, '15', '16') WHERE scenario_id = ?").run(saved.scenarioId);
-    raw.close();
+    const { dir, saved } = await storeDamagedRevision('15', '16');
     const app = await buildApp({ dataDir: dir, clientDir: false });
     const res = await app.inject({ method: 'GET', url: `/api/v1/scenarios/${saved.scenarioId}` });
     expect(res.statusCode).toBe(500);

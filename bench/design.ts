@@ -8,23 +8,13 @@ import { pathToFileURL } from 'node:url';
 import { generateControlPoints, runDesign, solveOptimalRates, type RateProblem } from '../shared/design';
 import { unitResponseMatrix } from '../shared/field';
 import type { Scenario } from '../shared/schema';
+import { pointsAroundRectangle } from './points-around-rectangle';
 
 /** 150 m × 100 m pit, `n` deep wells on a ring 3 m outside it; confined, Theis at 30 days. */
 export function makeDesignBenchScenario(n: number): Scenario {
   const [w, h, offset] = [150, 100, 3];
-  const perimeter = 2 * (w + h + 4 * offset);
-  const wells: Scenario['wells'] = [];
-  for (let k = 0; k < n; k++) {
-    let d = (k + 0.5) * (perimeter / n);
-    const [W, H] = [w + 2 * offset, h + 2 * offset];
-    let x: number;
-    let y: number;
-    if (d < W) [x, y] = [d, 0];
-    else if ((d -= W) < H) [x, y] = [W, d];
-    else if ((d -= H) < W) [x, y] = [W - d, H];
-    else [x, y] = [0, H - (d - W)];
-    wells.push({ id: `D${k + 1}`, x: x - offset, y: y - offset, radius_m: 0.15, kind: 'deep', rate_m3_s: 0.001, wellLoss_s2_m5: 200 });
-  }
+  const wells: Scenario['wells'] = pointsAroundRectangle(w + 2 * offset, h + 2 * offset, n).map(([x, y], k) => (
+    { id: `D${k + 1}`, x: x - offset, y: y - offset, radius_m: 0.15, kind: 'deep', rate_m3_s: 0.001, wellLoss_s2_m5: 200 }));
   return {
     format: 'drydig.scenario',
     version: 1,

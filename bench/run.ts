@@ -12,24 +12,14 @@ import { join, dirname } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { Scenario } from '../shared/schema';
 import { evaluateGrid, prepareField, type GridSpec, type SourceSet } from '../shared/field';
+import { pointsAroundRectangle } from './points-around-rectangle';
 
 const here = dirname(fileURLToPath(import.meta.url));
 
 /** The benchmark scenario: confined aquifer, 400 wells, one no-flow line 150 m east of the pit. */
 export function makeBenchScenario(): Scenario {
-  const wells: Scenario['wells'] = [];
-  const [w, h] = [120, 80];
-  const perimeter = 2 * (w + h);
-  for (let k = 0; k < 400; k++) {
-    let d = (k + 0.5) * (perimeter / 400);
-    let x: number;
-    let y: number;
-    if (d < w) [x, y] = [d, 0];
-    else if ((d -= w) < h) [x, y] = [w, d];
-    else if ((d -= h) < w) [x, y] = [w - d, h];
-    else [x, y] = [0, h - (d - w)];
-    wells.push({ id: `B${k}`, x: x - 60, y: y - 40, radius_m: 0.1, kind: 'deep', rate_m3_s: 0.00015 });
-  }
+  const wells: Scenario['wells'] = pointsAroundRectangle(120, 80, 400).map(([x, y], k) => (
+    { id: `B${k}`, x: x - 60, y: y - 40, radius_m: 0.1, kind: 'deep', rate_m3_s: 0.00015 }));
   return {
     format: 'drydig.scenario',
     version: 1,

@@ -16,6 +16,11 @@ export const ERROR_TABLE = {
     title: 'The request body or parameters are not valid',
     fix: 'Correct the field named in the message; see /api/v1/openapi.json.',
   },
+  DRYDIG_ERR_INVALID_IMPORT: {
+    status: 400,
+    title: 'The imported file (AGS, DXF or logger readings) cannot be read',
+    fix: 'Correct the line or entity named in the message, or export the file again from its source program; see the import formats in the README.',
+  },
   DRYDIG_ERR_MALFORMED_JSON: {
     status: 400,
     title: 'The body is not well-formed JSON',

@@ -1,0 +1,5 @@
+export * from './parse-ags4';
+export * from './ags-boreholes';
+export * from './classify-stratum';
+export * from './ground-from-boreholes';
+export * from './parse-logger-readings';

@@ -16,6 +16,11 @@ export const ERROR_TABLE = {
     title: 'The request body or parameters are not valid',
     fix: 'Correct the field named in the message; see /api/v1/openapi.json.',
   },
+  DRYDIG_ERR_INVALID_READINGS: {
+    status: 400,
+    title: 'The pumping-test readings are not valid',
+    fix: 'Correct the rows named by line number (time > 0, numbers in every column, units as column suffixes); see the pumping-test format in the README.',
+  },
   DRYDIG_ERR_MALFORMED_JSON: {
     status: 400,
     title: 'The body is not well-formed JSON',

@@ -17,10 +17,14 @@ export function hantushDrawdown(rate_m3_s: number, transmissivity_m2_s: number, 
   return (rate_m3_s / (4 * Math.PI * transmissivity_m2_s)) * hantushWellFunction(u, distance_m / leakageFactor_m);
 }
 
+/** Largest B the fit reports, m: beyond it the well function is Theis's to many digits at test distances. */
+export const MAX_FITTED_LEAKAGE_FACTOR_M = 1e6;
+
 function hantushModel(readings: readonly TestReading[]) {
   return {
     residuals(p: readonly number[]) {
-      const [T, S, B] = p.map(Math.exp) as [number, number, number];
+      const [T, S] = p.map(Math.exp) as [number, number];
+      const B = Math.min(Math.exp(p[2]!), MAX_FITTED_LEAKAGE_FACTOR_M);
       const r = new Float64Array(readings.length);
       readings.forEach((x, i) => (r[i] = x.drawdown_m - hantushDrawdown(x.rate_m3_s, T, S, B, x.distance_m, x.time_s)));
       return r;
@@ -46,16 +50,18 @@ export function fitHantushCurve(readings: readonly TestReading[], well: string |
   }
   const fit = fitLeastSquares(model, start);
   const [lnT, lnS, lnB] = fit.parameters as [number, number, number];
-  const [T, S, B] = [Math.exp(lnT), Math.exp(lnS), Math.exp(lnB)];
+  const atBound = Math.exp(lnB) >= MAX_FITTED_LEAKAGE_FACTOR_M;
+  const [T, S, B] = [Math.exp(lnT), Math.exp(lnS), Math.min(Math.exp(lnB), MAX_FITTED_LEAKAGE_FACTOR_M)];
   const residuals = model.residuals(fit.parameters);
   const factor = intervalFactor(readings.length, 3);
   const cov = fit.covariance;
   const tI = cov ? logInterval(lnT, cov[0]!, factor) : null;
   const sI = cov ? logInterval(lnS, cov[4]!, factor) : null;
-  const bI = cov ? logInterval(lnB, cov[8]!, factor) : null;
+  const bI = cov && !atBound ? logInterval(lnB, cov[8]!, factor) : null;
   const notes: string[] = [];
   if (!fit.converged) notes.push('The least-squares search stopped before converging: treat the parameters as rough.');
-  if (B > 50 * rMax || bI === null || bI[1] / bI[0] > 100)
+  if (atBound) notes.push(`B reached the search bound of ${MAX_FITTED_LEAKAGE_FACTOR_M} m: the data show no leakage; use the Theis fit.`);
+  else if (B > 50 * rMax || bI === null || bI[1] / bI[0] > 100)
     notes.push(`The data barely resolve B (${B.toPrecision(3)} m against observation distances up to ${rMax.toPrecision(3)} m): no clear leakage signal; the Theis fit may serve as well.`);
   const q = readings[0]!.rate_m3_s;
   return {

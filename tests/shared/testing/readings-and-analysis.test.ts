@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { DrydigError, parseScenario } from '../../../shared/schema';
-import { analysePumpingTest, applyTestParameters, parseReadingsCsv, theisDrawdown } from '../../../shared/testing';
+import { analysePumpingTest, applyTestParameters, parseReadingsCsv, theisDrawdown, type PumpingTestFit } from '../../../shared/testing';
 
 function codeOf(fn: () => unknown): { code: string; message: string } {
   try {
@@ -91,10 +91,11 @@ describe('applyTestParameters({ scenario, fit })', () => {
   });
 
   it('turns a confined aquifer leaky when B is applied, and puts C on the chosen well', () => {
-    const fit = { method: 'hantush', well: null, transmissivity_m2_s: 1e-3, storativity: 1e-4, leakageFactor_m: 300, rmse_m: 0.01, validity: { readings: 10, fractionSmallU: null, uMax: null, notes: [] }, departures: [], curve: [], residuals: [] } as const;
-    const { scenario: leaky } = applyTestParameters({ scenario, fit: { ...fit } });
+    const fit: PumpingTestFit = { method: 'hantush', well: null, transmissivity_m2_s: 1e-3, storativity: 1e-4, leakageFactor_m: 300, rmse_m: 0.01, validity: { readings: 10, fractionSmallU: null, uMax: null, notes: [] }, departures: [], curve: [], residuals: [] };
+    const { scenario: leaky } = applyTestParameters({ scenario, fit });
     expect(leaky.aquifer).toMatchObject({ kind: 'leaky', leakageFactor_m: 300 });
-    const step = { ...fit, method: 'step' as const, transmissivity_m2_s: null, storativity: null, wellLoss_s2_m5: 2e5, leakageFactor_m: undefined };
+    const { leakageFactor_m: _b, ...rest } = fit;
+    const step: PumpingTestFit = { ...rest, method: 'step', transmissivity_m2_s: null, storativity: null, wellLoss_s2_m5: 2e5 };
     const { scenario: withLoss } = applyTestParameters({ scenario, fit: step, wellId: 'PW' });
     expect(withLoss.wells[0]!.wellLoss_s2_m5).toBe(2e5);
   });

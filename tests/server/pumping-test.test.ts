@@ -7,7 +7,7 @@ import type { FastifyInstance } from 'fastify';
 import { Value } from '@sinclair/typebox/value';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildApp } from '../../server/app';
-import { PumpingTestResultSchema, analysePumpingTest, parseReadingsCsv } from '../../shared/testing';
+import { PumpingTestResultSchema, analysePumpingTest, parseReadingsCsv, type PumpingTestResult } from '../../shared/testing';
 import { postJson, type ErrorBody } from './helpers/inject-json';
 
 const csv = readFileSync(new URL('../../fixtures/pumping-tests/demo-constant-rate.csv', import.meta.url), 'utf8');
@@ -23,18 +23,18 @@ describe('POST /api/v1/pumping-test', () => {
   it('answers the fits of the demo test, equal to the shared analysis and valid against its schema', async () => {
     const r = await postJson(app, '/api/v1/pumping-test', { csv, rate_m3_s: 0.009, stop_s: 172_800 });
     expect(r.status).toBe(200);
-    const json = r.json();
+    const json = r.json() as unknown as PumpingTestResult;
     expect(Value.Check(PumpingTestResultSchema, json)).toBe(true);
     const direct = analysePumpingTest({ readings: parseReadingsCsv(csv, { rate_m3_s: 0.009, stop_s: 172_800 }), stop_s: 172_800 });
-    expect(json.fits.map((f: { method: string }) => f.method)).toEqual(direct.fits.map((f) => f.method));
-    expect(json.fits[0].transmissivity_m2_s).toBeCloseTo(direct.fits[0]!.transmissivity_m2_s!, 12);
+    expect(json.fits.map((f) => f.method)).toEqual(direct.fits.map((f) => f.method));
+    expect(json.fits[0]!.transmissivity_m2_s).toBeCloseTo(direct.fits[0]!.transmissivity_m2_s!, 12);
   });
 
   it('takes readings as rows with one distance for all', async () => {
     const readings = [60, 120, 240, 480, 960, 1920].map((t) => ({ time_s: t, drawdown_m: 0.1 * Math.log10(t) }));
     const r = await postJson(app, '/api/v1/pumping-test', { readings, rate_m3_s: 0.01, distance_m: 10, methods: ['cooper-jacob'] });
     expect(r.status).toBe(200);
-    expect(r.json().fits[0].line.slope_m_per_log_cycle).toBeCloseTo(0.1, 9);
+    expect((r.json() as unknown as PumpingTestResult).fits[0]!.line!.slope_m_per_log_cycle).toBeCloseTo(0.1, 9);
   });
 
   it.each([

@@ -8,6 +8,7 @@ import { healthRoutes } from './routes/health';
 import { evaluateRoutes } from './routes/evaluate';
 import { installRouteCatalog, openapiRoutes } from './routes/openapi';
 import { designRoutes } from './routes/design';
+import { pumpingTestRoutes } from './routes/pumping-test';
 import { scenarioRoutes } from './routes/scenarios';
 import { linkRoutes } from './routes/links';
 import { clientStatic } from './routes/client-static';
@@ -74,6 +75,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   await app.register(healthRoutes, { prefix: '/api/v1', limits: { bodyLimit_bytes, maxGridNodes, maxPoints } });
   await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes, maxPoints });
   await app.register(designRoutes, { prefix: '/api/v1' });
+  await app.register(pumpingTestRoutes, { prefix: '/api/v1' });
   await app.register(scenarioRoutes, { prefix: '/api/v1', dataDir: options.dataDir ?? 'data' });
   await app.register(linkRoutes, { prefix: '/api/v1' });
   await app.register(openapiRoutes, { prefix: '/api/v1' });

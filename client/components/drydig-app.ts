@@ -26,6 +26,7 @@ import './map-legend';
 import './shortfall-badges';
 import './results-panel';
 import './ground-panel';
+import './pumping-test-panel';
 import './well-editor';
 import './ring-generator';
 import './excavation-editor';
@@ -38,7 +39,7 @@ import './design-panel';
 import './scenario-store-panel';
 import type { ScenarioStorePanel } from './scenario-store-panel';
 
-type Tab = 'layout' | 'ground' | 'results' | 'design' | 'store' | 'backdrop';
+type Tab = 'layout' | 'ground' | 'test' | 'results' | 'design' | 'store' | 'backdrop';
 
 const DEMOS: Record<string, { label: string; scenario: Scenario }> = {
   wellpoints: { label: 'Demo: well points, unconfined (Quarry Lane)', scenario: demoWellpoints as unknown as Scenario },
@@ -731,9 +732,13 @@ export class DrydigApp extends LightElement {
         </section>
         <aside class="dd-side" aria-label="Panels">
           <nav class="dd-tabs" role="tablist">
-            ${(['layout', 'ground', 'results', 'design', 'store', 'backdrop'] as Tab[]).map((t) => html`<button type="button" role="tab" name=${`tab-${t}`} aria-selected=${this.tab === t} class=${this.tab === t ? 'dd-on' : ''} @click=${() => (this.tab = t)}>${({ layout: 'Layout', ground: 'Ground', results: 'Results', design: 'Design', store: 'Store', backdrop: 'Backdrop' })[t]}</button>`)}
+            ${(['layout', 'ground', 'test', 'results', 'design', 'store', 'backdrop'] as Tab[]).map((t) => html`<button type="button" role="tab" name=${`tab-${t}`} aria-selected=${this.tab === t} class=${this.tab === t ? 'dd-on' : ''} @click=${() => (this.tab = t)}>${({ layout: 'Layout', ground: 'Ground', test: 'Test', results: 'Results', design: 'Design', store: 'Store', backdrop: 'Backdrop' })[t]}</button>`)}
           </nav>
-          <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab === 'store'}>${this.tab === 'store' ? nothing : this.renderTab(times, ti, view.contour?.step_m)}</div>
+          <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab === 'store' || this.tab === 'test'}>${this.tab === 'store' || this.tab === 'test' ? nothing : this.renderTab(times, ti, view.contour?.step_m)}</div>
+          <!-- Kept alive across tab switches: the readings and fits stay while the designer checks the ground model. -->
+          <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'test'}>
+            <pumping-test-panel .store=${this.store} .scenario=${s} .units=${this.units}></pumping-test-panel>
+          </div>
           <!-- Kept alive across tab switches: it remembers which stored scenario and revision the editor holds. -->
           <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'store'}>
             <scenario-store-panel .scenario=${s} @scenario-loaded=${(e: CustomEvent<Scenario>) => this.openStored(e.detail)}></scenario-store-panel>

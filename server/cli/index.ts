@@ -21,6 +21,7 @@ const COMMANDS: Record<string, () => Promise<CliCommand>> = {
   evaluate: async () => (await import('./evaluate-command')).runEvaluateCommand,
   serve: async () => (await import('./serve-command')).runServeCommand,
   design: async () => (await import('./design-command')).runDesignCommand,
+  'pumping-test': async () => (await import('./pumping-test-command')).runPumpingTestCommand,
 };
 
 const HELP: Record<string, string> = { evaluate: EVALUATE_HELP, serve: SERVE_HELP };

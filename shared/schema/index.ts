@@ -4,3 +4,4 @@ export * from './error-table';
 export * from './design-options-schema';
 export * from './monitoring-schema';
 export * from './view-schema';
+export * from './pumping-test-record-schema';

@@ -7,6 +7,7 @@ import { Value, ValueErrorType, type ValueError } from '@sinclair/typebox/value'
 import { ScenarioSchema, type Scenario } from './scenario-schema';
 import { DrydigError, summariseIssues, type FieldIssue } from './error-table';
 import { findSelfIntersection, getPolygonArea } from '../geometry/polygon';
+import { validatePumpingTestRecord } from './pumping-test-record-schema';
 
 export type ScenarioValidation = { ok: true; scenario: Scenario } | { ok: false; issues: FieldIssue[] };
 
@@ -107,7 +108,7 @@ function semanticIssues(s: Scenario): FieldIssue[] {
 
 /** Checks a parsed JSON value against scenario format v1; never throws. */
 export function validateScenario(input: unknown): ScenarioValidation {
-  const structural = structuralIssues(input);
+  const structural = [...structuralIssues(input), ...validatePumpingTestRecord(input)];
   if (structural.length > 0) return { ok: false, issues: structural };
   const scenario = input as Scenario;
   const semantic = semanticIssues(scenario);

@@ -20,6 +20,7 @@ export const ERROR_TABLE = {
     status: 400,
     title: 'The imported file (AGS, DXF or logger readings) cannot be read',
     fix: 'Correct the line or entity named in the message, or export the file again from its source program; see the import formats in the README.',
+  },
   DRYDIG_ERR_INVALID_READINGS: {
     status: 400,
     title: 'The pumping-test readings are not valid',

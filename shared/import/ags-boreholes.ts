@@ -65,7 +65,8 @@ function number(row: { line: number; values: Record<string, string> }, group: Ag
   }
   const v = Number(text);
   if (!Number.isFinite(v)) fail(source, row.line, `${group.name} ${heading} "${text.slice(0, 20)}" is not a number`);
-  return v * (heading.endsWith('_NATE') || heading.endsWith('_NATN') ? 1 : lengthFactor(group, heading, source, row.line));
+  // Positions are grid metres and WSTD_NMIN is minutes; every other field read here is a depth.
+  return v * (heading.endsWith('_NATE') || heading.endsWith('_NATN') || heading === 'WSTD_NMIN' ? 1 : lengthFactor(group, heading, source, row.line));
 }
 
 /** The boreholes of an AGS file (LOCA required; GEOL, WSTG, WSTD optional). */

@@ -3,3 +3,4 @@ export * from './ags-boreholes';
 export * from './classify-stratum';
 export * from './ground-from-boreholes';
 export * from './parse-logger-readings';
+export * from './read-dxf-site-plan';

@@ -22,6 +22,7 @@ const COMMANDS: Record<string, () => Promise<CliCommand>> = {
   serve: async () => (await import('./serve-command')).runServeCommand,
   design: async () => (await import('./design-command')).runDesignCommand,
   'pumping-test': async () => (await import('./pumping-test-command')).runPumpingTestCommand,
+  import: async () => (await import('./import-command')).runImportCommand,
 };
 
 const HELP: Record<string, string> = { evaluate: EVALUATE_HELP, serve: SERVE_HELP };

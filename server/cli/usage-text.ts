@@ -6,6 +6,7 @@ Usage:
   drydig evaluate SCENARIO.json --points "x,y;x,y" | --points FILE.csv [--time T] [--grid G] [--pretty | --csv]
   drydig design SCENARIO.json [--mode uniform|optimal|layout]
   drydig pumping-test READINGS.csv --rate Q [--distance R] [--method M] [--stop T]
+  drydig import FILE.ags | FILE.dxf [--borehole ID[,ID] --at x,y] [--unit M]
   drydig serve [--port N] [--host H] [--data DIR] [--body-limit BYTES]
   drydig help [COMMAND]
   drydig --version
@@ -14,6 +15,7 @@ Commands:
   evaluate   levels and drawdowns at points (and on a grid) as JSON on stdout
   design     pumping rates that meet each excavation's target level
   pumping-test  aquifer parameters (T, S, B, well loss) fitted to a pumping test's readings
+  import     what a site file holds: AGS boreholes (and a suggested ground profile), DXF layers
   serve      start the web application and HTTP API (http://127.0.0.1:8080 by default)
 
 Exit codes: 0 done, 2 bad input (one line on stderr naming the problem), 1 unexpected error.

@@ -42,6 +42,9 @@ export interface Borehole {
   waterStrikes: WaterStrike[];
 }
 
+/** Level from ground level and a depth, rounded to a nanometre (the log's cm digits stay exact in the output). */
+const levelAt = (groundLevel_m: number, depth_m: number) => Math.round((groundLevel_m - depth_m) * 1e9) / 1e9;
+
 function fail(source: string, line: number, message: string): never {
   throw new DrydigError('DRYDIG_ERR_INVALID_IMPORT', `${source}: line ${line}: ${message}`, [{ path: `${source}/line/${line}`, message }]);
 }
@@ -98,8 +101,8 @@ export function readBoreholes(groups: Map<string, AgsGroup>, source = 'ags'): Bo
       hole.strata.push({
         topDepth_m: top,
         baseDepth_m: base,
-        topLevel_m: hole.groundLevel_m - top,
-        baseLevel_m: hole.groundLevel_m - base,
+        topLevel_m: levelAt(hole.groundLevel_m, top),
+        baseLevel_m: levelAt(hole.groundLevel_m, base),
         description: row.values.GEOL_DESC?.trim() ?? '',
         code: (row.values.GEOL_GEOL || row.values.GEOL_LEG || '').trim(),
         line: row.line,
@@ -111,7 +114,7 @@ export function readBoreholes(groups: Map<string, AgsGroup>, source = 'ags'): Bo
     for (const row of wstg.rows) {
       const hole = holeOf(row, 'WSTG');
       const depth = number(row, wstg, 'WSTG_DPTH', source, true);
-      const strike: WaterStrike = { depth_m: depth, level_m: hole.groundLevel_m - depth, restDepth_m: null, restLevel_m: null, minutes: null };
+      const strike: WaterStrike = { depth_m: depth, level_m: levelAt(hole.groundLevel_m, depth), restDepth_m: null, restLevel_m: null, minutes: null };
       hole.waterStrikes.push(strike);
       strikes.set(`${hole.id}@${depth}`, strike);
     }
@@ -127,7 +130,7 @@ export function readBoreholes(groups: Map<string, AgsGroup>, source = 'ags'): Bo
       // Keep the latest reading after the strike: the level the water rose to.
       if (post !== null && (strike.minutes === null || (minutes ?? 0) >= strike.minutes)) {
         strike.restDepth_m = post;
-        strike.restLevel_m = hole.groundLevel_m - post;
+        strike.restLevel_m = levelAt(hole.groundLevel_m, post);
         strike.minutes = minutes;
       }
     }

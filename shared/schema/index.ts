@@ -4,3 +4,5 @@ export * from './error-table';
 export * from './design-options-schema';
 export * from './monitoring-schema';
 export * from './view-schema';
+export * from './section-schema';
+export * from './validate-section';

@@ -13,3 +13,5 @@ export * from './plug-uplift';
 export * from './flow-net';
 export * from './rectilinear-contours';
 export * from './section-cautions';
+export * from './section-from-scenario';
+export * from './compare-section-options';

@@ -72,7 +72,7 @@ function pad(s: FivePointSystem): Padded {
     return out;
   };
   const diag = make(s.diag);
-  for (let p = 0; p < nx; p++) (diag[p] = 1, diag[n + nx + p] = 1);
+  for (let p = 0; p < nx; p++) { diag[p] = 1; diag[n + nx + p] = 1; }
   return { nx, n, diag, east: make(s.east), north: make(s.north) };
 }
 

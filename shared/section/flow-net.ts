@@ -37,7 +37,7 @@ export function buildFlowNet(ctx: SectionContext, options: FlowNetOptions = {}):
   for (let k = 0; k < mask.length; k++) mask[k] = Number.isFinite(fields.head_m[k]!) ? 1 : 0;
   let psiMin = Number.POSITIVE_INFINITY;
   let psiMax = Number.NEGATIVE_INFINITY;
-  for (const v of fields.psi) (psiMin = Math.min(psiMin, v), psiMax = Math.max(psiMax, v));
+  for (const v of fields.psi) { psiMin = Math.min(psiMin, v); psiMax = Math.max(psiMax, v); }
   const range = psiMax - psiMin;
   const topLayer = ctx.doc.layers.find((l) => l.bottom_m < Math.min(...ctx.doc.surface.map((s) => s.level_m))) ?? ctx.doc.layers[0]!;
   const kRef = Math.sqrt(topLayer.kh_m_s * topLayer.kv_m_s);

@@ -31,14 +31,14 @@ export function findIsolatedCells(mesh: SectionMesh, system: SectionSystem): Uin
   const n = active.length;
   const reached = new Uint8Array(n);
   const stack: number[] = [];
-  for (const k of system.connections.cell) if (!reached[k]) (reached[k] = 1, stack.push(k));
+  for (const k of system.connections.cell) if (!reached[k]) { reached[k] = 1; stack.push(k); }
   while (stack.length > 0) {
     const k = stack.pop()!;
     const i = k % nx;
-    if (i < nx - 1 && system.east[k]! > 0 && !reached[k + 1]) (reached[k + 1] = 1, stack.push(k + 1));
-    if (i > 0 && system.east[k - 1]! > 0 && !reached[k - 1]) (reached[k - 1] = 1, stack.push(k - 1));
-    if (k + nx < n && system.north[k]! > 0 && !reached[k + nx]) (reached[k + nx] = 1, stack.push(k + nx));
-    if (k >= nx && system.north[k - nx]! > 0 && !reached[k - nx]) (reached[k - nx] = 1, stack.push(k - nx));
+    if (i < nx - 1 && system.east[k]! > 0 && !reached[k + 1]) { reached[k + 1] = 1; stack.push(k + 1); }
+    if (i > 0 && system.east[k - 1]! > 0 && !reached[k - 1]) { reached[k - 1] = 1; stack.push(k - 1); }
+    if (k + nx < n && system.north[k]! > 0 && !reached[k + nx]) { reached[k + nx] = 1; stack.push(k + nx); }
+    if (k >= nx && system.north[k - nx]! > 0 && !reached[k - nx]) { reached[k - nx] = 1; stack.push(k - nx); }
   }
   const isolated = new Uint8Array(n);
   for (let k = 0; k < n; k++) if (active[k] && !reached[k]) isolated[k] = 1;
@@ -97,7 +97,7 @@ export function nodeHeads(mesh: SectionMesh, head_m: Float64Array): Float64Array
       for (const [ci, cj] of [[i - 1, j - 1], [i, j - 1], [i - 1, j], [i, j]] as const) {
         if (ci < 0 || cj < 0 || ci >= nx || cj >= nz) continue;
         const h = head_m[cj * nx + ci]!;
-        if (Number.isFinite(h)) (sum += h, count++);
+        if (Number.isFinite(h)) { sum += h; count++; }
       }
       out[j * stride + i] = count > 0 ? sum / count : Number.NaN;
     }

@@ -52,11 +52,11 @@ function xAxis(doc: SectionDocument, minSize: number): { keys: number[]; refine:
     const next = doc.surface[i + 1];
     if (next && (next.level_m !== s.level_m || next.head_m !== s.head_m)) fine(s.x1_m);
   });
-  for (const w of doc.walls ?? []) (keys.push(w.x_m), fine(w.x_m));
-  for (const w of doc.wells ?? []) (keys.push(w.x_m), fine(w.x_m));
-  for (const d of doc.drains ?? []) (keys.push(d.x_m), fine(d.x_m, Math.min(minSize, 2 * (d.radius_m ?? 0.05))));
+  for (const w of doc.walls ?? []) { keys.push(w.x_m); fine(w.x_m); }
+  for (const w of doc.wells ?? []) { keys.push(w.x_m); fine(w.x_m); }
+  for (const d of doc.drains ?? []) { keys.push(d.x_m); fine(d.x_m, Math.min(minSize, 2 * (d.radius_m ?? 0.05))); }
   if (doc.slab) keys.push(doc.slab.x0_m, doc.slab.x1_m);
-  if (doc.floor) (keys.push(doc.floor.x0_m, doc.floor.x1_m), fine(doc.floor.x0_m), fine(doc.floor.x1_m));
+  if (doc.floor) { keys.push(doc.floor.x0_m, doc.floor.x1_m); fine(doc.floor.x0_m); fine(doc.floor.x1_m); }
   return { keys, refine };
 }
 
@@ -70,8 +70,8 @@ function zAxis(doc: SectionDocument, minSize: number, base: number, top: number)
   };
   for (const l of doc.layers) add(l.bottom_m, 4 * minSize);
   for (const s of doc.surface) add(s.level_m, s.head_m !== null ? minSize : 2 * minSize);
-  for (const w of doc.walls ?? []) (add(w.toe_m, minSize), add(w.top_m));
-  for (const w of doc.wells ?? []) (add(w.screenTop_m, minSize), add(w.screenBottom_m, minSize));
+  for (const w of doc.walls ?? []) { add(w.toe_m, minSize); add(w.top_m); }
+  for (const w of doc.wells ?? []) { add(w.screenTop_m, minSize); add(w.screenBottom_m, minSize); }
   for (const d of doc.drains ?? []) add(d.level_m, Math.min(minSize, 2 * (d.radius_m ?? 0.05)));
   return { keys, refine };
 }

@@ -21,6 +21,7 @@ const COMMANDS: Record<string, () => Promise<CliCommand>> = {
   evaluate: async () => (await import('./evaluate-command')).runEvaluateCommand,
   serve: async () => (await import('./serve-command')).runServeCommand,
   design: async () => (await import('./design-command')).runDesignCommand,
+  section: async () => (await import('./section-command')).runSectionCommand,
 };
 
 const HELP: Record<string, string> = { evaluate: EVALUATE_HELP, serve: SERVE_HELP };

@@ -5,6 +5,7 @@ export const USAGE = `drydig — construction-dewatering well-field designer
 Usage:
   drydig evaluate SCENARIO.json --points "x,y;x,y" | --points FILE.csv [--time T] [--grid G] [--pretty | --csv]
   drydig design SCENARIO.json [--mode uniform|optimal|layout]
+  drydig section FILE.json [--compare] [--flow-net] [--pretty | --csv]
   drydig serve [--port N] [--host H] [--data DIR] [--body-limit BYTES]
   drydig help [COMMAND]
   drydig --version
@@ -12,6 +13,7 @@ Usage:
 Commands:
   evaluate   levels and drawdowns at points (and on a grid) as JSON on stdout
   design     pumping rates that meet each excavation's target level
+  section    seepage in a vertical section: flow, exit gradient, heave and uplift
   serve      start the web application and HTTP API (http://127.0.0.1:8080 by default)
 
 Exit codes: 0 done, 2 bad input (one line on stderr naming the problem), 1 unexpected error.

@@ -15,3 +15,4 @@ export * from './rectilinear-contours';
 export * from './section-cautions';
 export * from './section-from-scenario';
 export * from './compare-section-options';
+export * from './run-section-job';

@@ -111,7 +111,7 @@ export function buildSectionFromScenario(options: SectionFromScenarioOptions): S
   const inside = options.insideHead_m ?? floor;
   if (options.insideHead_m === undefined) assumptions.push(`water held at the floor (${floor} m) inside by sump pumping`);
   const retained = Math.max(0, outside - floor);
-  const toe = Math.max(base, options.toe_m ?? floor - Math.max(2, retained));
+  const toe = options.toe_m ?? Math.max(base, floor - Math.max(2, retained));
   if (options.toe_m === undefined) assumptions.push(`wall toe ${toe} m (embedment max(2 m, retained head) below the floor; a placeholder until the wall is designed)`);
   const far = options.outsideDistance_m ?? Math.max(30, 3 * (ground - base));
   const layers = buildLayers(scenario, index, assumptions);

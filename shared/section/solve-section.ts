@@ -76,7 +76,7 @@ function collectFlags(doc: SectionDocument, ctx: SectionContext, isolated: numbe
   if (isolated > 0) flags.push(`${isolated} cells are cut off from every fixed head by walls; their head is undetermined and left out`);
   if (doc.layers.some((l) => l.unitWeightSat_kN_m3 === undefined)) flags.push('saturated unit weight not given for every layer: 20 kN/m³ assumed (common practice) in the critical gradient and heave');
   doc.surface.forEach((s, i) => {
-    if (s.head_m !== null && s.head_m < s.level_m - 1e-9) flags.push(`surface segment ${i}: head ${s.head_m} m is below its ground (${s.level_m} m): treated as a surface drained to that head (an idealisation of a drainage blanket)`);
+    if (s.head_m !== null && s.head_m < s.level_m - 1e-9) flags.push(`surface segment ${i}: head ${s.head_m} m is below its ground (${s.level_m} m): that water level is held on the segment as if at the ground surface (outside: the water table idealised there; on a floor: a surface drained to that head)`);
   });
   if (ctx.axi && (doc.walls?.length ?? 0) > 0) flags.push('axisymmetric: the heave prism is taken per unit length of the wall’s circumference');
   return flags;

@@ -8,7 +8,7 @@
 import { html, nothing } from 'lit';
 import type { Scenario } from '../../shared/schema';
 import type { SectionJob, SectionJobAnswer } from '../../shared/section';
-import { writeSectionFloorCsv } from '../../shared/exports';
+import { writeSectionFloorCsv, writeSectionReportHtml } from '../../shared/exports';
 import { EngineError, type EngineClient } from '../worker';
 import { LightElement } from './light-element';
 import './seepage-drawing';
@@ -113,12 +113,11 @@ export class SeepagePanel extends LightElement {
     }
   }
 
-  private exportCsv(): void {
-    if (!this._answer) return;
-    const blob = new Blob([writeSectionFloorCsv(this._answer)], { type: 'text/csv' });
+  private download(text: string, type: string, suffix: string): void {
+    const blob = new Blob([text], { type });
     const a = document.createElement('a');
     a.href = URL.createObjectURL(blob);
-    a.download = `${(this.scenario?.name ?? 'section').replace(/[^\w.-]+/g, '-').slice(0, 60)}-floor-profile.csv`;
+    a.download = `${(this.scenario?.name ?? 'section').replace(/[^\w.-]+/g, '-').slice(0, 60)}-${suffix}`;
     a.click();
     setTimeout(() => URL.revokeObjectURL(a.href), 1000);
   }
@@ -137,7 +136,8 @@ export class SeepagePanel extends LightElement {
       <div class="dd-seepage-actions">
         <button type="button" name="seepage-solve" ?disabled=${this._busy} @click=${() => void this.solve()}>${this._busy ? 'Solving…' : 'Solve section'}</button>
         <button type="button" name="seepage-plan-head" @click=${() => void this.usePlanHead()} title="Take the plan model's level at the excavation edge as the outside water level">Use plan head at the edge</button>
-        ${r ? html`<button type="button" name="seepage-csv" @click=${() => this.exportCsv()}>Floor profile CSV</button>` : nothing}
+        ${r ? html`<button type="button" name="seepage-csv" @click=${() => this.download(writeSectionFloorCsv(r), 'text/csv', 'floor-profile.csv')}>Floor profile CSV</button>
+          <button type="button" name="seepage-report" @click=${() => this.download(writeSectionReportHtml(r, { title: `Section seepage — ${s.name}` }), 'text/html', 'section-report.html')}>Section report</button>` : nothing}
       </div>
       ${this._error ? html`<div class="dd-issues" role="alert">${this._error}</div>` : nothing}
       ${r ? this.renderAnswer(r) : nothing}

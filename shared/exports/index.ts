@@ -15,3 +15,4 @@ export * from './monitoring-csv';
 export * from './method-references';
 export * from './report-html';
 export * from './section-floor-csv';
+export * from './section-report-html';

@@ -69,3 +69,13 @@ export function variableConversions(scenario: Scenario): Pick<DesignContext, 'va
     levelForVariable: (v) => levelFromPotentialDrawdown({ aquifer: a, potentialDrawdown_m: v }),
   };
 }
+
+/** Row `row` of a row-major nP × nW response matrix times the rates: the superposed variable there. */
+export function responseDot(matrix: Float64Array, row: number, nW: number, rates: Float64Array): number {
+  let s = 0;
+  for (let j = 0; j < nW; j++) s += matrix[row * nW + j]! * rates[j]!;
+  return s;
+}
+
+/** x, y of a point as a tuple (the field engine's point form). */
+export const pointXY = (p: { x: number; y: number }) => [p.x, p.y] as const;

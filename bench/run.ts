@@ -44,6 +44,7 @@ const OTHER_BENCHES: ReadonlyArray<readonly [string, string]> = [
   ['well-functions.ts', 'runWellFunctionBench'],
   ['design.ts', 'runDesignBench'],
   ['load.ts', 'runLoadBench'],
+  ['section.ts', 'runSectionBench'],
 ];
 
 async function runOptionalBench(file: string, entry: string): Promise<void> {

@@ -9,10 +9,12 @@ import { evaluateRoutes } from './routes/evaluate';
 import { installRouteCatalog, openapiRoutes } from './routes/openapi';
 import { designRoutes } from './routes/design';
 import { pumpingTestRoutes } from './routes/pumping-test';
+import { sectionRoutes } from './routes/section';
 import { scenarioRoutes } from './routes/scenarios';
 import { linkRoutes } from './routes/links';
 import { clientStatic } from './routes/client-static';
 import { DEFAULT_MAX_GRID_NODES, DEFAULT_MAX_POINTS } from './request-schemas';
+import type { SectionSolverOptions } from './section-compute';
 import { checkTileOrigin, securityPlugin, withRedactedLogging, type SecurityOptions } from './security';
 
 export interface AppOptions {
@@ -37,6 +39,8 @@ export interface AppOptions {
    * client loads same-origin resources only. Anything that is not an https origin is refused.
    */
   tileOrigin?: string;
+  /** Section solves (worker thread): time budget per job and queue length. Default 30 s, 8 waiting. */
+  section?: SectionSolverOptions;
 }
 
 export const DEFAULT_BODY_LIMIT_BYTES = 8 * 1024 * 1024;
@@ -76,6 +80,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes, maxPoints });
   await app.register(designRoutes, { prefix: '/api/v1' });
   await app.register(pumpingTestRoutes, { prefix: '/api/v1' });
+  await app.register(sectionRoutes, { prefix: '/api/v1', solver: options.section });
   await app.register(scenarioRoutes, { prefix: '/api/v1', dataDir: options.dataDir ?? 'data' });
   await app.register(linkRoutes, { prefix: '/api/v1' });
   await app.register(openapiRoutes, { prefix: '/api/v1' });

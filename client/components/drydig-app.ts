@@ -37,9 +37,21 @@ import './caution-note';
 import './monitoring-editor';
 import './design-panel';
 import './scenario-store-panel';
+import './seepage-panel';
 import type { ScenarioStorePanel } from './scenario-store-panel';
 
-type Tab = 'layout' | 'ground' | 'test' | 'results' | 'design' | 'store' | 'backdrop';
+type Tab = 'layout' | 'ground' | 'test' | 'results' | 'design' | 'section' | 'store' | 'backdrop';
+/** The side panel's tabs in order, with their labels (one line per tab keeps additions apart). */
+const TABS: ReadonlyArray<readonly [Tab, string]> = [
+  ['layout', 'Layout'],
+  ['ground', 'Ground'],
+  ['test', 'Test'],
+  ['results', 'Results'],
+  ['design', 'Design'],
+  ['section', 'Section'],
+  ['store', 'Store'],
+  ['backdrop', 'Backdrop'],
+];
 
 const DEMOS: Record<string, { label: string; scenario: Scenario }> = {
   wellpoints: { label: 'Demo: well points, unconfined (Quarry Lane)', scenario: demoWellpoints as unknown as Scenario },
@@ -105,6 +117,8 @@ export class DrydigApp extends LightElement {
 
   private readonly store: ScenarioStore;
   private engine: EngineClient | null = null;
+  /** The last design's total flow, m³/s, for the Section tab's comparison. */
+  private designTotal_m3_s: number | null = null;
   private controller: LeafletMapController | null = null;
   private fineTimer = 0;
   private coarseFrame = 0;
@@ -646,6 +660,8 @@ export class DrydigApp extends LightElement {
 
   private onDesignResult(e: CustomEvent<{ apply?: boolean; wells?: Array<{ id: string; rate_m3_s: number }>; excavations?: Array<{ id: string; critical?: { x: number; y: number; level_m: number } }> }>): void {
     const d = e.detail ?? {};
+    const total = (d as { totalRate_m3_s?: unknown }).totalRate_m3_s;
+    this.designTotal_m3_s = typeof total === 'number' && Number.isFinite(total) ? total : null;
     const u = this.units;
     const crit = (d.excavations ?? []).filter((x) => x.critical && Number.isFinite(x.critical.x) && Number.isFinite(x.critical.y))
       .map((x) => ({ x: x.critical!.x, y: x.critical!.y, label: `${x.id}: critical point, ${formatQuantity(x.critical!.level_m, u.length, { decimals: 2 })}` }));
@@ -732,7 +748,7 @@ export class DrydigApp extends LightElement {
         </section>
         <aside class="dd-side" aria-label="Panels">
           <nav class="dd-tabs" role="tablist">
-            ${(['layout', 'ground', 'test', 'results', 'design', 'store', 'backdrop'] as Tab[]).map((t) => html`<button type="button" role="tab" name=${`tab-${t}`} aria-selected=${this.tab === t} class=${this.tab === t ? 'dd-on' : ''} @click=${() => (this.tab = t)}>${({ layout: 'Layout', ground: 'Ground', test: 'Test', results: 'Results', design: 'Design', store: 'Store', backdrop: 'Backdrop' })[t]}</button>`)}
+            ${TABS.map(([t, label]) => html`<button type="button" role="tab" name=${`tab-${t}`} aria-selected=${this.tab === t} class=${this.tab === t ? 'dd-on' : ''} @click=${() => (this.tab = t)}>${label}</button>`)}
           </nav>
           <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab === 'store' || this.tab === 'test'}>${this.tab === 'store' || this.tab === 'test' ? nothing : this.renderTab(times, ti, view.contour?.step_m)}</div>
           <!-- Kept alive across tab switches: the readings and fits stay while the designer checks the ground model. -->
@@ -782,6 +798,8 @@ export class DrydigApp extends LightElement {
       case 'design':
         return html`<design-panel .scenario=${s} .units=${u} @design-result=${this.onDesignResult}></design-panel>
           <caution-note .notes=${this.result?.model.notes ?? []} compact></caution-note>`;
+      case 'section':
+        return html`<seepage-panel .scenario=${s} .engine=${this.engine} .planTotal_m3_s=${this.designTotal_m3_s}></seepage-panel>`;
       case 'backdrop':
         return html`<backdrop-panel .store=${this.store} .scenario=${s} .units=${u} .projection=${this.projection}
           @pick-underlay-ref=${(e: CustomEvent<0 | 1>) => {

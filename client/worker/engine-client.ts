@@ -5,7 +5,7 @@
  */
 import type {
   EngineRequest, EngineResponse, FieldRequest, FieldResult, InspectRequest, InspectResult, MonitoringRequest, MonitoringResult,
-  SectionRequest, SectionResult,
+  SectionRequest, SectionResult, SeepageRequest, SeepageResult,
 } from './engine-protocol';
 
 type Pending = {
@@ -59,6 +59,11 @@ export class EngineClient {
   /** Expected, alert and action levels over time at one piezometer. */
   async monitoring(req: Omit<MonitoringRequest, 'id' | 'kind'>): Promise<MonitoringResult | null> {
     return this.unwrap<MonitoringResult>(await this.send({ ...req, kind: 'monitoring' }, this.nextId++));
+  }
+
+  /** Seepage in a vertical section: flow, exit gradient, heave, the flow net and the compared options. */
+  async seepage(job: SeepageRequest['job']): Promise<SeepageResult | null> {
+    return this.unwrap<SeepageResult>(await this.send({ kind: 'seepage', job }, this.nextId++));
   }
 
   dispose(): void {

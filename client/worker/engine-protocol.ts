@@ -8,6 +8,7 @@ import type { GridSpec, ModelInfo, PointFlag, PointResult } from '../../shared/f
 import type { SeriesSample } from '../../shared/field';
 import type { ContourSet, XY } from '../../shared/contours';
 import type { PiezometerPlan } from '../../shared/exports';
+import type { SectionJob, SectionJobAnswer } from '../../shared/section';
 
 /** Which field the contours show. */
 export type FieldQuantity = 'drawdown' | 'level';
@@ -62,13 +63,28 @@ export interface MonitoringRequest {
   piezometerId: string;
 }
 
+/** Seepage in a vertical section (shared/section): a section document or one built from the scenario. */
+export interface SeepageRequest {
+  kind: 'seepage';
+  id: number;
+  job: SectionJob;
+}
+
+/** Answer to a SeepageRequest. */
+export interface SeepageResult {
+  kind: 'seepage';
+  id: number;
+  answer: SectionJobAnswer;
+  compute_ms: number;
+}
+
 /** Stop a running or queued job (its answer, if any, is `cancelled`). */
 export interface CancelRequest {
   kind: 'cancel';
   id: number;
 }
 
-export type EngineRequest = FieldRequest | InspectRequest | SectionRequest | MonitoringRequest | CancelRequest;
+export type EngineRequest = FieldRequest | InspectRequest | SectionRequest | MonitoringRequest | SeepageRequest | CancelRequest;
 
 /** How one excavation stands against its target at the design time. */
 export interface ExcavationShortfall {
@@ -163,4 +179,4 @@ export interface CancelledMessage {
   id: number;
 }
 
-export type EngineResponse = FieldResult | InspectResult | SectionResult | MonitoringResult | ProgressMessage | ErrorMessage | CancelledMessage;
+export type EngineResponse = FieldResult | InspectResult | SectionResult | MonitoringResult | SeepageResult | ProgressMessage | ErrorMessage | CancelledMessage;

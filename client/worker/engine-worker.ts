@@ -7,6 +7,7 @@ import { DrydigError } from '../../shared/schema';
 import type { EngineRequest, EngineResponse } from './engine-protocol';
 import { JobCancelled, runFieldJob, runInspectJob, runSectionJob } from './field-job';
 import { runMonitoringJob } from './monitoring-job';
+import { runSeepageJob } from './seepage-job';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 const queue: EngineRequest[] = [];
@@ -48,6 +49,8 @@ async function drain(): Promise<void> {
         post(runInspectJob(req));
       } else if (req.kind === 'monitoring') {
         post(runMonitoringJob(req));
+      } else if (req.kind === 'seepage') {
+        post(runSeepageJob(req));
       } else {
         post(runSectionJob(req));
       }

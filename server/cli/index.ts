@@ -23,6 +23,7 @@ const COMMANDS: Record<string, () => Promise<CliCommand>> = {
   design: async () => (await import('./design-command')).runDesignCommand,
   'pumping-test': async () => (await import('./pumping-test-command')).runPumpingTestCommand,
   import: async () => (await import('./import-command')).runImportCommand,
+  section: async () => (await import('./section-command')).runSectionCommand,
 };
 
 const HELP: Record<string, string> = { evaluate: EVALUATE_HELP, serve: SERVE_HELP };

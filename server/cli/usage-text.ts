@@ -7,6 +7,7 @@ Usage:
   drydig design SCENARIO.json [--mode uniform|optimal|layout]
   drydig pumping-test READINGS.csv --rate Q [--distance R] [--method M] [--stop T]
   drydig import FILE.ags | FILE.dxf [--borehole ID[,ID] --at x,y] [--unit M]
+  drydig section FILE.json [--compare] [--flow-net] [--pretty | --csv]
   drydig serve [--port N] [--host H] [--data DIR] [--body-limit BYTES]
   drydig help [COMMAND]
   drydig --version
@@ -16,6 +17,7 @@ Commands:
   design     pumping rates that meet each excavation's target level
   pumping-test  aquifer parameters (T, S, B, well loss) fitted to a pumping test's readings
   import     what a site file holds: AGS boreholes (and a suggested ground profile), DXF layers
+  section    seepage in a vertical section: flow, exit gradient, heave and uplift
   serve      start the web application and HTTP API (http://127.0.0.1:8080 by default)
 
 Exit codes: 0 done, 2 bad input (one line on stderr naming the problem), 1 unexpected error.

@@ -14,3 +14,5 @@ export * from './monitoring-plan';
 export * from './monitoring-csv';
 export * from './method-references';
 export * from './report-html';
+export * from './section-floor-csv';
+export * from './section-report-html';

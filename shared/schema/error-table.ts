@@ -101,6 +101,21 @@ export const ERROR_TABLE = {
     title: 'A file could not be read',
     fix: 'Check the path and that the file is readable JSON or CSV.',
   },
+  DRYDIG_ERR_INVALID_SECTION: {
+    status: 400,
+    title: 'The section document is not valid',
+    fix: 'Correct the field named in the message; see the section format in the README.',
+  },
+  DRYDIG_ERR_SECTION_TOO_LARGE: {
+    status: 400,
+    title: 'The section mesh would have more cells than the limit',
+    fix: 'Give a larger mesh.maxSize_m / minSize_m or a smaller mesh.subdivide.',
+  },
+  DRYDIG_ERR_COMPUTE_TIMEOUT: {
+    status: 503,
+    title: 'The computation did not finish within its time budget',
+    fix: 'Use a coarser mesh or fewer options, or try again when the service is less busy.',
+  },
   DRYDIG_ERR_INTERNAL: {
     status: 500,
     title: 'An unexpected error (a bug in drydig)',

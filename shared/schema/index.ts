@@ -5,3 +5,5 @@ export * from './design-options-schema';
 export * from './monitoring-schema';
 export * from './view-schema';
 export * from './pumping-test-record-schema';
+export * from './section-schema';
+export * from './validate-section';

@@ -13,7 +13,8 @@ export type ScenarioValidation = { ok: true; scenario: Scenario } | { ok: false;
 
 const MAX_STRUCTURAL_ISSUES = 20;
 
-function describeStructuralError(error: ValueError): string {
+/** Words a TypeBox structural error the way a designer reads it (shared by the document validators). */
+export function describeStructuralError(error: ValueError): string {
   const schema = error.schema as Record<string, unknown>;
   const value = error.value;
   if (value === undefined) return 'is required';

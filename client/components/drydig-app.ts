@@ -753,7 +753,7 @@ export class DrydigApp extends LightElement {
           <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab === 'store' || this.tab === 'test'}>${this.tab === 'store' || this.tab === 'test' ? nothing : this.renderTab(times, ti, view.contour?.step_m)}</div>
           <!-- Kept alive across tab switches: the readings and fits stay while the designer checks the ground model. -->
           <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'test'}>
-            <pumping-test-panel .store=${this.store} .scenario=${s} .units=${this.units}></pumping-test-panel>
+            <pumping-test-panel .store=${this.store} .scenario=${s} .units=${this.units} .shown=${this.tab === 'test'}></pumping-test-panel>
           </div>
           <!-- Kept alive across tab switches: it remembers which stored scenario and revision the editor holds. -->
           <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'store'}>

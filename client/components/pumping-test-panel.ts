@@ -24,7 +24,7 @@ const range = (r: [number, number] | undefined, significant = 3) => (r ? `${fmt(
 
 export class PumpingTestPanel extends LightElement {
   static override properties = {
-    store: { attribute: false }, scenario: { attribute: false }, units: { attribute: false }, apiBase: { type: String },
+    store: { attribute: false }, scenario: { attribute: false }, units: { attribute: false }, apiBase: { type: String }, shown: { type: Boolean },
     csv: { state: true }, fileName: { state: true }, rateText: { state: true }, rateUnit: { state: true }, distanceText: { state: true },
     stopText: { state: true }, result: { state: true }, readings: { state: true }, selected: { state: true }, view: { state: true },
     error: { state: true }, busy: { state: true }, message: { state: true }, d10Text: { state: true }, cuText: { state: true }, wellId: { state: true },
@@ -33,6 +33,8 @@ export class PumpingTestPanel extends LightElement {
   declare scenario: Scenario | undefined;
   declare units: DisplayUnits;
   declare apiBase: string;
+  /** True while its tab is shown: the caution note exists only then (one caution per visible panel). */
+  declare shown: boolean;
   declare csv: string;
   declare fileName: string;
   declare rateText: string;
@@ -53,6 +55,7 @@ export class PumpingTestPanel extends LightElement {
   constructor() {
     super();
     this.apiBase = '';
+    this.shown = true;
     this.csv = '';
     this.fileName = '';
     this.rateText = '';
@@ -183,7 +186,7 @@ export class PumpingTestPanel extends LightElement {
       ${this.message ? html`<p class="dd-ok" role="status" data-test="test-applied">${this.message}</p>` : nothing}
       ${this.result ? this.renderResult(this.result, fit, b) : nothing}
       ${this.renderHazen()}
-      <caution-note .notes=${this.result?.cautions ?? []}></caution-note>
+      ${this.shown ? html`<caution-note .notes=${this.result?.cautions ?? []}></caution-note>` : nothing}
     </div>`;
   }
 

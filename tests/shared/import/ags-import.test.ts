@@ -1,19 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { DrydigError } from '../../../shared/schema';
+import { drydigMessageOf as messageOf } from '../../helpers/drydig-error-of';
 import { buildGroundFromBoreholes, parseAgs4, readBoreholes } from '../../../shared/import';
 
 const demo = readFileSync(new URL('../../../fixtures/imports/demo-site-investigation.ags', import.meta.url), 'utf8');
-
-function messageOf(fn: () => unknown): string {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof DrydigError) return `${error.code}: ${error.message}`;
-    throw error;
-  }
-  throw new Error('did not throw');
-}
 
 describe('parseAgs4(text)', () => {
   it('reads the groups, headings, units and data rows of the invented demo file', () => {

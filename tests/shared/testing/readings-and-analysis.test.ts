@@ -1,16 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { DrydigError, parseScenario } from '../../../shared/schema';
+import { parseScenario } from '../../../shared/schema';
+import { drydigErrorOf as codeOf } from '../../helpers/drydig-error-of';
 import { analysePumpingTest, applyTestParameters, parseReadingsCsv, theisDrawdown, type PumpingTestFit } from '../../../shared/testing';
-
-function codeOf(fn: () => unknown): { code: string; message: string } {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof DrydigError) return { code: error.code, message: error.message };
-    throw error;
-  }
-  throw new Error('did not throw');
-}
 
 describe('parseReadingsCsv(text)', () => {
   it('reads units from column suffixes: minutes, feet and a distance column', () => {

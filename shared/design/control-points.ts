@@ -49,6 +49,8 @@ export interface GenerateControlPointsOptions {
   userPointsPath?: string;
   /** JSON pointer of the spacing for messages. Default '/designOptions/controlSpacing_m'. */
   spacingPath?: string;
+  /** Target level of an excavation, m. Default formation − margin; the design passes the floor check's governing level. */
+  targetOf?: (excavation: Excavation) => number;
 }
 
 /**
@@ -63,11 +65,12 @@ export function generateControlPoints({
   userPoints = [],
   userPointsPath = '/designOptions/controlPoints',
   spacingPath = '/designOptions/controlSpacing_m',
+  targetOf = getExcavationTargetLevel,
 }: GenerateControlPointsOptions): ControlPoint[] {
   const points: ControlPoint[] = [];
   const lowestTargetAt = (x: number, y: number, fallback: number): number => {
     let target = fallback;
-    for (const e of excavations) if (isPointInPolygon(x, y, e.outline)) target = Math.min(target, getExcavationTargetLevel(e));
+    for (const e of excavations) if (isPointInPolygon(x, y, e.outline)) target = Math.min(target, targetOf(e));
     return target;
   };
   const push = (p: ControlPoint) => {
@@ -81,7 +84,7 @@ export function generateControlPoints({
   };
 
   for (const e of excavations) {
-    const target = getExcavationTargetLevel(e);
+    const target = targetOf(e);
     const spacing = (spacing_m ?? defaultControlSpacing(e.outline)) / densify;
     const ring = openRing(e.outline);
     for (let i = 0; i < ring.length; i++) {

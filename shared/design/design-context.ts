@@ -3,7 +3,8 @@
  * the design wells (staged starts honoured), plus the scenario with the design rates applied.
  */
 import { levelFromPotentialDrawdown, potentialDrawdownForLevel, unitResponseMatrix } from '../field';
-import type { DesignMode, Scenario, Well } from '../schema';
+import type { DesignMode, Excavation, Scenario, Well } from '../schema';
+import type { ExcavationFloor } from '../floor';
 import type { ResolvedDesignOptions } from './design-options';
 import type { DesignWell } from './well-limits';
 
@@ -19,6 +20,10 @@ export interface DesignContext {
   limitTime_s: number | null;
   variableForLevel: (level_m: number) => number;
   levelForVariable: (v: number) => number;
+  /** The floor of each excavation by id: its ground and the governing target (pit-floor checks). */
+  floors: Map<string, ExcavationFloor>;
+  /** Target level of an excavation: the level its governing floor check sets, m. */
+  targetOf: (excavation: Excavation) => number;
 }
 
 /** Variable (drawdown or s_c) at points per 1 m³/s of each design well, at time_s, staged starts honoured. nP × nW. */

@@ -15,6 +15,8 @@ import {
   type Scenario,
 } from '../schema';
 
+import { resolveFloorOptions, type FloorCheckOptions } from '../floor/floor-options';
+
 const DAY_S = 86_400;
 
 /** Design options after defaults are applied; see `DesignOptionsSchema` for meanings and units. */
@@ -40,6 +42,8 @@ export interface ResolvedDesignOptions {
   stages: DesignStage[];
   layoutTimeLimit_s: number;
   outOfServiceWell: string | null;
+  /** Pit-floor checks: EN 1997-1 UPL partial factors and the heave factor. */
+  floor: FloorCheckOptions;
   /** JSON pointers the control points and spacing came from (for messages). */
   controlPointsPath: string;
   controlSpacingPath: string;
@@ -149,6 +153,7 @@ export function resolveDesignOptions({ scenario, overrides, overridesPath = '/op
     stages: merged.stages ?? [],
     layoutTimeLimit_s: merged.layoutTimeLimit_s ?? d.layoutTimeLimit_s,
     outOfServiceWell: merged.outOfServiceWell ?? null,
+    floor: resolveFloorOptions(merged.floor),
     controlPointsPath: `${origin('controlPoints')}/controlPoints`,
     controlSpacingPath: `${origin('controlSpacing_m')}/controlSpacing_m`,
   };

@@ -3,7 +3,7 @@
  * the aquifer base, wells at their limits, points no well reaches, constant-head boundaries
  * feeding the wells, the solver's own state and what verification found.
  */
-import { getExcavationTargetLevel, type ControlPoint } from './control-points';
+import type { ControlPoint } from './control-points';
 import { designResponse, responseDot, type DesignContext } from './design-context';
 import type { DesignExcavationResult, DesignReason } from './design-result';
 import { formatFigure as fmt, listIds } from './design-wording';
@@ -41,7 +41,7 @@ export function explainDesign({ ctx, checkPoints, checkResponse, rows, solution,
       reasons.push({
         code: 'target-below-aquifer-base',
         excavationId: e.id,
-        message: `Excavation "${e.id}": its target level ${fmt(getExcavationTargetLevel(e), 4)} m lies below the aquifer base (${a.base_m} m); wells in an unconfined aquifer cannot lower groundwater below the base — consider a cut-off, sump pumping at the base, or check the ground model.`,
+        message: `Excavation "${e.id}": its target level ${fmt(ctx.targetOf(e), 4)} m lies below the aquifer base (${a.base_m} m); wells in an unconfined aquifer cannot lower groundwater below the base — consider a cut-off, sump pumping at the base, or check the ground model.`,
       });
   }
   if (nW === 0)

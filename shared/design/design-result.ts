@@ -68,9 +68,32 @@ export const DesignCriticalPointSchema = Type.Object({
 });
 export type DesignCriticalPoint = Static<typeof DesignCriticalPointSchema>;
 
+export const SafeDigStepSchema = Type.Object({
+  time_s: Num('Time since pumping started, s.'),
+  safeFormationLevel_m: Num('Deepest formation level that meets the governing floor criterion at that time, m.'),
+});
+
+/** The pit-floor check of one excavation (design.md §8). */
+export const DesignFloorResultSchema = Type.Object({
+  governing: Type.Union([Type.Literal('dry'), Type.Literal('uplift'), Type.Literal('heave')], { description: 'The check that sets the target level.' }),
+  profileSource: Type.Union([Type.Literal('excavation'), Type.Literal('site'), Type.Null()], { description: 'Ground profile used; null: none given (only the dry check).' }),
+  allowableLevel_m: NullableNum('Highest aquifer head that keeps the floor safe (uplift or heave, the stricter), m; null where neither applies.'),
+  upliftFS: NullableNum('Uplift factor of safety W / (γw·h_p) at the critical point with the chosen rates; null: no plug, or no pressure under it.'),
+  requiredUpliftFS: NullableNum('γG;dst / γG;stb (EN 1997-1 Table A.15 recommended values unless set); null: no plug.'),
+  heaveFS: NullableNum('Critical over upward gradient in a granular floor at the critical point; null: no granular floor or no upward gradient.'),
+  requiredHeaveFS: NullableNum('Required heave factor; null: no granular floor.'),
+  plugBase_m: NullableNum('Base of the plug left under formation, m.'),
+  plugWeight_kPa: NullableNum('Weight of the ground between formation and the plug base, kPa.'),
+  critical: Type.Object({ x: Num('Easting, m.'), y: Num('Northing, m.'), level_m: Num('Aquifer head there at the design time, m.') }),
+  margin_m: Num('Governing target minus the computed head at the critical point, m (≥ 0 when met).'),
+  safeDig: Type.Array(SafeDigStepSchema, { description: 'Excavation sequence with the chosen rates: deepest safe formation level over time (transient designs).' }),
+  timeToUnsafe_s: NullableNum('Every pump stops at the design time: time until the floor becomes unsafe (head above the allowable level), s; null: no floor-safety check, already unsafe, or not within the checked span.'),
+});
+export type DesignFloorResult = Static<typeof DesignFloorResultSchema>;
+
 export const DesignExcavationResultSchema = Type.Object({
   id: Type.String(),
-  targetLevel_m: Num('Formation level − margin, m.'),
+  targetLevel_m: Num('Level the design must reach: the governing floor check (formation − margin when the floor must be dry), m.'),
   formationLevel_m: Num('Formation level, m.'),
   met: Type.Boolean(),
   worstShortfall_m: Num('Highest computed level inside the excavation minus its target, m (≤ 0 when met).'),
@@ -81,6 +104,7 @@ export const DesignExcavationResultSchema = Type.Object({
   controlPointCount: Num('Control points used (design grid plus points added in refinement).'),
   checkPointCount: Num('Check points (twice as dense) the result was verified on.'),
   pointsAboveTarget: Num('Check points where the computed level stays above the target (0 when met).'),
+  floor: Type.Optional(DesignFloorResultSchema),
 });
 export type DesignExcavationResult = Static<typeof DesignExcavationResultSchema>;
 

@@ -7,6 +7,7 @@ import { generateControlPoints, type ControlPoint } from './control-points';
 import { resolveDesignOptions } from './design-options';
 import { variableConversions, type DesignContext } from './design-context';
 import { buildDesignWells } from './well-limits';
+import { excavationFloor } from '../floor';
 
 /**
  * Largest unit-response matrix one design may build (check points × design wells): 5 million
@@ -57,7 +58,10 @@ export function prepareDesign(input: RunDesignOptions): DesignSetup {
   // wells lower still; that is checked at the end of pumping and reported as a caution.
   const limitTime_s = designTime_s;
   const endTime_s = designTime_s === null ? null : Math.max(designTime_s, options.duration_s);
+  const floors = new Map(scenario.excavations.map((e) => [e.id, excavationFloor(scenario, e, options.floor)] as const));
   const ctx: DesignContext = {
+    floors,
+    targetOf: (e) => floors.get(e.id)?.target.targetLevel_m ?? e.formationLevel_m - e.margin_m,
     scenario,
     options,
     mode,
@@ -85,6 +89,7 @@ export function placeDesignPoints(ctx: DesignContext): DesignPoints {
     userPoints: options.controlPoints,
     userPointsPath: options.controlPointsPath,
     spacingPath: options.controlSpacingPath,
+    targetOf: ctx.targetOf,
   };
   const designPoints = generateControlPoints(pointOptions);
   const checkPoints = generateControlPoints({ ...pointOptions, densify: 2 });

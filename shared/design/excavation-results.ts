@@ -3,7 +3,7 @@
  * not, by how much, where — and the control-point table of the result.
  */
 import type { PointResult } from '../field';
-import { getExcavationTargetLevel, type ControlPoint } from './control-points';
+import type { ControlPoint } from './control-points';
 import type { DesignContext } from './design-context';
 import type { DesignControlPointResult, DesignExcavationResult } from './design-result';
 
@@ -38,7 +38,7 @@ export function summariseExcavations({ ctx, designPoints, checkPoints, addedChec
     const cp = checkPoints[at]!;
     return {
       id: e.id,
-      targetLevel_m: getExcavationTargetLevel(e),
+      targetLevel_m: ctx.targetOf(e),
       formationLevel_m: e.formationLevel_m,
       met: worst <= 0,
       worstShortfall_m: worst,

@@ -23,6 +23,7 @@ import { explainDesign, findUnreachablePoints } from './design-reasons';
 import { checkOneWellOut } from './out-of-service-check';
 import { buildQuickChecks } from './quick-check';
 import { collectDesignCautions } from './design-run-cautions';
+import { checkFloors } from './floor-stage';
 
 /**
  * Runs a design. Throws `DrydigError` naming the field for bad input; never returns NaN
@@ -74,6 +75,9 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   const refinedDesignPoints = [...designPoints, ...[...addedCheckPoints].map((i) => checkPoints[i]!)];
   const times = computeTimes({ ctx, rates, designPoints: refinedDesignPoints, excavations });
 
+  progress('floor checks', 0.8);
+  const floors = checkFloors({ ctx, rates, checkPoints, pointLevels_m: pointResults.map((r) => r.level_m), stop_s: times.stop_s });
+
   progress('standby check', 0.85);
   const outOfService = checkOneWellOut(ctx, checkPoints, responses.check, rates);
 
@@ -97,7 +101,7 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     feasible,
     totalRate_m3_s: total,
     wells: wellResults,
-    excavations: excavations.map((e) => ({ ...e, ...(times.excavations.get(e.id) ?? {}) })),
+    excavations: excavations.map((e) => ({ ...e, ...(times.excavations.get(e.id) ?? {}), ...(floors.has(e.id) ? { floor: floors.get(e.id)! } : {}) })),
     reasons,
     designTime_s: ctx.designTime_s,
     limitCheckTime_s: ctx.limitTime_s,

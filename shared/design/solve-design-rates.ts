@@ -3,7 +3,7 @@
  * and refine — add the check points still above target as rows, narrow the linearisation of the
  * well limits around the solution — until nothing changes (bounded rounds).
  */
-import { getExcavationTargetLevel, type ControlPoint } from './control-points';
+import type { ControlPoint } from './control-points';
 import { responseDot, type DesignContext } from './design-context';
 import type { DesignResponses } from './design-responses';
 import { findBindingLimits, solveLayout, solveOptimalRates, solveUniformRate, type RateProblem, type RateSolution } from './rate-problem';
@@ -40,7 +40,7 @@ export interface SolvedDesign {
  */
 export function layoutCostPerCubicMetre(ctx: DesignContext): number {
   const { scenario, options } = ctx;
-  const deepestTarget = Math.min(...scenario.excavations.map(getExcavationTargetLevel), scenario.aquifer.staticLevel_m);
+  const deepestTarget = Math.min(...scenario.excavations.map(ctx.targetOf), scenario.aquifer.staticLevel_m);
   const headEstimate_m = Math.max(0, scenario.groundLevel_m - deepestTarget) + options.dischargeHead_m + options.frictionAllowance_m;
   return options.pumpedVolumeCost_per_m3 + (options.energyPrice_per_kWh * 1000 * 9.80665 * headEstimate_m) / (options.pumpEfficiency * 3.6e6);
 }

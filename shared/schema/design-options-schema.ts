@@ -35,6 +35,23 @@ export const DesignStageSchema = Type.Object(
 );
 export type DesignStage = Static<typeof DesignStageSchema>;
 
+/** Pit-floor checks (design.md §8): EN 1997-1 UPL partial factors and the factor on the critical gradient (HYD). */
+export const FloorOptionsSchema = Type.Object(
+  {
+    partialFactors: Type.Optional(
+      Type.Object(
+        {
+          destabilising: Type.Optional(Type.Number({ minimum: 1, maximum: 2, description: 'γG;dst on the water pressure under the plug (−). Default 1.0 (EN 1997-1 Table A.15, recommended value; national annexes differ).' })),
+          stabilising: Type.Optional(Type.Number({ exclusiveMinimum: 0, maximum: 1, description: 'γG;stb on the weight of the plug (−). Default 0.9 (EN 1997-1 Table A.15, recommended value; national annexes differ).' })),
+        },
+        { additionalProperties: false },
+      ),
+    ),
+    heaveFactor: Type.Optional(Type.Number({ minimum: 1, maximum: 5, description: 'Required factor of the critical gradient over the upward gradient in a granular floor (−). Default 1.5 (common practice).' })),
+  },
+  { additionalProperties: false, description: 'Pit-floor safety checks: uplift of a low-permeability plug and heave of a granular floor.' },
+);
+
 export const DesignOptionsSchema = Type.Object(
   {
     mode: Type.Optional(DesignModeSchema),
@@ -82,6 +99,7 @@ export const DesignOptionsSchema = Type.Object(
     layoutTimeLimit_s: Type.Optional(
       Type.Number({ exclusiveMinimum: 0, maximum: 600, description: 'Layout mode: longest the integer search may run before it returns its best layout, s. Default 20.' }),
     ),
+    floor: Type.Optional(FloorOptionsSchema),
     outOfServiceWell: Type.Optional(
       Type.String({ minLength: 1, maxLength: 64, description: 'Well to take out of service in the standby check. Default: the one whose loss hurts most.' }),
     ),

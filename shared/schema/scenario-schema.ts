@@ -6,6 +6,7 @@
  * TypeScript types are derived from this schema (`Static<>`), never written twice.
  */
 import { Type, type Static } from '@sinclair/typebox';
+import { GroundProfileSchema } from './ground-schema';
 
 /** A finite number (JSON cannot carry NaN or Infinity; this also rejects them from JS callers). */
 const Finite = (options: { description?: string; minimum?: number; exclusiveMinimum?: number; maximum?: number } = {}) =>
@@ -55,7 +56,12 @@ export const ExcavationSchema = Type.Object(
     id: Type.String({ minLength: 1, maxLength: 64 }),
     outline: Type.Array(PointSchema, { minItems: 3, maxItems: 10_000, description: 'Closed polygon (last point joins the first).' }),
     formationLevel_m: Finite({ description: 'Formation (dig) level, m.' }),
-    margin_m: Finite({ minimum: 0, maximum: 50, description: 'Groundwater must stand this far below formation, m.' }),
+    margin_m: Finite({
+      minimum: -50,
+      maximum: 50,
+      description: 'Groundwater must stand this far below formation, m. Negative (a target above formation) only over a low-permeability plug.',
+    }),
+    ground: Type.Optional(GroundProfileSchema),
   },
   { additionalProperties: false },
 );
@@ -116,6 +122,7 @@ export const ScenarioSchema = Type.Object(
     excavations: Type.Array(ExcavationSchema, { maxItems: 100 }),
     wells: Type.Array(WellSchema, { maxItems: 5000 }),
     design: DesignSchema,
+    ground: Type.Optional(GroundProfileSchema),
   },
   {
     // Later issues add optional top-level sections (underlay, monitoring, design options, …).

@@ -8,6 +8,7 @@ import { ScenarioSchema, type Scenario } from './scenario-schema';
 import { DrydigError, summariseIssues, type FieldIssue } from './error-table';
 import { findSelfIntersection, getPolygonArea } from '../geometry/polygon';
 import { validatePumpingTestRecord } from './pumping-test-record-schema';
+import { groundProfileIssues } from './ground-schema';
 
 export type ScenarioValidation = { ok: true; scenario: Scenario } | { ok: false; issues: FieldIssue[] };
 
@@ -81,7 +82,15 @@ function semanticIssues(s: Scenario): FieldIssue[] {
     const crossing = findSelfIntersection(e.outline);
     if (crossing) add(`/excavations/${i}/outline`, `outline crosses itself (edges ${crossing[0]} and ${crossing[1]})`);
     if (e.formationLevel_m > s.groundLevel_m) add(`/excavations/${i}/formationLevel_m`, `formation level (${e.formationLevel_m} m) is above ground level (${s.groundLevel_m} m)`);
+    if (e.ground) issues.push(...groundProfileIssues(e.ground, `/excavations/${i}/ground`, a, s.groundLevel_m));
+    if (e.margin_m < 0) {
+      const profile = e.ground ?? s.ground;
+      const atFormation = profile?.layers.find((l) => l.top_m >= e.formationLevel_m && l.bottom_m < e.formationLevel_m);
+      if (atFormation?.kind !== 'plug')
+        add(`/excavations/${i}/margin_m`, 'a negative margin puts water above formation; that is only safe in a low-permeability plug — give a ground profile whose layer at formation is a plug (the uplift check then sets the target)');
+    }
   });
+  if (s.ground) issues.push(...groundProfileIssues(s.ground, '/ground', a, s.groundLevel_m));
 
   const wellIds = new Set<string>();
   s.wells.forEach((w, i) => {

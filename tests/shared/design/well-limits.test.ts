@@ -31,6 +31,8 @@ function context(scenario: Scenario): DesignContext {
     matrixScenario: { ...scenario, wells: scenario.wells.map((w) => ({ ...w, active: false })) },
     designTime_s: scenario.design.time_s, limitTime_s: scenario.design.time_s,
     ...variableConversions(scenario),
+    floors: new Map(),
+    targetOf: (e) => e.formationLevel_m - e.margin_m,
   };
 }
 

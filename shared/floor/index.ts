@@ -1,0 +1,5 @@
+export * from './floor-options';
+export * from './floor-profile';
+export * from './floor-checks';
+export * from './excavation-floor';
+export * from './floor-timeline';

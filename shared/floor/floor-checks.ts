@@ -52,15 +52,20 @@ export interface FloorTarget {
 }
 
 /**
- * The target under a formation: a granular floor (or one with no profile) must be dry
- * (formation − margin) and must not boil; a plug over the pumped aquifer needs the aquifer's head
- * at or below the allowable uplift level, which may stand above formation. The strictest governs.
+ * The target under a formation: a granular floor open to the pumped aquifer (or one with no
+ * profile) must be dry (formation − margin) and must not boil; a plug left over the pumped aquifer
+ * needs the aquifer's head at or below the allowable uplift level, which may stand above formation.
+ * Where several apply, the strictest governs.
  */
 export function floorTarget(ground: FloorGround | null, formationLevel_m: number, margin_m: number, options: FloorCheckOptions): FloorTarget {
   const z = formationLevel_m;
-  const needsDry = ground === null || ground.floorKind !== 'plug' || ground.plug === null;
+  // A plug between formation and the pumped aquifer separates the two: the aquifer's head then
+  // loads the plug (uplift) and is not the water level in the ground at formation, so neither the
+  // dry nor the heave criterion applies to it (water perched above the plug is sump work).
+  const separated = ground?.plug != null;
+  const needsDry = !separated;
   const upliftLevel_m = ground?.plug ? allowableUpliftLevel(ground.plug, options) : null;
-  const heaveLevel_m = ground?.granular ? allowableHeaveLevel(ground.granular, z, options) : null;
+  const heaveLevel_m = ground?.granular && !separated ? allowableHeaveLevel(ground.granular, z, options) : null;
   const dryLevel_m = needsDry ? z - margin_m : null;
   const candidates: Array<[GoverningFloorCheck, number]> = [];
   if (dryLevel_m !== null) candidates.push(['dry', dryLevel_m]);

@@ -63,9 +63,20 @@ export function designResultToCsv(result: DesignResult): string {
       line([w.id, w.kind, w.x, w.y, w.installed ? 'yes' : 'no', w.start_s, w.rate_m3_s, w.capacity_m3_s, w.utilisation, w.pumpingLevel_m, w.minimumPumpingLevel_m, w.limit ?? '', w.head_m, w.flags.join(' ')]),
     );
   rows.push('');
-  rows.push(line(['excavation', 'targetLevel_m', 'met', 'worstShortfall_m', 'critical_x_m', 'critical_y_m', 'critical_level_m', 'timeToTarget_s', 'recoveryToFormation_s']));
-  for (const e of result.excavations)
-    rows.push(line([e.id, e.targetLevel_m, e.met ? 'yes' : 'no', e.worstShortfall_m, e.critical.x, e.critical.y, e.critical.level_m, e.timeToTarget_s, e.recoveryToFormation_s]));
+  rows.push(line(['excavation', 'targetLevel_m', 'met', 'worstShortfall_m', 'critical_x_m', 'critical_y_m', 'critical_level_m', 'timeToTarget_s', 'recoveryToFormation_s', 'governingCheck', 'allowableLevel_m', 'upliftFS', 'requiredUpliftFS', 'heaveFS', 'requiredHeaveFS', 'timeToUnsafe_s']));
+  for (const e of result.excavations) {
+    const f = e.floor;
+    rows.push(
+      line([e.id, e.targetLevel_m, e.met ? 'yes' : 'no', e.worstShortfall_m, e.critical.x, e.critical.y, e.critical.level_m, e.timeToTarget_s, e.recoveryToFormation_s,
+        f?.governing ?? '', f?.allowableLevel_m ?? null, f?.upliftFS ?? null, f?.requiredUpliftFS ?? null, f?.heaveFS ?? null, f?.requiredHeaveFS ?? null, f?.timeToUnsafe_s ?? null]),
+    );
+  }
+  const digs = result.excavations.filter((e) => (e.floor?.safeDig.length ?? 0) > 0);
+  if (digs.length > 0) {
+    rows.push('');
+    rows.push(line(['safe-dig excavation', 'time_s', 'safeFormationLevel_m']));
+    for (const e of digs) for (const step of e.floor!.safeDig) rows.push(line([e.id, step.time_s, step.safeFormationLevel_m]));
+  }
   rows.push('');
   rows.push(line(['reasons and cautions']));
   for (const r of result.reasons) rows.push(line([r.message]));

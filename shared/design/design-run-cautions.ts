@@ -60,8 +60,6 @@ export function collectDesignCautions({ ctx, rates, solved, endTime_s, pointResu
   if (flagged('confined-to-unconfined') > 0)
     cautions.push(`${flagged('confined-to-unconfined')} check point(s) have the head below the aquifer top: the aquifer turns unconfined there and the confined solution overstates the drawdown.`);
   if (wellResults.some((w) => w.flags.includes('dewatered'))) cautions.push('Some wells are dewatered at the face in the model: check the screens.');
-  if (a.kind !== 'unconfined' && scenario.excavations.some((e) => a.top_m !== undefined && e.formationLevel_m < a.top_m))
-    cautions.push('An excavation reaches into the confined aquifer: check base stability (uplift and heave) separately.');
   if (wells.some((w) => w.kind === 'wellpoint'))
     cautions.push(`Suction-lift limit ${options.suctionLiftLimit_m} m below the header is common practice (well points work to about 5–6 m), not a property of the site.`);
   if (designTime_s === null)

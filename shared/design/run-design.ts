@@ -24,6 +24,7 @@ import { checkOneWellOut } from './out-of-service-check';
 import { buildQuickChecks } from './quick-check';
 import { collectDesignCautions } from './design-run-cautions';
 import { checkFloors } from './floor-stage';
+import { floorCautions } from '../floor';
 
 /**
  * Runs a design. Throws `DrydigError` naming the field for bad input; never returns NaN
@@ -95,6 +96,7 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     solvedOptimally: solution.status === 'optimal',
     designPointCount: designPoints.length,
   });
+  cautions.push(...floorCautions([...floors].map(([excavationId, f]) => ({ excavationId, ...f }))));
   progress('done', 1);
   return {
     mode,

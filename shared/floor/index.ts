@@ -3,3 +3,4 @@ export * from './floor-profile';
 export * from './floor-checks';
 export * from './excavation-floor';
 export * from './floor-timeline';
+export * from './floor-wording';

@@ -30,7 +30,7 @@ export function collectDesignCautions({ ctx, rates, solved, endTime_s, pointResu
   const { scenario, options, wells, mode, designTime_s } = ctx;
   const a = scenario.aquifer;
   const cautions: string[] = [
-    'Idealised model (homogeneous, isotropic aquifer, infinite except the stated straight boundaries, fully penetrating wells): treat rates and levels as estimates; confirm by site investigation and pumping tests, follow local codes, and have the design checked by a licensed engineer.',
+    'Idealised model (homogeneous aquifer, infinite except the stated straight boundaries; partial screens by Hantush’s correction, other wells fully penetrating): treat rates and levels as estimates; confirm by site investigation and pumping tests, follow local codes, and have the design checked by a licensed engineer.',
   ];
   if (a.kind === 'unconfined' || wells.some((w) => w.wellLoss_s2_m5 > 0))
     cautions.push(

@@ -41,7 +41,7 @@ export function explainDesign({ ctx, checkPoints, checkResponse, rows, solution,
       reasons.push({
         code: 'target-below-aquifer-base',
         excavationId: e.id,
-        message: `Excavation "${e.id}": its target level ${fmt(getExcavationTargetLevel(e), 4)} m lies below the aquifer base (${a.base_m} m); wells in an unconfined aquifer cannot lower groundwater below the base — consider a cut-off, sump pumping at the base, or check the ground model.`,
+        message: `Excavation "${e.id}": its target level ${fmt(getExcavationTargetLevel(e), 4)} m lies below the aquifer base (${a.base_m} m); ${a.kind === 'unconfined' ? 'wells in an unconfined aquifer cannot lower groundwater below the base' : `the ${a.kind} aquifer would be drained before the head reached it (the head is held at the base and flagged "dewatered")`} — consider a cut-off, sump pumping at the base, or check the ground model.`,
       });
   }
   if (nW === 0)

@@ -38,6 +38,7 @@ export interface PrepareFieldOptions {
 export function prepareField({ scenario, time_s, stepsOf, boundRate_m3_s }: PrepareFieldOptions): PreparedField {
   const model = resolveFieldModel({ scenario, time_s });
   const geometry = resolveBoundaryGeometry(scenario);
+  refuseSteadyStrip(model, geometry);
   const steps = stepsOf ?? ((i: number) => getModelRateSteps(scenario, model, i));
   const notes = [...model.notes];
 
@@ -118,4 +119,22 @@ function describePenetration(scenario: Scenario, model: FieldModel, table: Penet
   }
   if (model.kind === 'unconfined') notes.push('Unconfined: the correction is taken on the static saturated thickness and added to the discharge potential; the drawn-down thickness near the well is thinner, so treat pumping levels as approximate.');
   return notes;
+}
+
+/**
+ * Steady pumping between two parallel no-flow lines has no solution without recharge: the
+ * drawdown in the strip grows without bound (it becomes linear flow along the strip). A radius of
+ * influence there would be arbitrary, so the run is refused unless the aquifer is leaky (de Glee:
+ * leakage balances the pumping). A constant-head side makes the configuration one with a
+ * steady state and is accepted.
+ */
+function refuseSteadyStrip(model: FieldModel, geometry: BoundaryGeometry): void {
+  if (model.time_s !== null || model.kind === 'leaky' || geometry.configuration !== 'parallel') return;
+  if (geometry.lines.some((l) => l.kind === 'constant-head')) return;
+  const path = '/design/time_s';
+  throw new DrydigError(
+    'DRYDIG_ERR_NO_STEADY_STATE',
+    `${path}: a steady state between two parallel no-flow boundaries (/boundaries/${geometry.lines[0]!.index} and /boundaries/${geometry.lines[1]!.index}) does not exist: nothing recharges the strip, so drawdown keeps growing; give a design time, make one side constant-head, or use a leaky aquifer`,
+    [{ path, message: 'is null (steady state), but the strip between two parallel no-flow boundaries has no steady state without recharge' }],
+  );
 }

@@ -1,0 +1,70 @@
+/**
+ * Issue 12 (design review findings) items 2, 3, 6 and 11: each case failed before its fix.
+ */
+import { describe, expect, it } from 'vitest';
+import { runDesign } from '../../../shared/design';
+import { evaluatePoints, wellLevels } from '../../../shared/field';
+import type { Scenario } from '../../../shared/schema';
+import { singleWellScenario } from './design-test-helpers';
+
+const codes = (r: { reasons: Array<{ code: string }> }) => r.reasons.map((x) => x.code);
+
+describe('a confined head below the aquifer base (issue 12 item 2)', () => {
+  it('is held at the base and flagged dewatered, never reported below it', () => {
+    const s = singleWellScenario();
+    s.wells[0]!.rate_m3_s = 0.05; // Theis puts the head near −38 m at 1 m; the base is −20 m.
+    const { points } = evaluatePoints({ scenario: s, points: [[1, 0], [400, 0]] });
+    expect(points[0]!.level_m).toBe(-20);
+    expect(points[0]!.drawdown_m).toBe(25);
+    expect(points[0]!.flags).toContain('dewatered');
+    expect(points[1]!.flags).not.toContain('dewatered');
+    const [face] = wellLevels({ scenario: s });
+    expect(face!.aquiferLevel_m).toBe(-20);
+    expect(face!.flags).toContain('dewatered');
+  });
+
+  it('gives the design a reason and no equivalent-well figure for a target below the base', async () => {
+    const s: Scenario = { ...singleWellScenario(), groundLevel_m: 10 };
+    s.excavations = [{ ...s.excavations[0]!, formationLevel_m: -21, margin_m: 0.5 }];
+    const result = await runDesign({ scenario: s, mode: 'uniform' });
+    expect(result.feasible).toBe(false);
+    expect(codes(result)).toContain('target-below-aquifer-base');
+    expect(result.reasons.find((r) => r.code === 'target-below-aquifer-base')!.message).toMatch(/confined aquifer would be drained/);
+    expect(result.quickCheck[0]!.equivalentWellInflow_m3_s).toBeNull();
+    expect(result.quickCheck[0]!.note).toMatch(/below the base/);
+  });
+});
+
+describe('steady state between two parallel no-flow lines (issue 12 item 6)', () => {
+  const strip = (kinds: ['no-flow' | 'constant-head', 'no-flow' | 'constant-head'], time_s: number | null): Scenario => {
+    const s = singleWellScenario();
+    s.boundaries = [
+      { kind: kinds[0], from: [-100, -30], to: [100, -30] },
+      { kind: kinds[1], from: [-100, 30], to: [100, 30] },
+    ];
+    s.design = { time_s };
+    return s;
+  };
+
+  it('is refused with DRYDIG_ERR_NO_STEADY_STATE naming /design/time_s', async () => {
+    for (const run of [() => evaluatePoints({ scenario: strip(['no-flow', 'no-flow'], null), points: [[10, 0]] }), () => runDesign({ scenario: strip(['no-flow', 'no-flow'], null), mode: 'uniform' })]) {
+      let error: unknown;
+      try {
+        await run();
+      } catch (e) {
+        error = e;
+      }
+      expect((error as { code?: string }).code).toBe('DRYDIG_ERR_NO_STEADY_STATE');
+      expect((error as { issues: Array<{ path: string }> }).issues[0]!.path).toBe('/design/time_s');
+      expect((error as Error).message).toMatch(/no-flow boundaries .* give a design time, make one side constant-head/);
+    }
+  });
+
+  it('is accepted with a constant-head side, a design time, or a leaky aquifer', () => {
+    expect(evaluatePoints({ scenario: strip(['constant-head', 'no-flow'], null), points: [[10, 0]] }).points[0]!.drawdown_m).toBeGreaterThan(0);
+    expect(evaluatePoints({ scenario: strip(['no-flow', 'no-flow'], 86400), points: [[10, 0]] }).points[0]!.drawdown_m).toBeGreaterThan(0);
+    const leaky = strip(['no-flow', 'no-flow'], null);
+    leaky.aquifer = { ...leaky.aquifer, kind: 'leaky', leakageFactor_m: 200 };
+    expect(evaluatePoints({ scenario: leaky, points: [[10, 0]] }).points[0]!.drawdown_m).toBeGreaterThan(0);
+  });
+});

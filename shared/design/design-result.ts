@@ -158,6 +158,11 @@ export const QuickCheckSchema = Type.Object({
   equivalentRadius_m: NullableNum('sqrt(A/π), m.'),
   superpositionTotal_m3_s: Num('Superposition total of the design, m³/s.'),
   ratio: NullableNum('superposition / equivalent well (−); far from 1 deserves a second look.'),
+  boundaryFactor: NullableNum('Factor the image wells of the drawn boundaries put on the unbounded estimate (1 without boundaries).'),
+  flags: Type.Array(Type.String(), {
+    description: 'Outside the estimate’s validity: elongated-plan, boundary-crosses-equivalent-well, not-developed-by-design-time, implausible-rate (figure withheld), ratio-far-from-one, not-applicable.',
+  }),
+  validity: Type.String({ description: 'Where the equivalent-well estimate holds.' }),
   note: Type.String(),
 });
 export type QuickCheck = Static<typeof QuickCheckSchema>;

@@ -19,3 +19,4 @@ export * from './log-spaced-times';
 export * from './unit-response-matrix';
 export * from './equivalent-well-inflow';
 export * from './partial-penetration-sum';
+export * from './equivalent-well-boundaries';

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { runDesign } from '../../../shared/design';
 import { evaluatePoints, wellLevels } from '../../../shared/field';
 import type { Scenario } from '../../../shared/schema';
-import { singleWellScenario } from './design-test-helpers';
+import { ringScenario, singleWellScenario } from './design-test-helpers';
 
 const codes = (r: { reasons: Array<{ code: string }> }) => r.reasons.map((x) => x.code);
 
@@ -66,5 +66,46 @@ describe('steady state between two parallel no-flow lines (issue 12 item 6)', ()
     const leaky = strip(['no-flow', 'no-flow'], null);
     leaky.aquifer = { ...leaky.aquifer, kind: 'leaky', leakageFactor_m: 200 };
     expect(evaluatePoints({ scenario: leaky, points: [[10, 0]] }).points[0]!.drawdown_m).toBeGreaterThan(0);
+  });
+});
+
+describe('the equivalent-well quick check (issue 12 item 3)', () => {
+  const ring = () => ringScenario({ kind: 'confined', n: 8, ringRadius_m: 20, pitRadius_m: 12 });
+
+  it('includes the image wells of a constant-head line beside the pit (ratio 2.8 before)', async () => {
+    const s = ring();
+    s.boundaries = [{ kind: 'constant-head', from: [-200, 35], to: [200, 35] }];
+    const [q] = (await runDesign({ scenario: s, mode: 'optimal' })).quickCheck;
+    expect(q!.boundaryFactor).toBeGreaterThan(1.5);
+    expect(q!.ratio).toBeGreaterThan(0.5);
+    expect(q!.ratio).toBeLessThan(2);
+    expect(q!.note).toMatch(/boundary images included/);
+    expect(q!.validity).toMatch(/image wells/);
+  });
+
+  it('includes the images of a no-flow strip (ratio 0.007 before)', async () => {
+    const s = ring();
+    s.design = { time_s: 30 * 86400 };
+    s.boundaries = [{ kind: 'no-flow', from: [-200, 30], to: [200, 30] }, { kind: 'no-flow', from: [-200, -30], to: [200, -30] }];
+    const [q] = (await runDesign({ scenario: s, mode: 'optimal' })).quickCheck;
+    expect(q!.ratio).toBeGreaterThan(0.5);
+    expect(q!.ratio).toBeLessThan(2);
+  });
+
+  it('flags a target out of reach instead of printing an absurd rate or a bare null', async () => {
+    const tight = ring();
+    tight.aquifer = { ...tight.aquifer, conductivity_m_s: 1e-9 };
+    tight.design = { time_s: 86400 };
+    tight.excavations = [{ ...tight.excavations[0]!, outline: tight.excavations[0]!.outline.map(([x, y]) => [x * 3, y * 3] as [number, number]) }];
+    const [q1] = (await runDesign({ scenario: tight, mode: 'uniform' })).quickCheck;
+    expect(q1!.flags).toContain('not-developed-by-design-time');
+    expect(q1!.equivalentWellInflow_m3_s === null || q1!.equivalentWellInflow_m3_s <= 10).toBe(true);
+
+    const leaky = ring();
+    leaky.aquifer = { ...leaky.aquifer, kind: 'leaky', leakageFactor_m: 0.01 };
+    const [q2] = (await runDesign({ scenario: leaky, mode: 'uniform' })).quickCheck;
+    expect(q2!.equivalentWellInflow_m3_s).toBeNull();
+    expect(q2!.flags).toContain('implausible-rate');
+    expect(q2!.note).toMatch(/out of reach/);
   });
 });

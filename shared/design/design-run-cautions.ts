@@ -3,6 +3,7 @@
  * linear well limits, late-time well levels, validity flags at the check points, common-practice
  * limits, steady-state start-up flow and how the layout search ended.
  */
+import { collectCapacityAllowanceCautions } from './capacity-allowance-cautions';
 import { wellLevels, type PointResult } from '../field';
 import type { Scenario } from '../schema';
 import type { DesignContext } from './design-context';
@@ -71,6 +72,7 @@ export function collectDesignCautions({ ctx, rates, solved, endTime_s, pointResu
       `Layout choice by mixed-integer programming: ${layoutSearch.status === 'time-limit' ? 'the search stopped at its time limit' : 'the search stopped'} with the chosen layout's cost within ${fmt(100 * (layoutSearch.mipGap ?? 0), 2)} % of the best possible; costs per well and per m³ are the options' placeholders unless you set them.`,
     );
   if (mode === 'uniform' && solvedOptimally) cautions.push('Uniform mode: every well pumps the same rate; wells at the ends of a line carry more load in reality.');
+  cautions.push(...collectCapacityAllowanceCautions(ctx, wellResults));
   if (designPointCount === 0) cautions.push('The scenario has no excavations or control points: there is nothing to design for, so every rate is 0.');
   return cautions;
 }

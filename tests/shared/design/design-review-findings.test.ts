@@ -1,6 +1,7 @@
 /**
  * Issue 12 (design review findings) items 2, 3, 6 and 11: each case failed before its fix.
  */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { runDesign } from '../../../shared/design';
 import { evaluatePoints, wellLevels } from '../../../shared/field';
@@ -107,5 +108,47 @@ describe('the equivalent-well quick check (issue 12 item 3)', () => {
     expect(q2!.equivalentWellInflow_m3_s).toBeNull();
     expect(q2!.flags).toContain('implausible-rate');
     expect(q2!.note).toMatch(/out of reach/);
+  });
+});
+
+describe('capacity allowance and air entry (issue 12 item 11)', () => {
+  const fixture = (name: string): Scenario => JSON.parse(readFileSync(new URL(`../../../fixtures/${name}.json`, import.meta.url), 'utf8'));
+  const capacityBound = () => {
+    const s = ringScenario({ kind: 'confined', n: 4, ringRadius_m: 20, pitRadius_m: 12 });
+    s.wells = s.wells.map((w) => ({ ...w, radius_m: 0.05, screenTop_m: -1, screenBottom_m: -3 }));
+    return s;
+  };
+
+  it('keeps every rate within the utilisation factor (0.8, common practice) of its Sichardt capacity when set', async () => {
+    const allowed = await runDesign({ scenario: capacityBound(), mode: 'uniform', options: { capacityUtilisationFactor: 0.8 } });
+    for (const w of allowed.wells) {
+      expect(w.rate_m3_s).toBeLessThanOrEqual(0.8 * w.fullScreenCapacity_m3_s * (1 + 1e-9));
+      expect(w.allowedCapacity_m3_s).toBeCloseTo(0.8 * w.capacity_m3_s, 12);
+    }
+    expect(codes(allowed)).toContain('well-capacity');
+    expect(allowed.reasons.some((r) => r.code === 'well-capacity' && /× 0\.8/.test(r.message))).toBe(true);
+    await expect(runDesign({ scenario: capacityBound(), options: { capacityUtilisationFactor: 1.5 } })).rejects.toMatchObject({ code: 'DRYDIG_ERR_INVALID_REQUEST' });
+  });
+
+  it('says so when the design uses more than 80 % of a well’s capacity without the allowance', async () => {
+    const full = await runDesign({ scenario: capacityBound(), mode: 'uniform' });
+    expect(full.wells[0]!.rate_m3_s).toBeGreaterThan(0.95 * full.wells[0]!.fullScreenCapacity_m3_s);
+    expect(full.cautions.some((c) => /more than 80 % of their Sichardt capacity .*capacityUtilisationFactor/.test(c))).toBe(true);
+  });
+
+  it('keeps a well point’s pumping level above its screen top (air entry) as a design row with a reason', async () => {
+    // The demo well points are screened 6.0–3.0 m; with partial penetration the levels in them
+    // fall below 6.0 m at the rates the targets need.
+    const s = fixture('demo-wellpoints-unconfined');
+    const free = await runDesign({ scenario: s, mode: 'optimal' });
+    expect(free.cautions.some((c) => /drawn below their screen top and would suck air/.test(c))).toBe(true);
+    const result = await runDesign({ scenario: s, mode: 'optimal', options: { airEntryCheck: true } });
+    for (const w of result.wells) {
+      expect(w.minimumPumpingLevel_m).toBe(6);
+      if (w.rate_m3_s > 0) expect(w.pumpingLevel_m).toBeGreaterThanOrEqual(6 - 1e-6);
+    }
+    expect(result.feasible).toBe(false);
+    expect(codes(result)).toContain('air-entry');
+    expect(result.wells.some((w) => w.limit === 'air-entry')).toBe(true);
   });
 });

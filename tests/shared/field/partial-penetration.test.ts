@@ -36,7 +36,8 @@ describe('partial penetration (Hantush 1961) in the field engine', () => {
     const { points } = evaluatePoints({ scenario, points: [[6, 0]] });
     expectClose(points[0]!.drawdown_m, scale * (2 * Math.log(R / 6) + fsOf({ r: 6, D: 20, d: 4, l: 10, d2: 0 })), { rel: 1e-9 }, 'drawdown at 6 m');
     const grid = evaluateGrid({ scenario, grid: { origin: [6, 0], spacing_m: [1, 1], counts: [1, 1] } });
-    expectClose(grid.drawdown_m[0]!, points[0]!.drawdown_m, { rel: 1e-9 }, 'grid node');
+    // The grid interpolates f_s in ln r (2048 nodes): within 1e-7 m of the series here.
+    expectClose(grid.drawdown_m[0]!, points[0]!.drawdown_m, { abs: 1e-7 }, 'grid node');
   });
 
   it('scales r by √(Kv/Kh) with aquifer.anisotropyKhKv', () => {

@@ -20,6 +20,7 @@ export const DESIGN_HELP = `drydig design SCENARIO.json [--mode uniform|optimal|
   --options FILE.json  design options as JSON (same fields as the scenario's designOptions)
   --spacing M          control-point spacing, m (default: pit's shorter side / 8)
   --suction-lift M     well points: deepest pumping level below the header, m (default 5.5)
+  --capacity-factor F  share of each well's Sichardt capacity the design may use (default 0.8, common practice)
   --header-level M     header elevation, m (default: ground level)
   --efficiency E       pump wire-to-water efficiency, 0–1 (default 0.6)
   --discharge-head M   discharge head, m (default 3)
@@ -45,6 +46,7 @@ licensed engineer.
 const NUMBER_FLAGS: Record<string, keyof DesignOptions> = {
   spacing: 'controlSpacing_m',
   'suction-lift': 'suctionLiftLimit_m',
+  'capacity-factor': 'capacityUtilisationFactor',
   'header-level': 'headerLevel_m',
   efficiency: 'pumpEfficiency',
   'discharge-head': 'dischargeHead_m',

@@ -70,7 +70,8 @@ export function applyDesignRates(scenario: Scenario, wells: DesignWell[], rates:
 export function variableConversions(scenario: Scenario): Pick<DesignContext, 'variableForLevel' | 'levelForVariable'> {
   const a = scenario.aquifer;
   return {
-    variableForLevel: (level_m) => (a.kind === 'unconfined' && level_m < a.base_m ? Infinity : potentialDrawdownForLevel({ aquifer: a, level_m })),
+    // No rate lowers groundwater below the aquifer base (confined: the aquifer drains there).
+    variableForLevel: (level_m) => (level_m < a.base_m ? Infinity : potentialDrawdownForLevel({ aquifer: a, level_m })),
     levelForVariable: (v) => levelFromPotentialDrawdown({ aquifer: a, potentialDrawdown_m: v }),
   };
 }

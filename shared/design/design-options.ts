@@ -26,6 +26,10 @@ export interface ResolvedDesignOptions {
   controlSpacing_m: number | null;
   controlPoints: DesignControlPoint[];
   suctionLiftLimit_m: number;
+  /** Share of the Sichardt capacity the design may use (−). */
+  capacityUtilisationFactor: number;
+  /** Well points' pumping level kept above their given screen top (air entry) as a limit row. */
+  airEntryCheck: boolean;
   headerLevel_m: number;
   pumpEfficiency: number;
   dischargeHead_m: number;
@@ -51,15 +55,23 @@ export interface ResolvedDesignOptions {
 
 /**
  * Defaults. Values marked common practice have no single published source.
+ * - capacity utilisation: 1 (the whole Sichardt capacity) keeps earlier designs unchanged; common
+ *   practice is 0.8 (`COMMON_CAPACITY_UTILISATION`), and the cautions say so while it is 1.
+ * - air entry: off by default for the same reason; the cautions list well points drawn below their screen top.
  * - suction lift 5.5 m: common practice (suction well points work to about 5–6 m below the header).
  * - initial rate factor 1.3: UFC 3-220-05 (2004) suggests initial rates about 30 % above the
  *   computed steady rate while storage is drained.
  * - efficiency 0.6, friction 2 m, safety factor 1.25, standby ratio 0.5: common practice.
  * - prices and costs: placeholders, to be replaced by the bidder's own rates.
  */
+/** The utilisation factor common practice applies below Sichardt's capacity (common practice, no single source). */
+export const COMMON_CAPACITY_UTILISATION = 0.8;
+
 export const DESIGN_OPTION_DEFAULTS = {
   mode: 'optimal' as DesignMode,
   suctionLiftLimit_m: 5.5,
+  capacityUtilisationFactor: 1,
+  airEntryCheck: false,
   pumpEfficiency: 0.6,
   dischargeHead_m: 3,
   frictionAllowance_m: 2,
@@ -137,6 +149,8 @@ export function resolveDesignOptions({ scenario, overrides, overridesPath = '/op
     controlSpacing_m: merged.controlSpacing_m ?? null,
     controlPoints: merged.controlPoints ?? [],
     suctionLiftLimit_m: merged.suctionLiftLimit_m ?? d.suctionLiftLimit_m,
+    capacityUtilisationFactor: merged.capacityUtilisationFactor ?? d.capacityUtilisationFactor,
+    airEntryCheck: merged.airEntryCheck ?? d.airEntryCheck,
     headerLevel_m: merged.headerLevel_m ?? scenario.groundLevel_m,
     pumpEfficiency: merged.pumpEfficiency ?? d.pumpEfficiency,
     dischargeHead_m: merged.dischargeHead_m ?? d.dischargeHead_m,

@@ -41,7 +41,7 @@ export function explainDesign({ ctx, checkPoints, checkResponse, rows, solution,
       reasons.push({
         code: 'target-below-aquifer-base',
         excavationId: e.id,
-        message: `Excavation "${e.id}": its target level ${fmt(ctx.targetOf(e), 4)} m lies below the aquifer base (${a.base_m} m); wells in an unconfined aquifer cannot lower groundwater below the base — consider a cut-off, sump pumping at the base, or check the ground model.`,
+        message: `Excavation "${e.id}": its target level ${fmt(ctx.targetOf(e), 4)} m lies below the aquifer base (${a.base_m} m); ${a.kind === 'unconfined' ? 'wells in an unconfined aquifer cannot lower groundwater below the base' : `the ${a.kind} aquifer would be drained before the head reached it (the head is held at the base and flagged "dewatered")`} — consider a cut-off, sump pumping at the base, or check the ground model.`,
       });
   }
   if (nW === 0)
@@ -63,13 +63,13 @@ export function explainDesign({ ctx, checkPoints, checkResponse, rows, solution,
         code: 'no-well-influence',
         message: `${noInfluence.length} control point(s) (first at ${fmt(noInfluence[0]!.x, 7)}, ${fmt(noInfluence[0]!.y, 7)}) are not lowered by any well: they lie on or beyond a boundary, or beyond the radius of influence of every well.`,
       });
-    const group = (kind: 'capacity' | 'wetted-screen' | 'suction-lift') => wells.filter((_, j) => rates[j]! > 0 && binding[j] === kind).map((w) => w.id);
+    const group = (kind: 'capacity' | 'wetted-screen' | 'suction-lift' | 'air-entry') => wells.filter((_, j) => rates[j]! > 0 && binding[j] === kind).map((w) => w.id);
     const atCapacity = group('capacity');
     if (atCapacity.length > 0)
       reasons.push({
         code: 'well-capacity',
         wellIds: atCapacity,
-        message: `${atCapacity.length} well(s) pump at their Sichardt capacity with the whole screen wetted (${listIds(atCapacity)}): more wells, larger radius or longer screens are needed.`,
+        message: `${atCapacity.length} well(s) pump at their allowed Sichardt capacity (× ${options.capacityUtilisationFactor}) with the whole screen wetted (${listIds(atCapacity)}): more wells, larger radius or longer screens are needed.`,
       });
     const wetted = group('wetted-screen');
     if (wetted.length > 0)
@@ -84,6 +84,13 @@ export function explainDesign({ ctx, checkPoints, checkResponse, rows, solution,
         code: 'suction-lift',
         wellIds: suction,
         message: `${suction.length} well point(s) reach the suction-lift limit (pumping level ${options.suctionLiftLimit_m} m below the header at ${fmt(options.headerLevel_m, 4)} m) (${listIds(suction)}): use deep wells or ejectors, lower the header, or add a second stage.`,
+      });
+    const air = group('air-entry');
+    if (air.length > 0)
+      reasons.push({
+        code: 'air-entry',
+        wellIds: air,
+        message: `${air.length} well point(s) are drawn down to their screen top, where they would suck air (${listIds(air)}): set the screens deeper, add well points, or use deep wells or ejectors.`,
       });
     reasons.push(...constantHeadReasons(ctx, excavations, rates));
     if (reasons.length === 0 || (reasons.every((r) => r.code === 'target-below-aquifer-base') && unreachable.length === 0))

@@ -15,6 +15,7 @@ export const DesignReasonCodeSchema = Type.Union(
     Type.Literal('well-capacity'),
     Type.Literal('wetted-screen'),
     Type.Literal('suction-lift'),
+    Type.Literal('air-entry'),
     Type.Literal('constant-head-boundary'),
     Type.Literal('target-below-aquifer-base'),
     Type.Literal('no-well-influence'),
@@ -33,8 +34,8 @@ export const DesignReasonSchema = Type.Object({
 });
 export type DesignReason = Static<typeof DesignReasonSchema>;
 
-export const WellLimitSchema = Type.Union([Type.Literal('capacity'), Type.Literal('wetted-screen'), Type.Literal('suction-lift'), Type.Null()], {
-  description: 'Limit binding in the solve: Sichardt capacity with the whole screen wetted, Sichardt with the wetted screen left, suction lift; null: none.',
+export const WellLimitSchema = Type.Union([Type.Literal('capacity'), Type.Literal('wetted-screen'), Type.Literal('suction-lift'), Type.Literal('air-entry'), Type.Null()], {
+  description: 'Limit binding in the solve: Sichardt capacity (× the utilisation factor) with the whole screen wetted, the same with the wetted screen left, suction lift, air entry (a well point drawn to its screen top); null: none.',
 });
 export type WellLimit = Static<typeof WellLimitSchema>;
 
@@ -52,7 +53,8 @@ export const DesignWellResultSchema = Type.Object({
   fullScreenCapacity_m3_s: Num('Sichardt capacity with the whole screen wetted, m³/s.'),
   utilisation: NullableNum('rate / capacity (−); null when the screen is dry but the well has a rate.'),
   pumpingLevel_m: Num('Pumping level in the well at the design time (well loss included), m.'),
-  minimumPumpingLevel_m: Num('Lowest pumping level allowed (suction lift for well points, screen bottom otherwise), m.'),
+  minimumPumpingLevel_m: Num('Lowest pumping level allowed (well points: suction lift or the given screen top, air entry; screen bottom otherwise), m.'),
+  allowedCapacity_m3_s: Type.Optional(Num('Sichardt capacity at the verified pumping level × the utilisation factor: what the design may use, m³/s.')),
   limit: WellLimitSchema,
   head_m: NullableNum('Total dynamic head of this well’s pump (deep wells, ejectors), m.'),
   flags: Type.Array(Type.String()),
@@ -182,6 +184,11 @@ export const QuickCheckSchema = Type.Object({
   equivalentRadius_m: NullableNum('sqrt(A/π), m.'),
   superpositionTotal_m3_s: Num('Superposition total of the design, m³/s.'),
   ratio: NullableNum('superposition / equivalent well (−); far from 1 deserves a second look.'),
+  boundaryFactor: NullableNum('Factor the image wells of the drawn boundaries put on the unbounded estimate (1 without boundaries).'),
+  flags: Type.Array(Type.String(), {
+    description: 'Outside the estimate’s validity: elongated-plan, boundary-crosses-equivalent-well, not-developed-by-design-time, implausible-rate (figure withheld), ratio-far-from-one, not-applicable.',
+  }),
+  validity: Type.String({ description: 'Where the equivalent-well estimate holds.' }),
   note: Type.String(),
 });
 export type QuickCheck = Static<typeof QuickCheckSchema>;

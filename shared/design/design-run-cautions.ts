@@ -3,6 +3,7 @@
  * linear well limits, late-time well levels, validity flags at the check points, common-practice
  * limits, steady-state start-up flow and how the layout search ended.
  */
+import { collectCapacityAllowanceCautions } from './capacity-allowance-cautions';
 import { wellLevels, type PointResult } from '../field';
 import type { Scenario } from '../schema';
 import type { DesignContext } from './design-context';
@@ -30,7 +31,7 @@ export function collectDesignCautions({ ctx, rates, solved, endTime_s, pointResu
   const { scenario, options, wells, mode, designTime_s } = ctx;
   const a = scenario.aquifer;
   const cautions: string[] = [
-    'Idealised model (homogeneous, isotropic aquifer, infinite except the stated straight boundaries, fully penetrating wells): treat rates and levels as estimates; confirm by site investigation and pumping tests, follow local codes, and have the design checked by a licensed engineer.',
+    'Idealised model (homogeneous aquifer, infinite except the stated straight boundaries; partial screens by Hantush’s correction, other wells fully penetrating): treat rates and levels as estimates; confirm by site investigation and pumping tests, follow local codes, and have the design checked by a licensed engineer.',
   ];
   if (a.kind === 'unconfined' || wells.some((w) => w.wellLoss_s2_m5 > 0))
     cautions.push(
@@ -69,6 +70,7 @@ export function collectDesignCautions({ ctx, rates, solved, endTime_s, pointResu
       `Layout choice by mixed-integer programming: ${layoutSearch.status === 'time-limit' ? 'the search stopped at its time limit' : 'the search stopped'} with the chosen layout's cost within ${fmt(100 * (layoutSearch.mipGap ?? 0), 2)} % of the best possible; costs per well and per m³ are the options' placeholders unless you set them.`,
     );
   if (mode === 'uniform' && solvedOptimally) cautions.push('Uniform mode: every well pumps the same rate; wells at the ends of a line carry more load in reality.');
+  cautions.push(...collectCapacityAllowanceCautions(ctx, wellResults));
   if (designPointCount === 0) cautions.push('The scenario has no excavations or control points: there is nothing to design for, so every rate is 0.');
   return cautions;
 }

@@ -46,7 +46,7 @@ export function prepareDesign(input: RunDesignOptions): DesignSetup {
   const startOf = new Map<string, number>();
   for (const stage of options.stages) for (const id of stage.wellIds) startOf.set(id, stage.start_s);
   const indices = scenario.wells.map((w, i) => ({ w, i })).filter(({ w }) => mode === 'layout' || w.active !== false).map(({ i }) => i);
-  const wells = buildDesignWells({ scenario, indices, startOf, headerLevel_m: options.headerLevel_m, suctionLiftLimit_m: options.suctionLiftLimit_m });
+  const wells = buildDesignWells({ scenario, indices, startOf, headerLevel_m: options.headerLevel_m, suctionLiftLimit_m: options.suctionLiftLimit_m, capacityFactor: options.capacityUtilisationFactor, airEntryCheck: options.airEntryCheck });
   if (options.outOfServiceWell !== null && !wells.some((w) => w.id === options.outOfServiceWell)) {
     const path = `${input.options !== undefined && (input.options as Record<string, unknown>).outOfServiceWell !== undefined ? (input.optionsPath ?? '/options') : '/designOptions'}/outOfServiceWell`;
     throw new DrydigError('DRYDIG_ERR_INVALID_REQUEST', `${path}: well "${options.outOfServiceWell}" is not one of the design wells (inactive wells are not pumped)`, [

@@ -18,7 +18,7 @@
 import { solveLinearProgram, type LinearRow } from './linear-program';
 
 /** What a well-limit row stands for (the binding reason when it is tight). */
-export type LimitKind = 'wetted-screen' | 'suction-lift' | 'interval';
+export type LimitKind = 'wetted-screen' | 'suction-lift' | 'air-entry' | 'interval';
 
 export interface LimitRow {
   /** The well whose limit this is. */
@@ -42,7 +42,7 @@ export interface RateProblem {
   /** Lower bound on each rate, m³/s (linearisation intervals; default 0). */
   lower?: Float64Array;
   /** Why each upper bound is what it is. */
-  upperKind: Array<'capacity' | 'suction-lift' | 'wetted-screen'>;
+  upperKind: Array<'capacity' | 'suction-lift' | 'air-entry' | 'wetted-screen'>;
 }
 
 export type RateStatus = 'optimal' | 'infeasible' | 'time-limit' | 'error';
@@ -338,8 +338,8 @@ export async function solveLayout(p: RateProblem, costs: LayoutCosts, timeLimit_
 }
 
 /** Which limits are tight for the given rates: per well, the binding kind (null: none). */
-export function findBindingLimits(p: RateProblem, rates: Float64Array): Array<'capacity' | 'suction-lift' | 'wetted-screen' | null> {
-  const out: Array<'capacity' | 'suction-lift' | 'wetted-screen' | null> = new Array(p.nWells).fill(null);
+export function findBindingLimits(p: RateProblem, rates: Float64Array): Array<'capacity' | 'suction-lift' | 'air-entry' | 'wetted-screen' | null> {
+  const out: Array<'capacity' | 'suction-lift' | 'air-entry' | 'wetted-screen' | null> = new Array(p.nWells).fill(null);
   for (let j = 0; j < p.nWells; j++) if (rates[j]! >= p.upper[j]! * (1 - TIGHT) && p.upper[j]! >= 0 && rates[j]! > 0) out[j] = p.upperKind[j]!;
   for (const lim of p.limits) {
     if (lim.kind === 'interval') continue;

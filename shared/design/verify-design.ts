@@ -51,8 +51,9 @@ export function verifyDesign({ ctx, rates, installed, problem, checkPoints }: Ve
       wettedLength_m: wettedScreenLength(w.screenTop_m, w.screenBottom_m, level.pumpingLevel_m),
       conductivity_m_s: a.conductivity_m_s,
     });
-    if (q > 0 && q > capacity * (1 + 1e-6))
-      verificationIssues.push(`well ${w.id} pumps ${formatLitres(q)}, above its Sichardt capacity ${formatLitres(capacity)} at the verified pumping level`);
+    const allowed = capacity * (w.capacityFactor ?? 1);
+    if (q > 0 && q > allowed * (1 + 1e-6))
+      verificationIssues.push(`well ${w.id} pumps ${formatLitres(q)}, above its allowed capacity ${formatLitres(allowed)} (Sichardt ${formatLitres(capacity)} × ${w.capacityFactor ?? 1}) at the verified pumping level`);
     if (q > 0 && level.pumpingLevel_m < w.minimumLevel_m - 1e-6)
       verificationIssues.push(`well ${w.id}: pumping level ${formatFigure(level.pumpingLevel_m, 4)} m is below its floor ${formatFigure(w.minimumLevel_m, 4)} m`);
     return {
@@ -69,6 +70,7 @@ export function verifyDesign({ ctx, rates, installed, problem, checkPoints }: Ve
       utilisation: capacity > 0 ? q / capacity : q > 0 ? null : 0,
       pumpingLevel_m: level.pumpingLevel_m,
       minimumPumpingLevel_m: w.minimumLevel_m,
+      allowedCapacity_m3_s: allowed,
       limit: q > 0 ? binding[j]! : null,
       head_m: null,
       flags: level.flags,

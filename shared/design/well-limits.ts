@@ -45,10 +45,16 @@ export interface DesignWell {
   capacityPerMetre_m2_s: number;
   /** α × (screen top − screen bottom), m³/s. */
   fullScreenCapacity_m3_s: number;
-  /** Lowest pumping level allowed, m: max(header − suction lift, screen bottom) for well points, screen bottom otherwise. */
+  /**
+   * Lowest pumping level allowed, m: for well points the highest of header − suction lift, the
+   * given screen top (air entry: a well point drawn below its screen top sucks air) and the
+   * screen bottom; the screen bottom otherwise.
+   */
   minimumLevel_m: number;
   /** What sets that floor. */
-  floorKind: 'suction-lift' | 'wetted-screen';
+  floorKind: 'suction-lift' | 'air-entry' | 'wetted-screen';
+  /** Share of the Sichardt capacity the design may use (utilisation factor, −; 1 = all of it). */
+  capacityFactor?: number;
 }
 
 /** Largest rate the scenario format allows for one well, m³/s. */
@@ -62,10 +68,14 @@ export interface BuildDesignWellsOptions {
   startOf: Map<string, number>;
   headerLevel_m: number;
   suctionLiftLimit_m: number;
+  /** Share of the Sichardt capacity the rows allow (−). Default 1. */
+  capacityFactor?: number;
+  /** Well points' given screen top as a floor (air entry). Default false. */
+  airEntryCheck?: boolean;
 }
 
 /** The design wells with default screens and their limits. */
-export function buildDesignWells({ scenario, indices, startOf, headerLevel_m, suctionLiftLimit_m }: BuildDesignWellsOptions): DesignWell[] {
+export function buildDesignWells({ scenario, indices, startOf, headerLevel_m, suctionLiftLimit_m, capacityFactor = 1, airEntryCheck = false }: BuildDesignWellsOptions): DesignWell[] {
   const a = scenario.aquifer;
   const defaultTop = a.kind === 'unconfined' ? a.staticLevel_m : (a.top_m ?? a.staticLevel_m);
   return indices.map((index) => {
@@ -76,7 +86,11 @@ export function buildDesignWells({ scenario, indices, startOf, headerLevel_m, su
     const alpha = 2 * Math.PI * w.radius_m * sichardtEntranceVelocity(a.conductivity_m_s);
     const suctionFloor = headerLevel_m - suctionLiftLimit_m;
     const isWellpoint = w.kind === 'wellpoint';
-    const floorKind: DesignWell['floorKind'] = isWellpoint && suctionFloor > screenBottom_m ? 'suction-lift' : 'wetted-screen';
+    // Air entry: only a screen top the scenario gives (the default top is the water table itself).
+    const airFloor = airEntryCheck && isWellpoint && w.screenTop_m !== undefined ? screenTop_m : -Infinity;
+    const floorKind: DesignWell['floorKind'] =
+      isWellpoint && Math.max(suctionFloor, airFloor) > screenBottom_m ? (airFloor > suctionFloor ? 'air-entry' : 'suction-lift') : 'wetted-screen';
+    const floor = floorKind === 'air-entry' ? airFloor : floorKind === 'suction-lift' ? suctionFloor : screenBottom_m;
     return {
       id: w.id,
       scenarioIndex: index,
@@ -90,8 +104,9 @@ export function buildDesignWells({ scenario, indices, startOf, headerLevel_m, su
       wellLoss_s2_m5: w.wellLoss_s2_m5 ?? 0,
       capacityPerMetre_m2_s: alpha,
       fullScreenCapacity_m3_s: alpha * Math.max(0, screenTop_m - screenBottom_m),
-      minimumLevel_m: floorKind === 'suction-lift' ? suctionFloor : screenBottom_m,
+      minimumLevel_m: floor,
       floorKind,
+      capacityFactor,
     };
   });
 }
@@ -126,7 +141,7 @@ export interface BuildLimitRowsOptions {
 export interface WellLimitRows {
   limits: LimitRow[];
   upper: Float64Array;
-  upperKind: Array<'capacity' | 'suction-lift' | 'wetted-screen'>;
+  upperKind: Array<'capacity' | 'suction-lift' | 'air-entry' | 'wetted-screen'>;
   /** Lower bounds on the rates from the intervals, m³/s. */
   lower: Float64Array;
   /** The intervals used (to be narrowed in the next round). */
@@ -143,7 +158,7 @@ export function buildLimitRows({ aquifer, wells, faceResponse, variableForLevel,
   const used: LimitInterval[] = [];
   const upperKind: WellLimitRows['upperKind'] = [];
   wells.forEach((w, j) => {
-    let cap = Math.min(w.fullScreenCapacity_m3_s, MAX_WELL_RATE_M3_S);
+    let cap = Math.min(w.fullScreenCapacity_m3_s * (w.capacityFactor ?? 1), MAX_WELL_RATE_M3_S);
     let kind: WellLimitRows['upperKind'][number] = 'capacity';
     const C = w.wellLoss_s2_m5;
     if (C > 0) {
@@ -153,9 +168,10 @@ export function buildLimitRows({ aquifer, wells, faceResponse, variableForLevel,
         kind = 'wetted-screen';
       }
     }
-    if (w.floorKind === 'suction-lift' && w.minimumLevel_m >= staticLevel) {
+    const hasFloorRow = w.floorKind !== 'wetted-screen';
+    if (hasFloorRow && w.minimumLevel_m >= staticLevel) {
       cap = 0;
-      kind = 'suction-lift';
+      kind = w.floorKind;
     }
     const vFloor = variableForLevel(Math.max(w.minimumLevel_m, w.screenBottom_m));
     const given = intervals?.[j] ?? null;
@@ -179,15 +195,15 @@ export function buildLimitRows({ aquifer, wells, faceResponse, variableForLevel,
       return { A: hLo + B * vLo, B };
     };
 
-    if (w.floorKind === 'suction-lift' && w.minimumLevel_m < staticLevel && cap > 0) {
+    if (hasFloorRow && w.minimumLevel_m < staticLevel && cap > 0) {
       const L = w.minimumLevel_m;
       const { A, B } = chord(Math.min(iv.vLo, variableForLevel(L)), Math.min(iv.vHi, variableForLevel(L)));
       const coefficients = Float64Array.from(face, (b) => B * b);
       coefficients[j] = coefficients[j]! + lossSlope;
-      limits.push({ wellIndex: j, kind: 'suction-lift', coefficients, rhs: A - L + lossConst });
+      limits.push({ wellIndex: j, kind: w.floorKind === 'air-entry' ? 'air-entry' : 'suction-lift', coefficients, rhs: A - L + lossConst });
     }
     if (w.screenBottom_m < staticLevel && cap > 0) {
-      const alpha = w.capacityPerMetre_m2_s;
+      const alpha = w.capacityPerMetre_m2_s * (w.capacityFactor ?? 1);
       const vBottom = variableForLevel(w.screenBottom_m);
       const { A, B } = chord(Math.min(iv.vLo, vBottom), Math.min(iv.vHi, vBottom));
       const coefficients = Float64Array.from(face, (b) => alpha * B * b);

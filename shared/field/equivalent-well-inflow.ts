@@ -88,6 +88,12 @@ export function equivalentWellInflow({ scenario, excavationId, time_s }: Equival
       { path, message: `minus the margin lies at or below the aquifer base (${a.base_m} m)` },
     ]);
   }
+  if (a.kind !== 'unconfined' && target < a.base_m) {
+    const path = `/excavations/${index}/formationLevel_m`;
+    throw new DrydigError('DRYDIG_ERR_INVALID_SCENARIO', `${path}: the target level ${target} m is below the base ${a.base_m} m of the ${a.kind} aquifer; no head in it can fall that low (the aquifer drains first)`, [
+      { path, message: `minus the margin lies below the aquifer base (${a.base_m} m)` },
+    ]);
+  }
   if (a.kind !== 'unconfined' && a.top_m !== undefined && target < a.top_m) {
     assumptions.push(`The target ${formatMetres(target)} m is below the aquifer top ${formatMetres(a.top_m)} m: near the excavation the aquifer turns unconfined. At steady state the thinner saturated section makes the confined formula slightly overstate the rate; in a transient run the water drained from the dewatered zone (specific yield) is not counted, so the rate needed to reach the target in time may be understated.`);
   }

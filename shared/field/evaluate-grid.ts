@@ -3,6 +3,7 @@ import { isInsideBoundaries } from './image-wells';
 import { emptyFlagCounts, interpretSum, type InterpretedSum } from './interpret-sum';
 import { prepareField } from './prepare-field';
 import { superposeOnGrid } from './superpose';
+import { addPartialPenetrationOnGrid } from './partial-penetration-sum';
 import { FLAG_BITS, type EvaluateGridOptions, type GridResult, type GridSpec, type PointFlag } from './types';
 
 /** Most nodes one grid evaluation accepts (about 80 MB of results). */
@@ -36,6 +37,7 @@ export function evaluateGrid({ scenario, grid, time_s }: EvaluateGridOptions): G
   const field = prepareField({ scenario, time_s });
   const { model, sources, geometry } = field;
   const sums = superposeOnGrid(sources, grid);
+  if (field.penetration) addPartialPenetrationOnGrid(field.penetration, sources, grid, sums.value);
   const [nx, ny] = grid.counts;
   const n = nx * ny;
   const drawdown = new Float64Array(n);

@@ -3,6 +3,7 @@ import { isInsideBoundaries } from './image-wells';
 import { flagsFromBits, interpretSum, type InterpretedSum } from './interpret-sum';
 import { prepareField, type PreparedField } from './prepare-field';
 import { superposeAtPoint, type PointSum } from './superpose';
+import { partialPenetrationAt } from './partial-penetration-sum';
 import { FLAG_BITS, type EvaluatePointsOptions, type EvaluatePointsResult, type PointResult } from './types';
 
 /** Checks points are finite pairs; names the first bad one (`/points/3`). */
@@ -30,6 +31,7 @@ export function evaluatePreparedPoint(field: PreparedField, x: number, y: number
     return { x, y, time_s: model.time_s, level_m: model.staticLevel_m, drawdown_m: 0, flags: ['beyond-boundary'], sum: 0 };
   }
   const sum: PointSum = superposeAtPoint(sources, x, y, { value: 0, withinWell: false, reached: false }, skipWell);
+  if (field.penetration) sum.value += partialPenetrationAt(field.penetration, sources, x, y, skipWell);
   const out: InterpretedSum = interpretSum(model, sum.value, { level_m: 0, drawdown_m: 0, flagBits: 0 });
   let bits = out.flagBits;
   if (sum.withinWell) bits |= FLAG_BITS['within-well-radius'];

@@ -110,7 +110,7 @@ export function resolveFieldModel({ scenario, time_s }: ResolveFieldModelOptions
   const T = a.conductivity_m_s * thickness;
   const steady = t === null;
   const notes: string[] = [
-    'Idealised model: homogeneous, isotropic aquifer of uniform thickness, infinite except for the stated straight boundaries, fully penetrating wells. Results are estimates; confirm with site investigation, local codes and a licensed engineer.',
+    'Idealised model: homogeneous aquifer of uniform thickness (isotropic except for the Kh/Kv of the partial-penetration correction), infinite except for the stated straight boundaries; wells screened over part of the aquifer get Hantush’s correction, the rest penetrate fully. Results are estimates; confirm with site investigation, local codes and a licensed engineer.',
   ];
 
   const base: Omit<FieldModel, 'method' | 'storativity' | 'variable'> = {

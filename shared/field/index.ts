@@ -18,3 +18,5 @@ export * from './well-levels';
 export * from './log-spaced-times';
 export * from './unit-response-matrix';
 export * from './equivalent-well-inflow';
+export * from './partial-penetration-sum';
+export * from './equivalent-well-boundaries';

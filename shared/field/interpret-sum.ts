@@ -17,7 +17,8 @@ export interface InterpretedSum {
 /**
  * Interprets a superposed sum (s for confined/leaky, s_c for unconfined), writing into `out`.
  * Unconfined: s = H − sqrt(H² − 2H·s_c) exactly; where 2H·s_c ≥ H² the point is dewatered and
- * reported at the base with drawdown H (flagged, never NaN).
+ * reported at the base with drawdown H (flagged, never NaN). Confined/leaky: a head the solution
+ * puts below the aquifer base is held at the base and flagged `dewatered` as well.
  */
 export function interpretSum(model: FieldModel, sum: number, out: InterpretedSum): InterpretedSum {
   let bits = 0;
@@ -38,6 +39,13 @@ export function interpretSum(model: FieldModel, sum: number, out: InterpretedSum
     out.level_m = model.staticLevel_m - sum;
     out.drawdown_m = sum;
     if (model.top_m !== undefined && out.level_m < model.top_m) bits |= FLAG_BITS['confined-to-unconfined'];
+    if (out.level_m < model.base_m) {
+      // The confined solution would put the head below the aquifer's base: the aquifer is drained
+      // there. Hold the head at the base and flag it; the model says nothing lower.
+      out.level_m = model.base_m;
+      out.drawdown_m = model.staticLevel_m - model.base_m;
+      bits |= FLAG_BITS.dewatered;
+    }
   }
   out.flagBits = bits;
   return out;

@@ -21,7 +21,8 @@ export interface LevelFromPotentialDrawdownOptions {
  * (evaluations flag such points "dewatered").
  */
 export function levelFromPotentialDrawdown({ aquifer, potentialDrawdown_m }: LevelFromPotentialDrawdownOptions): number {
-  if (aquifer.kind !== 'unconfined') return aquifer.staticLevel_m - potentialDrawdown_m;
+  // A confined head below the base means the aquifer is drained there: held at the base.
+  if (aquifer.kind !== 'unconfined') return Math.max(aquifer.staticLevel_m - potentialDrawdown_m, aquifer.base_m);
   const H = aquifer.staticLevel_m - aquifer.base_m;
   const disc = H * H - 2 * H * potentialDrawdown_m;
   return disc > 0 ? aquifer.base_m + Math.sqrt(disc) : aquifer.base_m;

@@ -7,6 +7,7 @@ import { resolveFieldModel, formatMetres, type FieldModel } from './field-model'
 import { chooseParallelTerms, countImagesPerWell, resolveBoundaryGeometry, type BoundaryGeometry } from './image-wells';
 import { buildSourceSet, getMaxUnitResponse, getModelRateSteps, type SourceSet } from './source-set';
 import type { RateStep } from './rate-steps';
+import { buildPenetrationTable, type PenetrationTable } from './partial-penetration-sum';
 import type { ModelInfo } from './types';
 
 /** A field ready to evaluate. */
@@ -17,6 +18,8 @@ export interface PreparedField {
   /** Parallel boundaries: terms N per side. */
   terms: number;
   sources: SourceSet;
+  /** Wells screened over part of the aquifer (Hantush 1961 correction); null when all penetrate fully. */
+  penetration: PenetrationTable | null;
   info: ModelInfo;
 }
 
@@ -35,6 +38,7 @@ export interface PrepareFieldOptions {
 export function prepareField({ scenario, time_s, stepsOf, boundRate_m3_s }: PrepareFieldOptions): PreparedField {
   const model = resolveFieldModel({ scenario, time_s });
   const geometry = resolveBoundaryGeometry(scenario);
+  refuseSteadyStrip(model, geometry);
   const steps = stepsOf ?? ((i: number) => getModelRateSteps(scenario, model, i));
   const notes = [...model.notes];
 
@@ -85,6 +89,8 @@ export function prepareField({ scenario, time_s, stepsOf, boundRate_m3_s }: Prep
     }
   }
   const sources = buildSourceSet({ scenario, model, geometry, terms, stepsOf: steps });
+  const penetration = buildPenetrationTable(scenario, model);
+  if (penetration) notes.push(...describePenetration(scenario, model, penetration));
   const info: ModelInfo = {
     method: model.method,
     transmissivity_m2_s: model.transmissivity_m2_s,
@@ -94,5 +100,41 @@ export function prepareField({ scenario, time_s, stepsOf, boundRate_m3_s }: Prep
   if (model.influenceRadius_m !== undefined) info.influenceRadius_m = model.influenceRadius_m;
   if (model.influenceRadiusSource !== undefined) info.influenceRadiusSource = model.influenceRadiusSource;
   if (bound !== undefined) info.truncationBound_m = bound;
-  return { scenario, model, geometry, terms, sources, info };
+  return { scenario, model, geometry, terms, sources, penetration, info };
+}
+
+/** Notes on the partial-penetration correction: what it does, where it matters, and its time validity. */
+function describePenetration(scenario: Scenario, model: FieldModel, table: PenetrationTable): string[] {
+  const ratio = table.anisotropyKhKv;
+  const D = table.thickness_m;
+  const partial = scenario.wells.filter((_, i) => table.screens[i] !== null).length;
+  const notes = [
+    `${partial} well(s) are screened over part of the aquifer: Hantush's (1961) partial-penetration correction (Kruseman & de Ridder 1994, ch. 10) is added, with Kh/Kv = ${ratio}${scenario.aquifer.anisotropyKhKv === undefined ? ' (default: isotropic; give aquifer.anisotropyKhKv)' : ''}; it matters within about 1.5·D·√(Kh/Kv) = ${formatMetres(1.5 * D * Math.sqrt(ratio))} m of such a well. Plan points are read at the top of the aquifer (the water table when unconfined), pumping levels as the mean over the well's own screen.`,
+  ];
+  if (model.time_s !== null) {
+    const Kv = scenario.aquifer.conductivity_m_s / ratio;
+    const late = (D * model.storativity) / (2 * Kv);
+    if (model.time_s < late)
+      notes.push(`At t = ${formatMetres(model.time_s)} s, earlier than D·S/(2·Kv) = ${formatMetres(late)} s, the late-time correction used is approximate (Kruseman & de Ridder, from memory).`);
+  }
+  if (model.kind === 'unconfined') notes.push('Unconfined: the correction is taken on the static saturated thickness and added to the discharge potential; the drawn-down thickness near the well is thinner, so treat pumping levels as approximate.');
+  return notes;
+}
+
+/**
+ * Steady pumping between two parallel no-flow lines has no solution without recharge: the
+ * drawdown in the strip grows without bound (it becomes linear flow along the strip). A radius of
+ * influence there would be arbitrary, so the run is refused unless the aquifer is leaky (de Glee:
+ * leakage balances the pumping). A constant-head side makes the configuration one with a
+ * steady state and is accepted.
+ */
+function refuseSteadyStrip(model: FieldModel, geometry: BoundaryGeometry): void {
+  if (model.time_s !== null || model.kind === 'leaky' || geometry.configuration !== 'parallel') return;
+  if (geometry.lines.some((l) => l.kind === 'constant-head')) return;
+  const path = '/design/time_s';
+  throw new DrydigError(
+    'DRYDIG_ERR_NO_STEADY_STATE',
+    `${path}: a steady state between two parallel no-flow boundaries (/boundaries/${geometry.lines[0]!.index} and /boundaries/${geometry.lines[1]!.index}) does not exist: nothing recharges the strip, so drawdown keeps growing; give a design time, make one side constant-head, or use a leaky aquifer`,
+    [{ path, message: 'is null (steady state), but the strip between two parallel no-flow boundaries has no steady state without recharge' }],
+  );
 }

@@ -7,6 +7,7 @@ import { prepareField } from './prepare-field';
 import type { RateStep } from './rate-steps';
 import { getModelRateSteps } from './source-set';
 import { superposeAtPoint, superposeByWell, type PointSum } from './superpose';
+import { partialPenetrationAt } from './partial-penetration-sum';
 import type { ModelInfo } from './types';
 
 /** Options of {@link unitResponseMatrix}. */
@@ -100,6 +101,11 @@ export function unitResponseMatrix({ scenario, points, time_s, wellIds }: UnitRe
     }
     superposeByWell(unitField.sources, x, y, values, p * nW, columnOfWell);
     background[p] = superposeAtPoint(backgroundField.sources, x, y, sum).value;
+    const penetration = unitField.penetration;
+    if (penetration) {
+      partialPenetrationAt(penetration, unitField.sources, x, y, -1, { row: values, rowOffset: p * nW, column: columnOfWell });
+      background[p]! += partialPenetrationAt(penetration, backgroundField.sources, x, y);
+    }
   });
 
   const aquifer = scenario.aquifer;

@@ -62,6 +62,12 @@ export const DesignOptionsSchema = Type.Object(
     suctionLiftLimit_m: Type.Optional(
       Type.Number({ exclusiveMinimum: 0, maximum: 10, description: 'Well points: deepest pumping level below the header, m. Default 5.5 (common practice: 5–6 m).' }),
     ),
+    capacityUtilisationFactor: Type.Optional(
+      Type.Number({ exclusiveMinimum: 0, maximum: 1, description: 'Share of each well’s Sichardt capacity the design may use (−). Common practice 0.8 (an allowance for screen clogging and the scatter of Sichardt’s rule); default 1 (the whole capacity, flagged in the cautions).' }),
+    ),
+    airEntryCheck: Type.Optional(
+      Type.Boolean({ description: 'Keep each well point’s pumping level above its given screen top (air entry) as a limit row. Default false (the cautions list well points drawn below it).' }),
+    ),
     headerLevel_m: Type.Optional(Type.Number({ description: 'Well-point header elevation, m. Default: ground level.' })),
     pumpEfficiency: Type.Optional(
       Type.Number({ exclusiveMinimum: 0, maximum: 1, description: 'Wire-to-water efficiency η of the pump sets (−). Default 0.6 (common practice).' }),

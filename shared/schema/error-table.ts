@@ -46,6 +46,11 @@ export const ERROR_TABLE = {
     title: 'The boundary geometry is not one the image-well method handles',
     fix: 'Use one straight line, two perpendicular lines, or two parallel lines, with all wells on one side.',
   },
+  DRYDIG_ERR_NO_STEADY_STATE: {
+    status: 400,
+    title: 'The aquifer has no steady state for this geometry',
+    fix: 'Between two parallel no-flow boundaries nothing recharges the pumped water: give a design time (transient), make one side constant-head, or use a leaky aquifer.',
+  },
   DRYDIG_ERR_UNSUPPORTED_MEDIA_TYPE: {
     status: 415,
     title: 'The body must be JSON',

@@ -32,6 +32,9 @@ export const AquiferSchema = Type.Object(
     storativity: Type.Optional(Finite({ exclusiveMinimum: 0, maximum: 1, description: 'Confined/leaky: storativity S (−).' })),
     specificYield: Type.Optional(Finite({ exclusiveMinimum: 0, maximum: 1, description: 'Unconfined: specific yield Sy (−).' })),
     leakageFactor_m: Type.Optional(Finite({ exclusiveMinimum: 0, description: 'Leaky only: leakage factor B = sqrt(T·c), m.' })),
+    anisotropyKhKv: Type.Optional(
+      Finite({ minimum: 0.01, maximum: 10_000, description: 'Anisotropy Kh/Kv (−) for the partial-penetration correction of wells screened over part of the aquifer. Default 1 (isotropic).' }),
+    ),
     influenceRadius_m: Type.Optional(
       Finite({ exclusiveMinimum: 0, description: 'Steady runs: radius of influence R, m. Absent: Sichardt estimate.' }),
     ),

@@ -45,9 +45,10 @@ describe('unitResponseMatrix', () => {
 
   it('unitResponseMatrix entries are the unit responses of constant pumping from t = 0, whatever the schedule', () => {
     const scheduled = scenarioWith({ aquifer: confinedAquifer(), wells: [well('S', 0, 0, { schedule: [{ from_s: 0, rate_m3_s: 0.01 }, { from_s: 100, rate_m3_s: 0 }] })] });
-    const constant = scenarioWith({ aquifer: confinedAquifer(), wells: [well('S', 0, 0, { rate_m3_s: 1 })] });
+    // 0.1 m³/s keeps the head above the aquifer base (below it the engine holds the head at the base).
+    const constant = scenarioWith({ aquifer: confinedAquifer(), wells: [well('S', 0, 0, { rate_m3_s: 0.1 })] });
     const m = unitResponseMatrix({ scenario: scheduled, points: [[10, 0]] });
-    expectClose(m.values[0]!, evaluatePoints({ scenario: constant, points: [[10, 0]] }).points[0]!.drawdown_m, { rel: 1e-13 });
+    expectClose(m.values[0]! * 0.1, evaluatePoints({ scenario: constant, points: [[10, 0]] }).points[0]!.drawdown_m, { rel: 1e-13 });
   });
 
   it('unitResponseMatrix names an unknown or repeated well id', () => {

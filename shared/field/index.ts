@@ -18,3 +18,4 @@ export * from './well-levels';
 export * from './log-spaced-times';
 export * from './unit-response-matrix';
 export * from './equivalent-well-inflow';
+export * from './validity-wording';

@@ -22,6 +22,7 @@ import { formatDuration } from './time-format';
 import { stepDecimals } from './step-decimals';
 import { methodName } from './results-panel';
 import './plan-map';
+import './scenario-warnings';
 import './map-legend';
 import './shortfall-badges';
 import './results-panel';
@@ -747,6 +748,7 @@ export class DrydigApp extends LightElement {
           <p class="dd-map-caution">Idealised model (homogeneous, isotropic, infinite except stated boundaries) — estimates for design; defer to site investigation, local codes and a licensed engineer.</p>
         </section>
         <aside class="dd-side" aria-label="Panels">
+          <scenario-warnings .scenario=${s}></scenario-warnings>
           <nav class="dd-tabs" role="tablist">
             ${TABS.map(([t, label]) => html`<button type="button" role="tab" name=${`tab-${t}`} aria-selected=${this.tab === t} class=${this.tab === t ? 'dd-on' : ''} @click=${() => (this.tab = t)}>${label}</button>`)}
           </nav>

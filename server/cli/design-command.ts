@@ -11,6 +11,7 @@ import { parseOptions, usageError } from './parse-options';
 import { parseStrictNumber } from './points-argument';
 import { parseJsonText, readScenarioFile, readTextFile } from './read-scenario-file';
 import { parseTimeValue } from './time-argument';
+import { writeWarnings } from './write-warnings';
 
 export const DESIGN_HELP = `drydig design SCENARIO.json [--mode uniform|optimal|layout] [options] [--pretty | --csv]
 
@@ -111,6 +112,7 @@ export const runDesignCommand: CliCommand = async (args, io) => {
 
   const result = await runDesign({ scenario, mode, options: Object.keys(options).length > 0 ? options : undefined, optionsPath: '/options' });
   io.stdout(values.csv ? designResultToCsv(result) : `${JSON.stringify(result, jsonNumbers, values.pretty ? 2 : undefined)}\n`);
+  if (values.csv) writeWarnings(result.warnings, io);
   return 0;
 };
 

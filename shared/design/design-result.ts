@@ -5,7 +5,7 @@
  * derive from it, and the HTTP route answers with it (so the OpenAPI document lists it).
  */
 import { Type, type Static } from '@sinclair/typebox';
-import { DesignModeSchema } from '../schema';
+import { DesignModeSchema, ScenarioWarningSchema } from '../schema';
 
 const Num = (description: string) => Type.Number({ description });
 const NullableNum = (description: string) => Type.Union([Type.Number(), Type.Null()], { description });
@@ -188,6 +188,7 @@ export const DesignResultSchema = Type.Object(
     }),
     cautions: Type.Array(Type.String()),
     modelNotes: Type.Array(Type.String()),
+    warnings: Type.Array(ScenarioWarningSchema, { description: 'Scenario fields accepted but probably not meant, by JSON pointer (not errors).' }),
   },
   { description: 'A design (design.md section 4) with its checks, bid summary and cautions.' },
 );

@@ -11,6 +11,7 @@
  * quick check (`quick-check.ts`) → bid summary (`bid-summary.ts`) → cautions
  * (`design-run-cautions.ts`). A new check is a new stage here, not a branch inside another.
  */
+import { findScenarioWarnings } from '../schema';
 import type { DesignResult } from './design-result';
 import { summariseDesign } from './bid-summary';
 import { computeTimes } from './design-times';
@@ -116,5 +117,6 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     },
     cautions,
     modelNotes: [...verified.modelNotes, `Design run took ${Date.now() - started} ms.`],
+    warnings: findScenarioWarnings(scenario, input.scenarioPath ?? ''),
   };
 }

@@ -7,3 +7,4 @@ export * from './view-schema';
 export * from './pumping-test-record-schema';
 export * from './section-schema';
 export * from './validate-section';
+export * from './scenario-warnings';

@@ -351,7 +351,8 @@ export class DesignPanel extends LightElement {
         ${sm.undersizedPumpWellIds.length > 0 ? html`<dt class="dd-bad">Need a larger pump</dt><dd class="dd-bad">${sm.undersizedPumpWellIds.slice(0, 6).join(', ')}${sm.undersizedPumpWellIds.length > 6 ? '…' : ''}</dd>` : nothing}
         <dt>Energy over ${formatDuration(sm.duration_s)}</dt><dd>${money(sm.energy_kWh)} kWh</dd>
         <dt>Discharge volume (permit)</dt><dd>${money(sm.dischargeVolume_m3)} m³</dd>
-        <dt>Cost: energy + volume + wells</dt><dd>${money(sm.energyCost)} + ${money(sm.pumpedVolumeCost)} + ${money(sm.wellCost)} = ${money(sm.totalCost)}</dd>
+        <dt>Cost (${sm.currency}): energy + volume + wells</dt><dd data-cost>${money(sm.energyCost)} + ${money(sm.pumpedVolumeCost)} + ${money(sm.wellCost)} = ${money(sm.totalCost)} ${sm.currency}</dd>
+        ${sm.idleWellIds.length > 0 ? html`<dt>Idle wells (may be omitted)</dt><dd data-idle-count>${sm.idleWellIds.length}: not in quantities or cost</dd>` : nothing}
         <dt>Quantities</dt><dd>${sm.quantities.wells} wells (${sm.quantities.wellsByKind.wellpoint} well points, ${sm.quantities.wellsByKind.deep} deep, ${sm.quantities.wellsByKind.ejector} ejectors), ${inUnit(sm.quantities.screen_m, this.units.length)} screen, ${inUnit(sm.quantities.header_m, this.units.length)} header</dd>
       </dl>
       <h3>Checks</h3>
@@ -370,7 +371,7 @@ export class DesignPanel extends LightElement {
         <div class="dd-design-wells"><table class="dd-design-table">
           <thead><tr><th>Well</th><th>${rateUnit}</th><th>cap. ${rateUnit}</th><th>use</th><th>pumping level ${lengthUnit}</th><th>limit</th></tr></thead>
           <tbody>${r.wells.map(
-            (w) => html`<tr data-well=${w.id}><td>${w.id}${w.installed ? '' : ' ·'}</td><td>${fixed(fromSi(w.rate_m3_s, rateUnit), 3)}</td><td>${fixed(fromSi(w.capacity_m3_s, rateUnit), 3)}</td>
+            (w) => html`<tr data-well=${w.id}><td>${w.id}${w.idle ? html` <small class="dd-idle" data-idle>${w.note ?? 'idle'}</small>` : w.installed ? '' : ' ·'}</td><td>${fixed(fromSi(w.rate_m3_s, rateUnit), 3)}</td><td>${fixed(fromSi(w.capacity_m3_s, rateUnit), 3)}</td>
               <td>${w.utilisation === null ? '—' : `${Math.round(w.utilisation * 100)} %`}</td><td>${fixed(fromSi(w.pumpingLevel_m, lengthUnit))}</td><td>${w.limit ?? ''}</td></tr>`,
           )}</tbody></table></div>
       </details>

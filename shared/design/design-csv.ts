@@ -37,10 +37,12 @@ export function designResultToCsv(result: DesignResult): string {
   kv('duration', s.duration_s, 's');
   kv('energy', s.energy_kWh, 'kWh');
   kv('discharge volume', s.dischargeVolume_m3, 'm3');
-  kv('energy cost', s.energyCost, 'currency');
-  kv('pumped volume cost', s.pumpedVolumeCost, 'currency');
-  kv('well cost', s.wellCost, 'currency');
-  kv('total cost', s.totalCost, 'currency');
+  kv('energy cost', s.energyCost, s.currency);
+  kv('pumped volume cost', s.pumpedVolumeCost, s.currency);
+  kv('well cost', s.wellCost, s.currency);
+  kv('total cost', s.totalCost, s.currency);
+  kv('currency', s.currency);
+  kv('idle wells (may be omitted)', s.idleWellIds.length, 'count');
   kv('wells', s.quantities.wells, 'count');
   kv('well points', s.quantities.wellsByKind.wellpoint, 'count');
   kv('deep wells', s.quantities.wellsByKind.deep, 'count');

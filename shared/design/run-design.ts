@@ -18,12 +18,14 @@ import { computeTimes } from './design-times';
 import { prepareDesign, placeDesignPoints, type RunDesignOptions } from './design-setup';
 import { computeDesignResponses } from './design-responses';
 import { solveDesignRates } from './solve-design-rates';
+import { roundDesignRates } from './round-design-rates';
 import { verifyDesign } from './verify-design';
 import { areUserPointsMet, buildControlPointResults, summariseExcavations } from './excavation-results';
 import { explainDesign, findUnreachablePoints } from './design-reasons';
 import { checkOneWellOut } from './out-of-service-check';
 import { buildQuickChecks } from './quick-check';
 import { collectDesignCautions } from './design-run-cautions';
+import { describeRounding } from './design-wording';
 
 /**
  * Runs a design. Throws `DrydigError` naming the field for bad input; never returns NaN
@@ -42,7 +44,8 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   const responses = computeDesignResponses(ctx, designPoints, checkPoints);
 
   const { solution, problem, rows, rounds, solveTime_ms, layoutSearch } = await solveDesignRates({ ctx, designPoints, checkPoints, responses, progress });
-  const rates = solution.rates;
+  // Practical rates (minimum, step) before verification, so the field engine re-checks the rounded design.
+  const { rates, rounding } = roundDesignRates({ rates: solution.rates, wellIds: wells.map((w) => w.id), options });
   const installed = solution.installed ?? new Uint8Array(wells.length).fill(1);
 
   progress('verifying', 0.55);
@@ -115,7 +118,8 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
       ...(layoutSearch !== null ? { layoutStatus: layoutSearch.status, ...(layoutSearch.mipGap !== undefined ? { mipGap: layoutSearch.mipGap } : {}) } : {}),
       solveTime_ms: Math.max(solveTime_ms, 0),
     },
-    cautions,
+    cautions: rounding === null ? cautions : [...cautions, describeRounding(rounding)],
+    ...(rounding !== null ? { rateRounding: rounding } : {}),
     modelNotes: [...verified.modelNotes, `Design run took ${Date.now() - started} ms.`],
     warnings: findScenarioWarnings(scenario, input.scenarioPath ?? ''),
   };

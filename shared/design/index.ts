@@ -23,3 +23,4 @@ export * from './quick-check';
 export * from './design-run-cautions';
 export * from './run-design';
 export * from './round-design-rates';
+export * from './csv-column-units';

@@ -400,7 +400,8 @@ export class DrydigApp extends LightElement {
         const u = this.units;
         const p = this.projection;
         const ll = p?.ok ? ` · ${formatLonLat(...p.toLonLat(x, y))}` : '';
-        this.cursor = `E ${formatQuantity(x, u.coordinate, { decimals: 2, withUnit: false })}   N ${formatQuantity(y, u.coordinate, { decimals: 2, withUnit: false })} ${fromSi(1, u.coordinate) === 1 ? 'm' : 'ft'}${ll}`;
+        const cu = fromSi(1, u.coordinate) === 1 ? 'm' : 'ft';
+        this.cursor = `E ${formatQuantity(x, u.coordinate, { decimals: 2, withUnit: false })} ${cu}   N ${formatQuantity(y, u.coordinate, { decimals: 2, withUnit: false })} ${cu}${ll}`;
         return;
       }
       case 'map-click': {

@@ -8,6 +8,7 @@ import { healthRoutes } from './routes/health';
 import { evaluateRoutes } from './routes/evaluate';
 import { installRouteCatalog, openapiRoutes } from './routes/openapi';
 import { designRoutes } from './routes/design';
+import { validateRoutes } from './routes/validate';
 import { pumpingTestRoutes } from './routes/pumping-test';
 import { sectionRoutes } from './routes/section';
 import { scenarioRoutes } from './routes/scenarios';
@@ -79,6 +80,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   await app.register(healthRoutes, { prefix: '/api/v1', limits: { bodyLimit_bytes, maxGridNodes, maxPoints } });
   await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes, maxPoints });
   await app.register(designRoutes, { prefix: '/api/v1' });
+  await app.register(validateRoutes, { prefix: '/api/v1' });
   await app.register(pumpingTestRoutes, { prefix: '/api/v1' });
   await app.register(sectionRoutes, { prefix: '/api/v1', solver: options.section });
   await app.register(scenarioRoutes, { prefix: '/api/v1', dataDir: options.dataDir ?? 'data' });

@@ -20,7 +20,7 @@ import { linearScale, niceTicks } from './chart-axes';
 import { formatDuration } from './time-format';
 import './floor-check-view';
 import { CAUTION_TEXT } from './caution-note';
-import { defaultDisplayUnits, formatQuantity, fromSi, type DisplayUnits, type FormatQuantityOptions, type UnitId } from '../../shared/units';
+import { defaultDisplayUnits, formatQuantity, fromSi, toSi, type DisplayUnits, type FormatQuantityOptions, type UnitId } from '../../shared/units';
 
 /** The options the panel edits, in display units (converted to SI when the request is built). */
 interface PanelOptions {
@@ -29,7 +29,8 @@ interface PanelOptions {
   headerLevel_m: string;
   pumpEfficiency: string;
   safetyFactor: string;
-  pumpCapacity_L_s: string;
+  /** In the app's display rate unit, the unit flows are typed in everywhere else (well rates). */
+  pumpCapacity_rate: string;
   energyPrice_per_kWh: string;
   wellCost: string;
   pumpedVolumeCost_per_m3: string;
@@ -38,7 +39,7 @@ interface PanelOptions {
 }
 
 const EMPTY_OPTIONS: PanelOptions = {
-  controlSpacing_m: '', suctionLiftLimit_m: '', headerLevel_m: '', pumpEfficiency: '', safetyFactor: '', pumpCapacity_L_s: '',
+  controlSpacing_m: '', suctionLiftLimit_m: '', headerLevel_m: '', pumpEfficiency: '', safetyFactor: '', pumpCapacity_rate: '',
   energyPrice_per_kWh: '', wellCost: '', pumpedVolumeCost_per_m3: '', duration_d: '', outOfServiceWell: '',
 };
 
@@ -159,9 +160,9 @@ export class DesignPanel extends LightElement {
     return inUnit(value_m, this.units.length, { decimals });
   }
 
-  /** A site coordinate in the display length unit, as the map's read-out gives it (no unit label). */
+  /** A site coordinate in the site grid's unit (a CRS keeps its own), as the map's read-out gives it (no unit label). */
   private coordinate(value_m: number): string {
-    return fixed(fromSi(value_m, this.units.length), 1);
+    return fixed(fromSi(value_m, this.units.coordinate), 1);
   }
 
   /** A small signed level difference: centimetres in metric units, else the display length unit. */
@@ -184,7 +185,7 @@ export class DesignPanel extends LightElement {
       ['headerLevel_m', 'headerLevel_m', 1, 'header level'],
       ['pumpEfficiency', 'pumpEfficiency', 1, 'pump efficiency'],
       ['safetyFactor', 'safetyFactor', 1, 'safety factor'],
-      ['pumpCapacity_L_s', 'pumpCapacity_m3_s', 1e-3, 'pump capacity'],
+      ['pumpCapacity_rate', 'pumpCapacity_m3_s', toSi(1, this.units.rate), 'pump capacity'],
       ['energyPrice_per_kWh', 'energyPrice_per_kWh', 1, 'energy price'],
       ['wellCost', 'wellCost', 1, 'cost per well'],
       ['pumpedVolumeCost_per_m3', 'pumpedVolumeCost_per_m3', 1, 'cost per m³'],
@@ -288,7 +289,7 @@ export class DesignPanel extends LightElement {
           ${this.field('headerLevel_m', 'Header level', 'm', s ? String(s.groundLevel_m) : 'ground')}
           ${this.field('pumpEfficiency', 'Pump efficiency', '−', '0.6')}
           ${this.field('safetyFactor', 'Safety factor', '−', '1.25')}
-          ${this.field('pumpCapacity_L_s', 'Pump capacity', 'L/s', '20')}
+          ${this.field('pumpCapacity_rate', 'Pump capacity', this.units.rate, formatQuantity(0.02, this.units.rate, { withUnit: false }))}
           ${this.field('duration_d', 'Duration', 'd', '90')}
           ${this.field('energyPrice_per_kWh', 'Energy price', '/kWh', '0.2')}
           ${this.field('wellCost', 'Cost per well', '', '5000')}
@@ -349,11 +350,12 @@ export class DesignPanel extends LightElement {
         ${sm.headerSystemHead_m !== null ? html`<dt>Header pump head</dt><dd>${this.length(sm.headerSystemHead_m, 1)}</dd>` : nothing}
         <dt>Hydraulic / input power</dt><dd>${num(sm.hydraulicPower_kW)} / ${num(sm.inputPower_kW)} kW</dd>
         <dt>Installed power (× safety factor)</dt><dd>${num(sm.installedPower_kW)} kW</dd>
-        <dt>Pumps (${inUnit(sm.pumpCapacity_m3_s, isMetricRate(this.units) ? 'L/s' : this.units.rate)} each)</dt><dd>${sm.dutyPumps} duty + ${sm.standbyPumps} standby</dd>
+        <dt>Pumps (${inUnit(sm.pumpCapacity_m3_s, this.units.rate)} each)</dt><dd>${sm.dutyPumps} duty + ${sm.standbyPumps} standby</dd>
         ${sm.undersizedPumpWellIds.length > 0 ? html`<dt class="dd-bad">Need a larger pump</dt><dd class="dd-bad">${sm.undersizedPumpWellIds.slice(0, 6).join(', ')}${sm.undersizedPumpWellIds.length > 6 ? '…' : ''}</dd>` : nothing}
         <dt>Energy over ${formatDuration(sm.duration_s)}</dt><dd>${money(sm.energy_kWh)} kWh</dd>
-        <dt>Discharge volume (permit)</dt><dd>${money(sm.dischargeVolume_m3)} m³</dd>
-        <dt>Cost: energy + volume + wells</dt><dd>${money(sm.energyCost)} + ${money(sm.pumpedVolumeCost)} + ${money(sm.wellCost)} = ${money(sm.totalCost)}</dd>
+        <dt>Discharge volume (permit)</dt><dd data-volume>${money(fromSi(sm.dischargeVolume_m3, this.units.volume))} ${this.units.volume}</dd>
+        <dt>Cost (${sm.currency}): energy + volume + wells</dt><dd data-cost>${money(sm.energyCost)} + ${money(sm.pumpedVolumeCost)} + ${money(sm.wellCost)} = ${money(sm.totalCost)} ${sm.currency}</dd>
+        ${sm.idleWellIds.length > 0 ? html`<dt>Idle wells (may be omitted)</dt><dd data-idle-count>${sm.idleWellIds.length}: not in quantities or cost</dd>` : nothing}
         <dt>Quantities</dt><dd>${sm.quantities.wells} wells (${sm.quantities.wellsByKind.wellpoint} well points, ${sm.quantities.wellsByKind.deep} deep, ${sm.quantities.wellsByKind.ejector} ejectors), ${inUnit(sm.quantities.screen_m, this.units.length)} screen, ${inUnit(sm.quantities.header_m, this.units.length)} header</dd>
       </dl>
       <h3>Checks</h3>
@@ -372,7 +374,7 @@ export class DesignPanel extends LightElement {
         <div class="dd-design-wells"><table class="dd-design-table">
           <thead><tr><th>Well</th><th>${rateUnit}</th><th>cap. ${rateUnit}</th><th>use</th><th>pumping level ${lengthUnit}</th><th>limit</th></tr></thead>
           <tbody>${r.wells.map(
-            (w) => html`<tr data-well=${w.id}><td>${w.id}${w.installed ? '' : ' ·'}</td><td>${fixed(fromSi(w.rate_m3_s, rateUnit), 3)}</td><td>${fixed(fromSi(w.capacity_m3_s, rateUnit), 3)}</td>
+            (w) => html`<tr data-well=${w.id}><td>${w.id}${w.idle ? html` <small class="dd-idle" data-idle>${w.note ?? 'idle'}</small>` : w.installed ? '' : ' ·'}</td><td>${fixed(fromSi(w.rate_m3_s, rateUnit), 3)}</td><td>${fixed(fromSi(w.capacity_m3_s, rateUnit), 3)}</td>
               <td>${w.utilisation === null ? '—' : `${Math.round(w.utilisation * 100)} %`}</td><td>${fixed(fromSi(w.pumpingLevel_m, lengthUnit))}</td><td>${w.limit ?? ''}</td></tr>`,
           )}</tbody></table></div>
       </details>

@@ -12,7 +12,7 @@ import demoClayPlug from '../../fixtures/demo-clay-plug-confined.json';
 import { validateMonitoring, validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
 import { logSpacedTimes } from '../../shared/field';
 import { signedDistanceToRing } from '../../shared/contours';
-import { formatQuantity, resolveDisplayUnits, toSi, type DisplayUnits, type UnitSystem } from '../../shared/units';
+import { coordinateUnit, formatQuantity, fromSi, resolveDisplayUnits, toSi, type DisplayUnits, type UnitSystem } from '../../shared/units';
 import { ScenarioStore, checkViewSettings, getViewSettings, setViewSettings, type ChangeKind, type ContourQuantity, type SectionLine } from '../state';
 import { MAX_PIEZOMETERS, deletePiezometer, getPiezometers, placePiezometer } from '../state';
 import { EngineClient, EngineError, type FieldResult, type InspectResult, type SectionResult } from '../worker';
@@ -23,6 +23,7 @@ import { formatDuration } from './time-format';
 import { stepDecimals } from './step-decimals';
 import { methodName } from './results-panel';
 import './plan-map';
+import './scenario-warnings';
 import './map-legend';
 import './shortfall-badges';
 import './results-panel';
@@ -184,7 +185,9 @@ export class DrydigApp extends LightElement {
 
   private get units(): DisplayUnits {
     const u = getViewSettings(this.scenario).units ?? {};
-    return resolveDisplayUnits(u.system === 'us' ? 'us' : 'si', { rate: u.rate, velocity: u.velocity });
+    const units = resolveDisplayUnits(u.system === 'us' ? 'us' : 'si', { rate: u.rate, velocity: u.velocity });
+    // Coordinates follow the site grid's unit: a projected CRS keeps its metres in US display too.
+    return { ...units, coordinate: coordinateUnit({ crs: this.scenario.crs, proj4: this.scenario.proj4, units }).unit };
   }
 
   private get unitSystem(): UnitSystem {
@@ -399,7 +402,8 @@ export class DrydigApp extends LightElement {
         const u = this.units;
         const p = this.projection;
         const ll = p?.ok ? ` · ${formatLonLat(...p.toLonLat(x, y))}` : '';
-        this.cursor = `E ${formatQuantity(x, u.length, { decimals: 2 })}   N ${formatQuantity(y, u.length, { decimals: 2 })}${ll}`;
+        const cu = fromSi(1, u.coordinate) === 1 ? 'm' : 'ft';
+        this.cursor = `E ${formatQuantity(x, u.coordinate, { decimals: 2, withUnit: false })} ${cu}   N ${formatQuantity(y, u.coordinate, { decimals: 2, withUnit: false })} ${cu}${ll}`;
         return;
       }
       case 'map-click': {
@@ -743,12 +747,13 @@ export class DrydigApp extends LightElement {
             ${this.tool !== 'select' ? html`<div class="dd-tool-hint" role="status">${TOOLS.find((t) => t[0] === this.tool)?.[2] ?? 'Click the map to pick the site point'} — Esc to stop</div>` : nothing}
           </div>
           <map-legend .result=${this.result} .units=${u} .staticLevel_m=${s.aquifer.staticLevel_m} .computing=${this.computing}></map-legend>
-          <div class="dd-cursor" aria-live="off">${this.cursor || (this.projection && !this.projection.ok && s.crs ? this.projection.message : 'Site grid, metres')}</div>
+          <div class="dd-cursor" aria-live="off">${this.cursor || (this.projection && !this.projection.ok && s.crs ? this.projection.message : coordinateUnit({ crs: s.crs, proj4: s.proj4, units: u }).caption)}</div>
           ${this.notice ? html`<div class="dd-notice" role="status">${this.notice}</div>` : nothing}
           ${this.drawer ? this.renderDrawer(pitAtInspect ? pitAtInspect.formationLevel_m - pitAtInspect.margin_m : null) : nothing}
           <p class="dd-map-caution">Idealised model (homogeneous, isotropic, infinite except stated boundaries) — estimates for design; defer to site investigation, local codes and a licensed engineer.</p>
         </section>
         <aside class="dd-side" aria-label="Panels">
+          <scenario-warnings .scenario=${s}></scenario-warnings>
           <nav class="dd-tabs" role="tablist">
             ${TABS.map(([t, label]) => html`<button type="button" role="tab" name=${`tab-${t}`} aria-selected=${this.tab === t} class=${this.tab === t ? 'dd-on' : ''} @click=${() => (this.tab = t)}>${label}</button>`)}
           </nav>
@@ -873,7 +878,7 @@ export class DrydigApp extends LightElement {
       ${this.drawer === 'inspect'
         ? i ? html`<div class="dd-inspect">
             <dl class="dd-readout">
-              <div><dt>At</dt><dd>E ${formatQuantity(i.point[0], u.length, { decimals: 2 })}, N ${formatQuantity(i.point[1], u.length, { decimals: 2 })}</dd></div>
+              <div><dt>At</dt><dd>E ${formatQuantity(i.point[0], u.coordinate, { decimals: 2, withUnit: false })}, N ${formatQuantity(i.point[1], u.coordinate, { decimals: 2, withUnit: false })} ${fromSi(1, u.coordinate) === 1 ? 'm' : 'ft'}</dd></div>
               <div><dt>Time</dt><dd>${formatDuration(i.current.time_s)}</dd></div>
               <div><dt>${this.scenario.aquifer.kind === 'unconfined' ? 'Water table' : 'Piezometric level'}</dt><dd data-inspect="level">${formatQuantity(i.current.level_m, u.length, { decimals: 2 })}</dd></div>
               <div><dt>Drawdown</dt><dd data-inspect="drawdown">${formatQuantity(i.current.drawdown_m, u.length, { decimals: 2 })}</dd></div>

@@ -97,12 +97,12 @@ export class WellEditor extends LightElement {
           ${KINDS.map(([k, label]) => html`<option value=${k} ?selected=${w.kind === k}>${label}</option>`)}</select></label>
       </div>
       <div class="dd-form-row">
-        ${this.numberField('Easting', 'x', u.length, w.x)}
-        ${this.numberField('Northing', 'y', u.length, w.y)}
+        ${this.numberField('Easting', 'x', u.coordinate, w.x)}
+        ${this.numberField('Northing', 'y', u.coordinate, w.y)}
       </div>
       <div class="dd-form-row">
         ${this.numberField('Radius', 'radius_m', u.length, w.radius_m, { min: 0, exclusiveMin: true })}
-        ${this.numberField('Well loss C', 'wellLoss_s2_m5', 's²/m⁵', w.wellLoss_s2_m5, { optional: true, min: 0 })}
+        ${this.numberField('Well loss C', 'wellLoss_s2_m5', u.wellLoss, w.wellLoss_s2_m5, { optional: true, min: 0 })}
       </div>
       <fieldset class="dd-rate-mode"><legend>Pumping</legend>
         <label><input type="radio" name="mode" ?checked=${!useSchedule} @change=${() => this.edit(`constant rate for ${w.id}`, (d) => {

@@ -6,11 +6,13 @@
  */
 import { runDesign, designResultToCsv } from '../../shared/design';
 import type { DesignMode, DesignOptions } from '../../shared/schema';
+import { parseQuantity } from '../../shared/units';
 import type { CliCommand } from './cli-io';
 import { parseOptions, usageError } from './parse-options';
 import { parseStrictNumber } from './points-argument';
 import { parseJsonText, readScenarioFile, readTextFile } from './read-scenario-file';
 import { parseTimeValue } from './time-argument';
+import { writeWarnings } from './write-warnings';
 
 export const DESIGN_HELP = `drydig design SCENARIO.json [--mode uniform|optimal|layout] [options] [--pretty | --csv]
 
@@ -26,7 +28,12 @@ export const DESIGN_HELP = `drydig design SCENARIO.json [--mode uniform|optimal|
   --discharge-head M   discharge head, m (default 3)
   --friction M         friction allowance, m (default 2)
   --safety-factor F    factor on the flow for pumps and discharge (default 1.25)
-  --pump-capacity Q    rated flow of one pump, m³/s (default 0.02)
+  --pump-capacity Q    rated flow of one pump, with its unit: 20L/s, 72m3/h, 317gpm (a bare
+                       number is m³/s; default 0.02 m³/s = 20 L/s)
+  --minimum-rate Q     smallest practical rate per well, with its unit (e.g. 0.2L/s)
+  --rate-step Q        round rates up to multiples of this, with its unit (e.g. 0.05L/s); the
+                       design is re-checked with the rounded rates
+  --currency CODE      currency label of the costs (default XXX: none set)
   --standby-ratio R    standby pumps per duty pump (default 0.5)
   --energy-price P     per kWh (default 0.2, a placeholder)
   --well-cost C        per well installed (default 5000, a placeholder)
@@ -52,11 +59,17 @@ const NUMBER_FLAGS: Record<string, keyof DesignOptions> = {
   'discharge-head': 'dischargeHead_m',
   friction: 'frictionAllowance_m',
   'safety-factor': 'safetyFactor',
-  'pump-capacity': 'pumpCapacity_m3_s',
   'standby-ratio': 'standbyRatio',
   'energy-price': 'energyPrice_per_kWh',
   'well-cost': 'wellCost',
   'volume-cost': 'pumpedVolumeCost_per_m3',
+};
+
+/** Rates typed with their unit, as everywhere a user types a flow (`parseQuantity`: 20L/s, 72m3/h; bare = m³/s). */
+const RATE_FLAGS: Record<string, keyof DesignOptions> = {
+  'pump-capacity': 'pumpCapacity_m3_s',
+  'minimum-rate': 'minimumRate_m3_s',
+  'rate-step': 'rateStep_m3_s',
 };
 
 const MODES: readonly DesignMode[] = ['uniform', 'optimal', 'layout'];
@@ -67,6 +80,8 @@ export const runDesignCommand: CliCommand = async (args, io) => {
     options: 'value',
     duration: 'value',
     'out-of-service': 'value',
+    currency: 'value',
+    ...Object.fromEntries(Object.keys(RATE_FLAGS).map((k) => [k, 'value'])),
     pretty: 'flag',
     csv: 'flag',
     help: 'flag',
@@ -102,6 +117,14 @@ export const runDesignCommand: CliCommand = async (args, io) => {
     overrides.duration_s = t;
   }
   if (values['out-of-service'] !== undefined) overrides.outOfServiceWell = values['out-of-service'];
+  for (const [flag, key] of Object.entries(RATE_FLAGS)) {
+    const text = values[flag];
+    if (text === undefined) continue;
+    const q = parseQuantity(text, 'rate');
+    if (!q.ok) throw usageError(`design: --${flag}: ${q.message}`);
+    overrides[key] = q.value_si;
+  }
+  if (values.currency !== undefined) overrides.currency = values.currency;
   let fileOptions: Record<string, unknown> = {};
   if (values.options !== undefined) {
     const parsed = parseJsonText(readTextFile(values.options, io.cwd, 'design options file'), values.options);
@@ -113,6 +136,7 @@ export const runDesignCommand: CliCommand = async (args, io) => {
 
   const result = await runDesign({ scenario, mode, options: Object.keys(options).length > 0 ? options : undefined, optionsPath: '/options' });
   io.stdout(values.csv ? designResultToCsv(result) : `${JSON.stringify(result, jsonNumbers, values.pretty ? 2 : undefined)}\n`);
+  if (values.csv) writeWarnings(result.warnings, io);
   return 0;
 };
 

@@ -12,6 +12,7 @@ import { readScenarioFile, readTextFile } from './read-scenario-file';
 import { parseTimeArgument } from './time-argument';
 import { formatPointsCsv } from './points-csv-output';
 import { EVALUATE_HELP } from './usage-text';
+import { writeWarnings } from './write-warnings';
 
 /** Largest points CSV read, bytes. */
 const MAX_POINTS_FILE_BYTES = 256 * 1024 * 1024;
@@ -56,5 +57,6 @@ export const runEvaluateCommand: CliCommand = async (args, io) => {
 
   const answer = runEvaluation({ scenario, points, grid, times_s });
   io.stdout(values.csv ? formatPointsCsv(answer) : `${JSON.stringify(answer, null, values.pretty ? 2 : undefined)}\n`);
+  if (values.csv) writeWarnings(answer.warnings, io);
   return 0;
 };

@@ -21,6 +21,7 @@ const COMMANDS: Record<string, () => Promise<CliCommand>> = {
   evaluate: async () => (await import('./evaluate-command')).runEvaluateCommand,
   serve: async () => (await import('./serve-command')).runServeCommand,
   design: async () => (await import('./design-command')).runDesignCommand,
+  validate: async () => (await import('./validate-command')).runValidateCommand,
   'pumping-test': async () => (await import('./pumping-test-command')).runPumpingTestCommand,
   import: async () => (await import('./import-command')).runImportCommand,
   section: async () => (await import('./section-command')).runSectionCommand,

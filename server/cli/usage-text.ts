@@ -5,6 +5,7 @@ export const USAGE = `drydig — construction-dewatering well-field designer
 Usage:
   drydig evaluate SCENARIO.json --points "x,y;x,y" | --points FILE.csv [--time T] [--grid G] [--pretty | --csv]
   drydig design SCENARIO.json [--mode uniform|optimal|layout]
+  drydig validate SCENARIO.json [--pretty]
   drydig pumping-test READINGS.csv --rate Q [--distance R] [--method M] [--stop T]
   drydig import FILE.ags | FILE.dxf [--borehole ID[,ID] --at x,y] [--unit M]
   drydig section FILE.json [--compare] [--flow-net] [--pretty | --csv]
@@ -15,6 +16,7 @@ Usage:
 Commands:
   evaluate   levels and drawdowns at points (and on a grid) as JSON on stdout
   design     pumping rates that meet each excavation's target level
+  validate   check a scenario: errors naming the field, or warnings (accepted, probably not meant)
   pumping-test  aquifer parameters (T, S, B, well loss) fitted to a pumping test's readings
   import     what a site file holds: AGS boreholes (and a suggested ground profile), DXF layers
   section    seepage in a vertical section: flow, exit gradient, heave and uplift

@@ -5,7 +5,7 @@
  */
 import { evaluateGrid, evaluatePoints } from '../../shared/field';
 import type { GridSpec, ModelInfo, PointResult } from '../../shared/field';
-import { DrydigError, summariseIssues, type Scenario } from '../../shared/schema';
+import { DrydigError, findScenarioWarnings, summariseIssues, type Scenario } from '../../shared/schema';
 import type { EvaluateResponse } from '../request-schemas';
 import { encodeFlagRuns } from './flag-runs';
 import { RESULT_CAUTIONS } from './result-cautions';
@@ -130,5 +130,6 @@ export function runEvaluation(options: RunEvaluationOptions): EvaluateResponse {
     model: first.model,
     models,
     cautions: [...RESULT_CAUTIONS],
+    warnings: findScenarioWarnings(scenario, scenarioPath),
   };
 }

@@ -3,7 +3,7 @@
  * so the route validates, serialises and documents (OpenAPI) from one source.
  */
 import { Type, type Static } from '@sinclair/typebox';
-import { PointSchema, ScenarioSchema } from '../../shared/schema';
+import { PointSchema, ScenarioSchema, ScenarioWarningSchema } from '../../shared/schema';
 import { FLAG_BITS, type ModelInfo, type PointFlag } from '../../shared/field';
 
 /** Default largest number of points one evaluate request may ask for. */
@@ -149,6 +149,7 @@ export const EvaluateResponseSchema = Type.Object(
       { description: 'The model used at each time asked (steady and transient times use different methods).' },
     ),
     cautions: Type.Array(Type.String(), { description: 'Limits of the results; show them wherever the results are shown.' }),
+    warnings: Type.Array(ScenarioWarningSchema, { description: 'Scenario fields accepted but probably not meant, by JSON pointer (not errors).' }),
   },
   { additionalProperties: false },
 );

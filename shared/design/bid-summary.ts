@@ -61,7 +61,6 @@ export function summariseDesign({ scenario, options, wells, wellResults, rates, 
   const total = rates.reduce((s, q) => s + q, 0);
   const sf = options.safetyFactor;
   const steady = scenario.design.time_s === null;
-  const eta = options.pumpEfficiency;
   const used = wells.map((_, j) => installed[j] === 1 && rates[j]! > 0);
 
   let hydraulic_W = 0;
@@ -80,7 +79,7 @@ export function summariseDesign({ scenario, options, wells, wellResults, rates, 
     });
     r.head_m = head;
     maxWellHead = Math.max(maxWellHead ?? 0, head);
-    const p = pumpPower({ rate_m3_s: rates[j]!, head_m: head, efficiency: eta });
+    const p = pumpPower({ rate_m3_s: rates[j]!, head_m: head, efficiency: options.efficiencyByKind[w.kind] });
     hydraulic_W += p.hydraulic_W;
     input_W += p.input_W;
     deepPumps++;
@@ -99,7 +98,7 @@ export function summariseDesign({ scenario, options, wells, wellResults, rates, 
       dischargeHead_m: options.dischargeHead_m,
       frictionAllowance_m: options.frictionAllowance_m,
     });
-    const p = pumpPower({ rate_m3_s: wpFlow, head_m: headerHead, efficiency: eta });
+    const p = pumpPower({ rate_m3_s: wpFlow, head_m: headerHead, efficiency: options.efficiencyByKind.wellpoint });
     hydraulic_W += p.hydraulic_W;
     input_W += p.input_W;
   }
@@ -124,7 +123,10 @@ export function summariseDesign({ scenario, options, wells, wellResults, rates, 
   const header = estimateHeaderLength(wpIdx.map((j) => [wells[j]!.x, wells[j]!.y] as const));
   const energyCost = energy_kWh * options.energyPrice_per_kWh;
   const pumpedVolumeCost = volume * options.pumpedVolumeCost_per_m3;
-  const wellCost = nWells * options.wellCost;
+  // One price per kind: the same wells the quantities count (idle wells are left out of both).
+  const costByKind = { wellpoint: byKind.wellpoint * options.wellCostByKind.wellpoint, deep: byKind.deep * options.wellCostByKind.deep, ejector: byKind.ejector * options.wellCostByKind.ejector };
+  const wellCost = costByKind.wellpoint + costByKind.deep + costByKind.ejector;
+  const idleWellIds = wells.filter((_, j) => !used[j]).map((w) => w.id);
 
   return {
     totalRate_m3_s: total,
@@ -149,5 +151,9 @@ export function summariseDesign({ scenario, options, wells, wellResults, rates, 
     wellCost,
     totalCost: energyCost + pumpedVolumeCost + wellCost,
     quantities: { wells: nWells, wellsByKind: byKind, screen_m: screen, header_m: header },
+    currency: options.currency,
+    wellCostByKind: costByKind,
+    efficiencyByKind: { ...options.efficiencyByKind },
+    idleWellIds,
   };
 }

@@ -2,8 +2,9 @@
  * CSV export of a design (RFC 4180: comma-separated, CRLF line ends, fields with commas, quotes or
  * line breaks quoted). Three blocks separated by a blank line: the summary (quantity, value,
  * unit), the wells, the excavations; then the cautions. Values stay SI so the numbers can be
- * checked against the JSON; the unit column says what they are.
+ * checked against the JSON; the summary's unit column and each table header (`rate (m3/s)`) say what they are.
  */
+import { headerLineWithUnits } from './csv-column-units';
 import type { DesignResult } from './design-result';
 
 function field(value: unknown): string {
@@ -17,6 +18,8 @@ const line = (values: unknown[]) => values.map(field).join(',');
 export function designResultToCsv(result: DesignResult): string {
   const s = result.summary;
   const rows: string[] = [];
+  /** Indices of the table header lines (their cells get units at the end). */
+  const headerRows: number[] = [];
   rows.push(line(['quantity', 'value', 'unit']));
   const kv = (name: string, value: unknown, unit = '') => rows.push(line([name, value, unit]));
   kv('mode', result.mode);
@@ -37,10 +40,12 @@ export function designResultToCsv(result: DesignResult): string {
   kv('duration', s.duration_s, 's');
   kv('energy', s.energy_kWh, 'kWh');
   kv('discharge volume', s.dischargeVolume_m3, 'm3');
-  kv('energy cost', s.energyCost, 'currency');
-  kv('pumped volume cost', s.pumpedVolumeCost, 'currency');
-  kv('well cost', s.wellCost, 'currency');
-  kv('total cost', s.totalCost, 'currency');
+  kv('energy cost', s.energyCost, s.currency);
+  kv('pumped volume cost', s.pumpedVolumeCost, s.currency);
+  kv('well cost', s.wellCost, s.currency);
+  kv('total cost', s.totalCost, s.currency);
+  kv('currency', s.currency);
+  kv('idle wells (may be omitted)', s.idleWellIds.length, 'count');
   kv('wells', s.quantities.wells, 'count');
   kv('well points', s.quantities.wellsByKind.wellpoint, 'count');
   kv('deep wells', s.quantities.wellsByKind.deep, 'count');
@@ -57,12 +62,14 @@ export function designResultToCsv(result: DesignResult): string {
     kv(`superposition / equivalent well ${q.excavationId}`, q.ratio, '-');
   }
   rows.push('');
+  headerRows.push(rows.length);
   rows.push(line(['well', 'kind', 'x_m', 'y_m', 'installed', 'start_s', 'rate_m3_s', 'capacity_m3_s', 'utilisation', 'pumpingLevel_m', 'minimumPumpingLevel_m', 'limit', 'head_m', 'flags']));
   for (const w of result.wells)
     rows.push(
       line([w.id, w.kind, w.x, w.y, w.installed ? 'yes' : 'no', w.start_s, w.rate_m3_s, w.capacity_m3_s, w.utilisation, w.pumpingLevel_m, w.minimumPumpingLevel_m, w.limit ?? '', w.head_m, w.flags.join(' ')]),
     );
   rows.push('');
+  headerRows.push(rows.length);
   rows.push(line(['excavation', 'targetLevel_m', 'met', 'worstShortfall_m', 'critical_x_m', 'critical_y_m', 'critical_level_m', 'timeToTarget_s', 'recoveryToFormation_s', 'governingCheck', 'allowableLevel_m', 'upliftFS', 'requiredUpliftFS', 'heaveFS', 'requiredHeaveFS', 'timeToUnsafe_s']));
   for (const e of result.excavations) {
     const f = e.floor;
@@ -74,6 +81,7 @@ export function designResultToCsv(result: DesignResult): string {
   const digs = result.excavations.filter((e) => (e.floor?.safeDig.length ?? 0) > 0);
   if (digs.length > 0) {
     rows.push('');
+    headerRows.push(rows.length);
     rows.push(line(['safe-dig excavation', 'time_s', 'safeFormationLevel_m']));
     for (const e of digs) for (const step of e.floor!.safeDig) rows.push(line([e.id, step.time_s, step.safeFormationLevel_m]));
   }
@@ -81,5 +89,7 @@ export function designResultToCsv(result: DesignResult): string {
   rows.push(line(['reasons and cautions']));
   for (const r of result.reasons) rows.push(line([r.message]));
   for (const c of result.cautions) rows.push(line([c]));
+  // Each table header states its columns' units (`rate (m3/s)`), from the names' unit suffixes.
+  for (const i of headerRows) rows[i] = headerLineWithUnits(rows[i]!);
   return rows.join('\r\n') + '\r\n';
 }

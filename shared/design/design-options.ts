@@ -13,6 +13,7 @@ import {
   type DesignStage,
   type FieldIssue,
   type Scenario,
+  type WellKind,
 } from '../schema';
 
 import { resolveFloorOptions, type FloorCheckOptions } from '../floor/floor-options';
@@ -48,6 +49,16 @@ export interface ResolvedDesignOptions {
   outOfServiceWell: string | null;
   /** Pit-floor checks: EN 1997-1 UPL partial factors and the heave factor. */
   floor: FloorCheckOptions;
+  /** Wire-to-water efficiency per well kind (−). */
+  efficiencyByKind: Record<WellKind, number>;
+  /** Cost of one well per kind, bid currency. */
+  wellCostByKind: Record<WellKind, number>;
+  /** Currency label of the bid summary. */
+  currency: string;
+  /** Smallest practical rate, m³/s (0: none). */
+  minimumRate_m3_s: number;
+  /** Rates rounded up to multiples of this, m³/s (0: none). */
+  rateStep_m3_s: number;
   /** JSON pointers the control points and spacing came from (for messages). */
   controlPointsPath: string;
   controlSpacingPath: string;
@@ -85,6 +96,10 @@ export const DESIGN_OPTION_DEFAULTS = {
   pumpedVolumeCost_per_m3: 0.1,
   duration_s: 90 * DAY_S,
   layoutTimeLimit_s: 20,
+  /** Ejector systems: from memory, roughly 10–30 % overall (Powrie & Roberts 1990; CIRIA C750, 2016) — check the source. */
+  ejectorEfficiency: 0.2,
+  /** ISO 4217 "no currency": the prices are placeholders until the bidder sets them. */
+  currency: 'XXX',
 } as const;
 
 function schemaIssues(value: unknown, prefix: string): FieldIssue[] {
@@ -168,6 +183,19 @@ export function resolveDesignOptions({ scenario, overrides, overridesPath = '/op
     layoutTimeLimit_s: merged.layoutTimeLimit_s ?? d.layoutTimeLimit_s,
     outOfServiceWell: merged.outOfServiceWell ?? null,
     floor: resolveFloorOptions(merged.floor),
+    efficiencyByKind: {
+      wellpoint: merged.efficiencyByKind?.wellpoint ?? merged.pumpEfficiency ?? d.pumpEfficiency,
+      deep: merged.efficiencyByKind?.deep ?? merged.pumpEfficiency ?? d.pumpEfficiency,
+      ejector: merged.efficiencyByKind?.ejector ?? d.ejectorEfficiency,
+    },
+    wellCostByKind: {
+      wellpoint: merged.wellCostByKind?.wellpoint ?? merged.wellCost ?? d.wellCost,
+      deep: merged.wellCostByKind?.deep ?? merged.wellCost ?? d.wellCost,
+      ejector: merged.wellCostByKind?.ejector ?? merged.wellCost ?? d.wellCost,
+    },
+    currency: merged.currency ?? d.currency,
+    minimumRate_m3_s: merged.minimumRate_m3_s ?? 0,
+    rateStep_m3_s: merged.rateStep_m3_s ?? 0,
     controlPointsPath: `${origin('controlPoints')}/controlPoints`,
     controlSpacingPath: `${origin('controlSpacing_m')}/controlSpacing_m`,
   };

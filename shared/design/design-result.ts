@@ -5,7 +5,8 @@
  * derive from it, and the HTTP route answers with it (so the OpenAPI document lists it).
  */
 import { Type, type Static } from '@sinclair/typebox';
-import { DesignModeSchema } from '../schema';
+import { DesignModeSchema, ScenarioWarningSchema } from '../schema';
+import { RateRoundingSchema } from './round-design-rates';
 
 const Num = (description: string) => Type.Number({ description });
 const NullableNum = (description: string) => Type.Union([Type.Number(), Type.Null()], { description });
@@ -47,7 +48,7 @@ export const DesignWellResultSchema = Type.Object({
   x: Num('Easting, m.'),
   y: Num('Northing, m.'),
   rate_m3_s: Num('Design rate, m³/s (0 for a well not used).'),
-  installed: Type.Boolean({ description: 'Layout mode: chosen for installation; other modes: true.' }),
+  installed: Type.Boolean({ description: 'In the quantities and cost: pumps at a rate above zero (layout mode: also chosen by the search).' }),
   start_s: Num('Time the well is switched on, s (staged start; 0 otherwise).'),
   capacity_m3_s: Num('Sichardt capacity with the wetted screen at the verified pumping level, m³/s.'),
   fullScreenCapacity_m3_s: Num('Sichardt capacity with the whole screen wetted, m³/s.'),
@@ -58,6 +59,8 @@ export const DesignWellResultSchema = Type.Object({
   limit: WellLimitSchema,
   head_m: NullableNum('Total dynamic head of this well’s pump (deep wells, ejectors), m.'),
   flags: Type.Array(Type.String()),
+  idle: Type.Boolean({ description: 'The design leaves this well at zero rate: it may be omitted, and it is not in the quantities or the cost.' }),
+  note: Type.Optional(Type.String({ description: 'In words, e.g. "idle — may be omitted".' })),
 });
 export type DesignWellResult = Static<typeof DesignWellResultSchema>;
 
@@ -175,6 +178,10 @@ export const PumpSummarySchema = Type.Object({
     screen_m: Num('Screen length, m.'),
     header_m: Num('Well-point header length, m.'),
   }),
+  currency: Type.String({ description: 'Currency label of every cost (the designOptions currency; "XXX" = none set, placeholder prices).' }),
+  wellCostByKind: Type.Object({ wellpoint: Type.Number(), deep: Type.Number(), ejector: Type.Number() }, { description: 'Well cost per kind: wells of the kind × its price, bid currency.' }),
+  efficiencyByKind: Type.Object({ wellpoint: Type.Number(), deep: Type.Number(), ejector: Type.Number() }, { description: 'Wire-to-water efficiency used per well kind (−).' }),
+  idleWellIds: Type.Array(Type.String(), { description: 'Design wells left at zero rate: idle, may be omitted; not in quantities or cost.' }),
 });
 export type PumpSummary = Static<typeof PumpSummarySchema>;
 
@@ -208,6 +215,7 @@ export const DesignResultSchema = Type.Object(
     outOfService: Type.Union([OutOfServiceCheckSchema, Type.Null()]),
     summary: PumpSummarySchema,
     quickCheck: Type.Array(QuickCheckSchema),
+    rateRounding: Type.Optional(RateRoundingSchema),
     chosenWellIds: Type.Optional(Type.Array(Type.String(), { description: 'Layout mode: wells chosen for installation.' })),
     solver: Type.Object({
       status: Type.String(),
@@ -219,6 +227,7 @@ export const DesignResultSchema = Type.Object(
     }),
     cautions: Type.Array(Type.String()),
     modelNotes: Type.Array(Type.String()),
+    warnings: Type.Array(ScenarioWarningSchema, { description: 'Scenario fields accepted but probably not meant, by JSON pointer (not errors).' }),
   },
   { description: 'A design (design.md section 4) with its checks, bid summary and cautions.' },
 );

@@ -4,7 +4,7 @@
  * limits, steady-state start-up flow and how the layout search ended.
  */
 import { collectCapacityAllowanceCautions } from './capacity-allowance-cautions';
-import { wellLevels, type PointResult } from '../field';
+import { CONFINED_TO_UNCONFINED_DESIGN_CONSEQUENCE, CONFINED_TO_UNCONFINED_EFFECT, wellLevels, type PointResult } from '../field';
 import type { Scenario } from '../schema';
 import type { DesignContext } from './design-context';
 import type { DesignWellResult } from './design-result';
@@ -59,7 +59,9 @@ export function collectDesignCautions({ ctx, rates, solved, endTime_s, pointResu
     cautions.push(`${flagged('large-drawdown')} check point(s) are drawn down more than about 25 % of the saturated thickness: Dupuit–Jacob results degrade there; treat levels as approximate.`);
   if (flagged('dewatered') > 0) cautions.push(`${flagged('dewatered')} check point(s) are dewatered to the aquifer base in the model.`);
   if (flagged('confined-to-unconfined') > 0)
-    cautions.push(`${flagged('confined-to-unconfined')} check point(s) have the head below the aquifer top: the aquifer turns unconfined there and the confined solution overstates the drawdown.`);
+    cautions.push(
+      `${flagged('confined-to-unconfined')} check point(s) have the head below the aquifer top: the aquifer turns unconfined there; ${CONFINED_TO_UNCONFINED_EFFECT}. For this design: ${CONFINED_TO_UNCONFINED_DESIGN_CONSEQUENCE}.`,
+    );
   if (wellResults.some((w) => w.flags.includes('dewatered'))) cautions.push('Some wells are dewatered at the face in the model: check the screens.');
   if (wells.some((w) => w.kind === 'wellpoint'))
     cautions.push(`Suction-lift limit ${options.suctionLiftLimit_m} m below the header is common practice (well points work to about 5–6 m), not a property of the site.`);

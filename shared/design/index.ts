@@ -22,3 +22,5 @@ export * from './out-of-service-check';
 export * from './quick-check';
 export * from './design-run-cautions';
 export * from './run-design';
+export * from './round-design-rates';
+export * from './csv-column-units';

@@ -11,12 +11,14 @@
  * quick check (`quick-check.ts`) → bid summary (`bid-summary.ts`) → cautions
  * (`design-run-cautions.ts`). A new check is a new stage here, not a branch inside another.
  */
+import { findScenarioWarnings } from '../schema';
 import type { DesignResult } from './design-result';
 import { summariseDesign } from './bid-summary';
 import { computeTimes } from './design-times';
 import { prepareDesign, placeDesignPoints, type RunDesignOptions } from './design-setup';
 import { computeDesignResponses } from './design-responses';
 import { solveDesignRates } from './solve-design-rates';
+import { roundDesignRates } from './round-design-rates';
 import { verifyDesign } from './verify-design';
 import { areUserPointsMet, buildControlPointResults, summariseExcavations } from './excavation-results';
 import { explainDesign, findUnreachablePoints } from './design-reasons';
@@ -25,6 +27,7 @@ import { buildQuickChecks } from './quick-check';
 import { collectDesignCautions } from './design-run-cautions';
 import { checkFloors } from './floor-stage';
 import { floorCautions } from '../floor';
+import { describeRounding } from './design-wording';
 
 /**
  * Runs a design. Throws `DrydigError` naming the field for bad input; never returns NaN
@@ -43,7 +46,8 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   const responses = computeDesignResponses(ctx, designPoints, checkPoints);
 
   const { solution, problem, rows, rounds, solveTime_ms, layoutSearch } = await solveDesignRates({ ctx, designPoints, checkPoints, responses, progress });
-  const rates = solution.rates;
+  // Practical rates (minimum, step) before verification, so the field engine re-checks the rounded design.
+  const { rates, rounding } = roundDesignRates({ rates: solution.rates, wellIds: wells.map((w) => w.id), options });
   const installed = solution.installed ?? new Uint8Array(wells.length).fill(1);
 
   progress('verifying', 0.55);
@@ -120,7 +124,9 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
       ...(layoutSearch !== null ? { layoutStatus: layoutSearch.status, ...(layoutSearch.mipGap !== undefined ? { mipGap: layoutSearch.mipGap } : {}) } : {}),
       solveTime_ms: Math.max(solveTime_ms, 0),
     },
-    cautions,
+    cautions: rounding === null ? cautions : [...cautions, describeRounding(rounding)],
+    ...(rounding !== null ? { rateRounding: rounding } : {}),
     modelNotes: [...verified.modelNotes, `Design run took ${Date.now() - started} ms.`],
+    warnings: findScenarioWarnings(scenario, input.scenarioPath ?? ''),
   };
 }

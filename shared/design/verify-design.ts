@@ -7,7 +7,7 @@ import type { Scenario } from '../schema';
 import type { ControlPoint } from './control-points';
 import { applyDesignRates, pointXY, type DesignContext } from './design-context';
 import type { DesignWellResult } from './design-result';
-import { formatFigure, formatLitres } from './design-wording';
+import { formatFigure, formatLitres, IDLE_WELL_NOTE } from './design-wording';
 import { findBindingLimits, type RateProblem } from './rate-problem';
 import { sichardtCapacity, wettedScreenLength } from './sichardt-capacity';
 
@@ -36,7 +36,7 @@ export interface VerifyDesignOptions {
 
 /** Evaluates the design with the field engine and reports each well against its limits. */
 export function verifyDesign({ ctx, rates, installed, problem, checkPoints }: VerifyDesignOptions): VerifiedDesign {
-  const { scenario, wells, mode } = ctx;
+  const { scenario, wells } = ctx;
   const a = scenario.aquifer;
   const solved = applyDesignRates(scenario, wells, rates);
   const verify = evaluatePoints({ scenario: solved, points: checkPoints.map(pointXY), time_s: ctx.designTime_s });
@@ -62,8 +62,8 @@ export function verifyDesign({ ctx, rates, installed, problem, checkPoints }: Ve
       x: w.x,
       y: w.y,
       rate_m3_s: q,
-      // Layout: a chosen well the refined rates leave idle need not be installed.
-      installed: installed[j] === 1 && (mode !== 'layout' || q > 0),
+      // Every mode: a well the rates leave at zero is idle and may be omitted; quantities and cost leave it out too.
+      installed: installed[j] === 1 && q > 0,
       start_s: w.start_s,
       capacity_m3_s: capacity,
       fullScreenCapacity_m3_s: w.fullScreenCapacity_m3_s,
@@ -74,6 +74,8 @@ export function verifyDesign({ ctx, rates, installed, problem, checkPoints }: Ve
       limit: q > 0 ? binding[j]! : null,
       head_m: null,
       flags: level.flags,
+      idle: !(q > 0),
+      ...(q > 0 ? {} : { note: IDLE_WELL_NOTE }),
     };
   });
   return { solved, pointResults: verify.points, modelNotes: [...verify.model.notes], wellResults, verificationIssues, binding };

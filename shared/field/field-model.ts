@@ -5,6 +5,7 @@
 import { DrydigError, type Aquifer, type AquiferKind, type Scenario } from '../schema';
 import type { ModelInfo } from './types';
 import { sichardtRadius } from './sichardt-radius';
+import { CONFINED_TO_UNCONFINED_EFFECT } from './validity-wording';
 
 /** Which quantity superposes linearly for the aquifer kind. */
 export type FieldVariable = 'drawdown' | 'discharge-potential';
@@ -159,7 +160,7 @@ export function resolveFieldModel({ scenario, time_s }: ResolveFieldModelOptions
       steady
         ? 'Confined, steady: Thiem (1906), s = Q/(2πT)·ln(R/r).'
         : 'Confined, transient: Theis (1935), s = Q/(4πT)·W(u), u = r²S/(4Tt).',
-      'Where the head falls below the aquifer top the aquifer turns unconfined locally (flag "confined-to-unconfined"): the saturated section thins, so the confined solution understates the steady drawdown there, while drainage of the dewatered zone (specific yield) slows the drawdown in time; treat levels there as approximate.',
+      `Where the head falls below the aquifer top the aquifer turns unconfined locally (flag "confined-to-unconfined"): ${CONFINED_TO_UNCONFINED_EFFECT}; treat levels there as approximate.`,
     );
   }
 

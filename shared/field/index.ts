@@ -20,3 +20,4 @@ export * from './unit-response-matrix';
 export * from './equivalent-well-inflow';
 export * from './partial-penetration-sum';
 export * from './equivalent-well-boundaries';
+export * from './validity-wording';

@@ -7,6 +7,7 @@
  * (`shared/design/design-options.ts`). SI units inside; currency is whatever the bid is priced in.
  */
 import { Type, type Static } from '@sinclair/typebox';
+import { DESIGN_BID_OPTION_FIELDS } from './design-bid-options-schema';
 
 export const DesignModeSchema = Type.Union([Type.Literal('uniform'), Type.Literal('optimal'), Type.Literal('layout')], {
   description: 'uniform: one rate for all active wells; optimal: least total pumping per well (LP); layout: choose wells and rates at least cost (MIP).',
@@ -109,6 +110,7 @@ export const DesignOptionsSchema = Type.Object(
     outOfServiceWell: Type.Optional(
       Type.String({ minLength: 1, maxLength: 64, description: 'Well to take out of service in the standby check. Default: the one whose loss hurts most.' }),
     ),
+    ...DESIGN_BID_OPTION_FIELDS,
   },
   { additionalProperties: false, description: 'Design solver and bid-sizing options (all optional; defaults documented per field).' },
 );

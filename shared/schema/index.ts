@@ -8,3 +8,4 @@ export * from './pumping-test-record-schema';
 export * from './section-schema';
 export * from './validate-section';
 export * from './ground-schema';
+export * from './scenario-warnings';

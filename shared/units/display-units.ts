@@ -13,12 +13,13 @@ export type DisplayUnits = Record<Quantity, UnitId>;
 /**
  * Display units for a system. SI rates default to m³/h (the unit pumps are bought in across most
  * metric markets; common practice), conductivity to m/s (site-investigation reports), US customary
- * to ft, gpm and ft/d.
+ * to ft, gpm and ft/d, well loss in s²/ft⁵ and volumes in US gallons. Coordinates of a local site
+ * grid follow the length system; a projected CRS keeps its own unit (`coordinateUnit`).
  */
 export function defaultDisplayUnits(system: UnitSystem): DisplayUnits {
   return system === 'us'
-    ? { length: 'ft', rate: 'gpm', velocity: 'ft/d', time: 'd', area: 'ft²', transmissivity: 'ft²/d', wellLoss: 's²/m⁵' }
-    : { length: 'm', rate: 'm³/h', velocity: 'm/s', time: 'd', area: 'm²', transmissivity: 'm²/s', wellLoss: 's²/m⁵' };
+    ? { length: 'ft', rate: 'gpm', velocity: 'ft/d', time: 'd', area: 'ft²', transmissivity: 'ft²/d', wellLoss: 's²/ft⁵', volume: 'gal', coordinate: 'ft E/N' }
+    : { length: 'm', rate: 'm³/h', velocity: 'm/s', time: 'd', area: 'm²', transmissivity: 'm²/s', wellLoss: 's²/m⁵', volume: 'm³', coordinate: 'm E/N' };
 }
 
 /**

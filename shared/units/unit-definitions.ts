@@ -17,7 +17,7 @@ export const DAY_S = 86_400;
 export const HOUR_S = 3_600;
 
 /** The physical quantities the UI shows. */
-export type Quantity = 'length' | 'rate' | 'velocity' | 'time' | 'area' | 'transmissivity' | 'wellLoss';
+export type Quantity = 'length' | 'rate' | 'velocity' | 'time' | 'area' | 'transmissivity' | 'wellLoss' | 'volume' | 'coordinate';
 
 /** One display unit of a quantity. */
 export interface UnitDefinition {
@@ -62,6 +62,15 @@ export const UNITS = {
   's²/m⁵': def('s²/m⁵', 'wellLoss', 1, 'second squared per metre to the fifth'),
   // C·Q² in metres with Q in m³/h: C_si = C_h × 3600² — the form well-loss is often quoted in.
   'h²/m⁵': def('h²/m⁵', 'wellLoss', HOUR_S * HOUR_S, 'hour squared per metre to the fifth'),
+  // US form: C·Q² in feet with Q in ft³/s (Walton 1962 quotes C in s²/ft⁵; from memory): 1 ft/(ft³/s)² = 0.3048⁻⁵ s²/m⁵.
+  's²/ft⁵': def('s²/ft⁵', 'wellLoss', FOOT_M ** -5, 'second squared per foot to the fifth'),
+
+  'm³': def('m³', 'volume', 1, 'cubic metre'),
+  gal: def('gal', 'volume', US_GALLON_M3, 'US gallon'),
+
+  // Coordinates: the site grid's own unit (a projected CRS's unit, e.g. metres for UTM; see coordinateUnit).
+  'm E/N': def('m E/N', 'coordinate', 1, 'metre (site grid)'),
+  'ft E/N': def('ft E/N', 'coordinate', FOOT_M, 'international foot (local site grid)'),
 } as const satisfies Record<string, UnitDefinition>;
 
 /** Id of any display unit. */

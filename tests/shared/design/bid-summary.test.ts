@@ -11,7 +11,7 @@ function well(id: string, kind: DesignWell['kind'], x: number): DesignWell {
 function result(w: DesignWell, rate: number, pumpingLevel: number): DesignWellResult {
   return {
     id: w.id, kind: w.kind, x: w.x, y: w.y, rate_m3_s: rate, installed: true, start_s: 0, capacity_m3_s: 1, fullScreenCapacity_m3_s: 1,
-    utilisation: rate, pumpingLevel_m: pumpingLevel, minimumPumpingLevel_m: -12, limit: null, head_m: null, flags: [],
+    utilisation: rate, pumpingLevel_m: pumpingLevel, minimumPumpingLevel_m: -12, limit: null, head_m: null, flags: [], idle: !(rate > 0),
   };
 }
 

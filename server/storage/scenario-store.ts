@@ -157,8 +157,8 @@ export class StoredDataDamagedError extends DrydigError {
     super(
       'DRYDIG_ERR_STORED_DATA_DAMAGED',
       revision !== null
-        ? `stored revision ${revision} of scenario ${scenarioId} does not match its checksum (${what}); open another revision or restore a backup (drydig restore)`
-        : `stored ${what} of scenario ${scenarioId} does not match its checksum; restore a backup (drydig restore)`,
+        ? `stored revision ${revision} of scenario ${scenarioId} is damaged (${what} was altered); open another revision or restore a backup (drydig restore)`
+        : `the stored ${what} of scenario ${scenarioId} is damaged (altered); restore a backup (drydig restore)`,
     );
   }
 }

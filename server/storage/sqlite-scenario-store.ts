@@ -234,12 +234,33 @@ export interface SqliteScenarioStoreOptions {
   filename: string;
   /** How long a writer waits for another process's lock before failing, ms. Default 5000. */
   busyTimeout_ms?: number;
+  /** Run SQLite's quick integrity check at open; a damaged file throws. Default false. */
+  integrityCheck?: boolean;
+}
+
+/** SQLite's quick check: 'ok', or the first problems it found. */
+export function quickCheck(db: Database.Database): string {
+  const rows = db.pragma('quick_check(5)') as Array<{ quick_check: string }>;
+  return rows.map((r) => r.quick_check).join('; ');
 }
 
 /** Opens (creating and migrating when needed) a SQLite-backed ScenarioStore. */
 export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): ScenarioStore {
   const db = new Database(options.filename);
   db.pragma(`busy_timeout = ${Math.max(0, Math.round(options.busyTimeout_ms ?? 5000))}`);
+  if (options.integrityCheck) {
+    let verdict: string;
+    try {
+      verdict = quickCheck(db);
+    } catch (error) {
+      db.close();
+      throw error;
+    }
+    if (verdict !== 'ok') {
+      db.close();
+      throw new Error(`integrity check: ${verdict}`);
+    }
+  }
   if (options.filename !== ':memory:') db.pragma('journal_mode = WAL');
   db.pragma('synchronous = FULL');
   db.pragma('foreign_keys = ON');

@@ -1,7 +1,7 @@
 /**
  * Accounts on the service: opens the store (shared as `scenarioStore`), a session cookie
  * (@fastify/cookie + @fastify/session, sessions kept in the SQLite store; HttpOnly, SameSite=Strict,
- * Secure over https), the sign-in routes under /api/v1/auth and `requireAccount`, the guard the
+ * Secure when DRYDIG_SECURE_COOKIE=1, i.e. behind TLS), the sign-in routes under /api/v1/auth and `requireAccount`, the guard the
  * storage routes install. Writes with a session need the session's CSRF token in `x-drydig-csrf`.
  */
 import type { FastifyInstance, FastifyRequest } from 'fastify';
@@ -40,6 +40,8 @@ export interface AuthOptions {
   dataDir: string;
   /** An already-open store (tests). */
   store?: ScenarioStore;
+  /** Mark the cookie Secure (sent over https only): set when served behind TLS. Default: DRYDIG_SECURE_COOKIE=1. */
+  secureCookie?: boolean;
 }
 
 const Username = Type.String({ minLength: 1, maxLength: 64, pattern: '^[A-Za-z0-9._@-]+$' });
@@ -153,7 +155,7 @@ export const authPlugin = fp<AuthOptions & { prefix?: string }>(
       secret: store.accounts.sessionSecret(),
       cookieName: SESSION_COOKIE,
       saveUninitialized: false,
-      cookie: { httpOnly: true, sameSite: 'strict', secure: 'auto', path: '/', maxAge: SESSION_MAX_AGE_MS },
+      cookie: { httpOnly: true, sameSite: 'strict', secure: opts.secureCookie ?? process.env.DRYDIG_SECURE_COOKIE === '1', path: '/', maxAge: SESSION_MAX_AGE_MS },
       store: {
         get(sid, callback) {
           try {

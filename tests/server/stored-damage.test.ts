@@ -8,6 +8,7 @@ import Database from 'better-sqlite3';
 import { mkdtempSync, rmSync, writeFileSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import type { InjectOptions } from 'fastify';
 import { buildApp } from '../../server/app';
 import { runCli } from '../../server/cli';
 import { DATABASE_FILE } from '../../server/storage';
@@ -104,7 +105,7 @@ describe('a damaged revision', () => {
       { method: 'GET', url: `/api/v1/links/${token}/export/dxf` },
     ] as const;
     for (const r of requests) {
-      const res = await app.inject(r as Parameters<typeof app.inject>[0] & object);
+      const res = await app.inject(r as unknown as InjectOptions);
       expect(res.statusCode, `${r.method} ${r.url}`).toBe(500);
       expect(res.json().error.code, `${r.method} ${r.url}`).toBe('DRYDIG_ERR_STORED_DATA_DAMAGED');
       expect(res.body).not.toMatch(/\n\s+at /);

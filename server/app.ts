@@ -13,6 +13,7 @@ import { pumpingTestRoutes } from './routes/pumping-test';
 import { sectionRoutes } from './routes/section';
 import { scenarioRoutes } from './routes/scenarios';
 import { linkRoutes } from './routes/links';
+import { authPlugin } from './auth';
 import { clientStatic } from './routes/client-static';
 import { DEFAULT_MAX_GRID_NODES, DEFAULT_MAX_POINTS } from './request-schemas';
 import type { SectionSolverOptions } from './section-compute';
@@ -83,6 +84,8 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   await app.register(validateRoutes, { prefix: '/api/v1' });
   await app.register(pumpingTestRoutes, { prefix: '/api/v1' });
   await app.register(sectionRoutes, { prefix: '/api/v1', solver: options.section });
+  // Accounts: opens the store, session cookie, /api/v1/auth; the storage routes require a session.
+  await app.register(authPlugin, { prefix: '/api/v1', dataDir: options.dataDir ?? 'data' });
   await app.register(scenarioRoutes, { prefix: '/api/v1', dataDir: options.dataDir ?? 'data' });
   await app.register(linkRoutes, { prefix: '/api/v1' });
   await app.register(openapiRoutes, { prefix: '/api/v1' });

@@ -127,7 +127,8 @@ function isDrydigError(error: unknown): error is DrydigError {
 /** Maps any thrown value onto a status and an error body. Exported for tests. */
 export function classifyError(error: unknown): { status: number; body: ErrorResponse; internal: boolean } {
   if (isDrydigError(error)) {
-    if (error.status >= 500) return { status: error.status, body: buildErrorBody(error.code, GENERIC_INTERNAL_MESSAGE), internal: true };
+    // A damaged revision is named (no secret in it), so the user knows which one to restore.
+    if (error.status >= 500 && error.code !== 'DRYDIG_ERR_STORED_DATA_DAMAGED') return { status: error.status, body: buildErrorBody(error.code, GENERIC_INTERNAL_MESSAGE), internal: true };
     return { status: error.status, body: buildErrorBody(error.code, error.message, error.issues), internal: false };
   }
   const fe = error as Partial<FastifyError> & { validation?: AjvLikeError[]; validationContext?: string };

@@ -16,6 +16,10 @@ import type { Scenario } from '../../shared/schema';
 interface RevisionMeta { scenarioId: string; revision: number; savedAt: string; savedBy: string; note: string; summary: string; name: string; restoredFrom: number | null }
 interface Listing { scenarioId: string; name: string; latestRevision: number; latestSavedAt: string; latestSavedBy: string }
 interface LinkInfo { linkId: string; mode: 'view' | 'edit'; revision: number | null; label: string; createdAt: string; revokedAt: string | null }
+interface Account { username: string; role: 'admin' | 'designer' | 'viewer' }
+interface AuditEntry { auditId: number; at: string; actor: string; action: string; revision: number | null; detail: string }
+/** Pages of a list followed at most (the server pages lists, newest first). */
+const MAX_PAGES = 20;
 interface ErrorBody { error?: { code: string; message: string; fix: string }; latest?: RevisionMeta & { scenario: Scenario } }
 
 /** How often the panel checks for a newer revision while a stored scenario is open, ms. */
@@ -38,6 +42,9 @@ export class ScenarioStorePanel extends LitElement {
     links: { state: true },
     newLink: { state: true },
     busy: { state: true },
+    account: { state: true },
+    setupOpen: { state: true },
+    audit: { state: true },
   };
   declare scenario: Scenario | null;
   declare apiBase: string;
@@ -56,6 +63,13 @@ export class ScenarioStorePanel extends LitElement {
   declare links: LinkInfo[] | null;
   declare newLink: { url: string; mode: string } | null;
   declare busy: boolean;
+  /** The signed-in account, or null (the sign-in screen shows). */
+  declare account: Account | null;
+  /** No account exists yet and the page was opened with the one-time setup link. */
+  declare setupOpen: boolean;
+  declare audit: AuditEntry[] | null;
+  private csrf = '';
+  private setupToken = '';
   private pollTimer: ReturnType<typeof setInterval> | null = null;
 
   static override styles = css`
@@ -94,11 +108,53 @@ export class ScenarioStorePanel extends LitElement {
     this.links = null;
     this.newLink = null;
     this.busy = false;
+    this.account = null;
+    this.setupOpen = false;
+    this.audit = null;
   }
 
   override connectedCallback(): void {
     super.connectedCallback();
     this.pollTimer = setInterval(() => void this.checkForNewer(), NEWER_REVISION_POLL_MS);
+    const setup = /#setup=([A-Za-z0-9_-]{43})/.exec(globalThis.location?.hash ?? '');
+    if (setup) this.setupToken = setup[1]!;
+    void this.loadSession();
+  }
+
+  private async loadSession(): Promise<void> {
+    const res = await fetch(`${this.apiBase}/auth/session`);
+    const body = (await res.json().catch(() => ({}))) as { user?: Account; csrfToken?: string; setupOpen?: boolean };
+    this.account = res.ok && body.user ? body.user : null;
+    this.csrf = body.csrfToken ?? '';
+    this.setupOpen = !res.ok && body.setupOpen === true && this.setupToken !== '';
+  }
+
+  private async signIn(event: Event): Promise<void> {
+    event.preventDefault();
+    const form = event.target as HTMLFormElement;
+    const field = (name: string) => (form.elements.namedItem(name) as HTMLInputElement).value;
+    const setup = this.setupOpen;
+    const res = await fetch(`${this.apiBase}/auth/${setup ? 'setup' : 'login'}`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify(setup ? { token: this.setupToken, username: field('username'), password: field('password') } : { username: field('username'), password: field('password') }),
+    });
+    const body = (await res.json().catch(() => ({}))) as { user?: Account; csrfToken?: string } & ErrorBody;
+    if (!res.ok || !body.user) {
+      this.message = this.describeError(body, 'Sign-in failed.');
+      return;
+    }
+    if (setup) history.replaceState(null, '', location.pathname + location.search);
+    this.setupOpen = false;
+    this.account = body.user;
+    this.csrf = body.csrfToken ?? '';
+    this.message = '';
+  }
+
+  private async signOut(): Promise<void> {
+    await fetch(`${this.apiBase}/auth/logout`, { method: 'POST', headers: { 'x-drydig-csrf': this.csrf } });
+    this.account = null;
+    this.csrf = '';
   }
 
   override disconnectedCallback(): void {
@@ -112,11 +168,10 @@ export class ScenarioStorePanel extends LitElement {
   }
 
   private async call<T>(method: string, path: string, body?: unknown): Promise<{ ok: true; data: T } | { ok: false; status: number; body: ErrorBody }> {
-    const res = await fetch(`${this.apiBase}${path}`, {
-      method,
-      headers: body === undefined ? {} : { 'content-type': 'application/json' },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    });
+    const headers: Record<string, string> = body === undefined ? {} : { 'content-type': 'application/json' };
+    if (method !== 'GET') headers['x-drydig-csrf'] = this.csrf;
+    const res = await fetch(`${this.apiBase}${path}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body) });
+    if (res.status === 401) this.account = null;
     const text = await res.text();
     const parsed = text ? (JSON.parse(text) as unknown) : null;
     return res.ok ? { ok: true, data: parsed as T } : { ok: false, status: res.status, body: (parsed ?? {}) as ErrorBody };
@@ -208,9 +263,19 @@ export class ScenarioStorePanel extends LitElement {
   }
 
   private async loadListing(): Promise<void> {
-    const res = await this.call<{ scenarios: Listing[] }>('GET', '/scenarios');
-    this.listing = res.ok ? res.data.scenarios : [];
-    if (!res.ok) this.message = this.describeError(res.body, 'Could not list stored scenarios.');
+    const all: Listing[] = [];
+    let cursor: string | null = null;
+    for (let page = 0; page < MAX_PAGES; page++) {
+      const res: Awaited<ReturnType<typeof this.call<{ scenarios: Listing[]; nextCursor: string | null }>>> = await this.call<{ scenarios: Listing[]; nextCursor: string | null }>('GET', `/scenarios${cursor ? `?cursor=${encodeURIComponent(cursor)}` : ''}`);
+      if (!res.ok) {
+        this.message = this.describeError(res.body, 'Could not list stored scenarios.');
+        break;
+      }
+      all.push(...res.data.scenarios);
+      cursor = res.data.nextCursor;
+      if (!cursor) break;
+    }
+    this.listing = all;
   }
 
   private async open(scenarioId: string, revision?: number): Promise<void> {
@@ -228,8 +293,30 @@ export class ScenarioStorePanel extends LitElement {
 
   private async loadHistory(): Promise<void> {
     if (this.scenarioId === null) return;
-    const res = await this.call<{ revisions: RevisionMeta[] }>('GET', `/scenarios/${this.scenarioId}/revisions`);
-    this.history = res.ok ? res.data.revisions : [];
+    const all: RevisionMeta[] = [];
+    let cursor: string | null = null;
+    for (let page = 0; page < MAX_PAGES; page++) {
+      const res: Awaited<ReturnType<typeof this.call<{ revisions: RevisionMeta[]; nextCursor: string | null }>>> = await this.call<{ revisions: RevisionMeta[]; nextCursor: string | null }>('GET', `/scenarios/${this.scenarioId}/revisions${cursor ? `?cursor=${cursor}` : ''}`);
+      if (!res.ok) break;
+      all.push(...res.data.revisions);
+      cursor = res.data.nextCursor;
+      if (!cursor) break;
+    }
+    this.history = all;
+  }
+
+  private async loadAudit(): Promise<void> {
+    if (this.scenarioId === null) return;
+    const res = await this.call<{ entries: AuditEntry[] }>('GET', `/scenarios/${this.scenarioId}/audit`);
+    this.audit = res.ok ? res.data.entries : [];
+  }
+
+  /** Records the shown revision as issued for construction (who and when go in the audit trail). */
+  private async issue(): Promise<void> {
+    if (this.scenarioId === null || this.shownRevision === null) return;
+    const res = await this.call<AuditEntry>('POST', `/scenarios/${this.scenarioId}/issued`, { revision: this.shownRevision });
+    this.message = res.ok ? `Revision ${this.shownRevision} recorded as issued for construction.` : this.describeError(res.body, 'Could not record the issue.');
+    if (res.ok) await this.loadAudit();
   }
 
   private async restore(revision: number): Promise<void> {
@@ -273,9 +360,28 @@ export class ScenarioStorePanel extends LitElement {
     await this.loadLinks();
   }
 
+  private renderSignIn() {
+    const setup = this.setupOpen;
+    return html`<section>
+        <h3>${setup ? 'Make the first admin account' : 'Sign in to the store'}</h3>
+        <p class="status">${setup
+          ? 'This one-time link makes the first account (admin). Choose a user name and a password of at least 12 characters.'
+          : 'Stored scenarios, links, readings and exports need an account. The plan map and calculations work without one.'}</p>
+        <form @submit=${(e: Event) => this.signIn(e)}>
+          <div class="row"><input name="username" autocomplete="username" placeholder="User name" required maxlength="64" />
+            <input name="password" type="password" autocomplete=${setup ? 'new-password' : 'current-password'} placeholder="Password" required minlength=${setup ? 12 : 1} maxlength="1024" />
+            <button type="submit">${setup ? 'Make account' : 'Sign in'}</button></div>
+        </form>
+        ${this.message ? html`<p class="status error" role="alert">${this.message}</p>` : nothing}
+      </section>`;
+  }
+
   override render() {
+    if (!this.account) return this.renderSignIn();
     const stored = this.scenarioId !== null;
     return html`
+      <div class="row status">Signed in as ${this.account.username} (${this.account.role})
+        <button class="secondary" @click=${() => this.signOut()}>Sign out</button></div>
       <section>
         <h3>Save</h3>
         <div class="status">${stored ? html`Stored, showing revision ${this.shownRevision}${this.shownRevision !== this.revision ? ` (latest ${this.revision})` : ''}` : 'Not stored yet'}
@@ -323,6 +429,15 @@ export class ScenarioStorePanel extends LitElement {
           ${this.history.map((r) => html`<tr><td>${r.revision}</td><td>${new Date(r.savedAt).toLocaleString()}<br />${r.savedBy}</td><td>${r.summary}${r.note ? html`<br /><em>${r.note}</em>` : nothing}</td>
             <td><button class="secondary" @click=${() => this.open(id, r.revision)}>Open</button>
               ${r.revision !== this.history?.[0]?.revision ? html`<button class="secondary" @click=${() => this.restore(r.revision)}>Restore</button>` : nothing}</td></tr>`)}</tbody></table>` : nothing}
+      </section>
+      <section>
+        <h3>Audit</h3>
+        <div class="row">
+          <button class="secondary" @click=${() => this.loadAudit()}>Show audit</button>
+          ${this.account?.role !== 'viewer' ? html`<button class="secondary" @click=${() => this.issue()}>Record revision ${this.shownRevision} as issued for construction</button>` : nothing}
+        </div>
+        ${this.audit ? html`<table class="audit"><thead><tr><th>When</th><th>Who</th><th>What</th></tr></thead><tbody>
+          ${this.audit.map((e) => html`<tr><td>${new Date(e.at).toLocaleString()}</td><td>${e.actor}</td><td>${e.action}${e.revision !== null ? ` (rev ${e.revision})` : ''}${e.detail ? html`<br /><em>${e.detail}</em>` : nothing}</td></tr>`)}</tbody></table>` : nothing}
       </section>
       <section>
         <h3>Share with the site team</h3>

@@ -25,6 +25,9 @@ const COMMANDS: Record<string, () => Promise<CliCommand>> = {
   'pumping-test': async () => (await import('./pumping-test-command')).runPumpingTestCommand,
   import: async () => (await import('./import-command')).runImportCommand,
   section: async () => (await import('./section-command')).runSectionCommand,
+  user: async () => (await import('./user-command')).runUserCommand,
+  backup: async () => (await import('./backup-command')).runBackupCommand,
+  restore: async () => (await import('./backup-command')).runRestoreCommand,
 };
 
 const HELP: Record<string, string> = { evaluate: EVALUATE_HELP, serve: SERVE_HELP };
@@ -61,6 +64,11 @@ export async function runCli(argv: readonly string[], io: CliIo = processIo()): 
     const run = await load();
     return await run(args, io);
   } catch (error) {
+    // A damaged database is told as it is (which file, how to restore), with no stack.
+    if (error instanceof DrydigError && error.code === 'DRYDIG_ERR_STORED_DATA_DAMAGED') {
+      io.stderr(`${error.code}: ${oneLine(error.message)}\n`);
+      return EXIT_FAILURE;
+    }
     if (error instanceof DrydigError && error.status < 500) {
       io.stderr(`${error.code}: ${oneLine(error.message)}\n`);
       return EXIT_BAD_INPUT;

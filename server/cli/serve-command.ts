@@ -13,6 +13,7 @@ import { checkTileOrigin } from '../security';
 import type { CliCommand, CliIo } from './cli-io';
 import { parseOptions, usageError } from './parse-options';
 import { SERVE_HELP } from './usage-text';
+import { issueSetupToken, setupLinkText } from '../auth';
 
 export const DEFAULT_PORT = 8080;
 export const DEFAULT_HOST = '127.0.0.1';
@@ -109,6 +110,9 @@ export async function startServer(settings: ServeSettings): Promise<{ app: Fasti
 export async function serveUntilStopped(settings: ServeSettings, io: CliIo): Promise<number> {
   const { app, url } = await startServer(settings);
   io.stderr(`drydig: serving ${url} (data: ${settings.dataDir}); Ctrl-C stops\n`);
+  // No default password: with no account yet, a one-time link makes the first admin.
+  const setupToken = issueSetupToken(app.scenarioStore);
+  if (setupToken) io.stderr(setupLinkText(url, setupToken));
   return new Promise<number>((resolve) => {
     const stop = (signal: string) => {
       process.off('SIGINT', onInt);

@@ -10,6 +10,9 @@ Usage:
   drydig import FILE.ags | FILE.dxf [--borehole ID[,ID] --at x,y] [--unit M]
   drydig section FILE.json [--compare] [--flow-net] [--pretty | --csv]
   drydig serve [--port N] [--host H] [--data DIR] [--body-limit BYTES]
+  drydig user add NAME [--role admin|designer|viewer] | list | disable NAME | enable NAME | reset NAME
+  drydig backup DIR [--data DIR]
+  drydig restore BACKUP_FILE [--data DIR]
   drydig help [COMMAND]
   drydig --version
 
@@ -21,6 +24,9 @@ Commands:
   import     what a site file holds: AGS boreholes (and a suggested ground profile), DXF layers
   section    seepage in a vertical section: flow, exit gradient, heave and uplift
   serve      start the web application and HTTP API (http://127.0.0.1:8080 by default)
+  user       accounts of the service: add, list, disable, enable, reset
+  backup     a consistent copy of the store while serving (write-ahead log included)
+  restore    replace the store with a backup (stop the service first)
 
 Exit codes: 0 done, 2 bad input (one line on stderr naming the problem), 1 unexpected error.
 Results are estimates from idealised aquifer models; confirm them against site investigation,

@@ -10,7 +10,7 @@ import type { FastifyInstance, FastifyPluginAsync } from 'fastify';
 import { Type, type Static } from '@sinclair/typebox';
 import { DrydigError } from '../../shared/schema';
 import { createSiteProjection, DESIGN_CAUTIONS, buildSetoutRows } from '../../shared/exports';
-import { hashShareToken, isTokenShaped, type LinkRecord, type RevisionRecord, type ScenarioStore } from '../storage';
+import { hashShareToken, isTokenShaped, type LinkRecord, type ReadingRecord, type RevisionRecord, type ScenarioStore } from '../storage';
 import {
   ExportFormatSchema,
   SMALL_BODY_LIMIT_BYTES,
@@ -41,6 +41,17 @@ async function openLink(store: ScenarioStore, token: string): Promise<OpenedLink
   const record = link.revision === null ? await store.getLatest(link.scenarioId) : await store.getRevision(link.scenarioId, link.revision);
   if (!record) throw notFound();
   return { link, record };
+}
+
+/** "via link 89ljXXXXXXXX" in readings stored before schema 3, and any link id, shown to a link holder. */
+const LINK_ID_IN_TEXT = /\blink [A-Za-z0-9_-]{12}\b/g;
+
+/**
+ * Readings as a share link shows them: who entered them, but never another link's id (a view
+ * link must not learn the edit link's id).
+ */
+async function readingsForLink(store: ScenarioStore, link: LinkRecord): Promise<ReadingRecord[]> {
+  return (await store.listReadings(link.scenarioId)).map((r) => ({ ...r, enteredBy: r.enteredBy.replace(LINK_ID_IN_TEXT, 'share link') }));
 }
 
 function requireEdit(opened: OpenedLink, what: string): void {
@@ -97,7 +108,7 @@ const routes = async (app: FastifyInstance) => {
     async (request, reply) => {
       const { link, record } = await openLink(store, request.params.token);
       return sendExport(reply, request.params.format, {
-        record, readings: await store.listReadings(link.scenarioId), pinned: link.revision !== null, computed: () => computedViewFor(store, record),
+        record, readings: await readingsForLink(store, link), pinned: link.revision !== null, computed: () => computedViewFor(store, record),
       });
     },
   );
@@ -105,12 +116,12 @@ const routes = async (app: FastifyInstance) => {
   app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token/monitoring', { schema: { summary: 'Monitoring plan through a share link', description: 'Expected, alert and action levels per piezometer, with readings assessed.', tags: ['links'], params: TokenParamsSchema } }, async (request, reply) => {
     const { link, record } = await openLink(store, request.params.token);
     reply.header('cache-control', 'no-store');
-    return monitoringPlanFor(record.scenario, await store.listReadings(link.scenarioId));
+    return monitoringPlanFor(record.scenario, await readingsForLink(store, link));
   });
 
   app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token/readings', { schema: { summary: 'Site readings through a share link', description: 'Readings of the scenario, oldest first.', tags: ['links'], params: TokenParamsSchema } }, async (request) => {
     const { link } = await openLink(store, request.params.token);
-    return { readings: (await store.listReadings(link.scenarioId)).map(({ scenarioId: _s, ...r }) => r) };
+    return { readings: (await readingsForLink(store, link)).map(({ scenarioId: _s, ...r }) => r) };
   });
 
   app.post<{ Params: Static<typeof TokenParamsSchema>; Body: Static<typeof ReadingBodySchema> }>(
@@ -120,7 +131,9 @@ const routes = async (app: FastifyInstance) => {
       const opened = await openLink(store, request.params.token);
       requireEdit(opened, 'enter readings');
       // Readings are checked against the plan the link shows (the agreed revision when pinned).
-      const reading = await storeReading(store, opened.record, request.body, `link ${opened.link.linkId}`);
+      // The reading names the link kind, not its id; the audit trail keeps which link it was.
+      const reading = await storeReading(store, opened.record, request.body, 'share link');
+      store.accounts.appendAudit({ actor: `link ${opened.link.linkId}`, action: 'reading', scenarioId: opened.link.scenarioId, revision: opened.record.revision, detail: `piezometer ${reading.piezometerId}` });
       return reply.code(201).send(reading);
     },
   );
@@ -137,7 +150,9 @@ const routes = async (app: FastifyInstance) => {
           `this link is pinned to revision ${opened.link.revision}, the agreed plan; it can enter readings but not save a new revision`,
           [{ path: '/token', message: 'pinned link' }],
         );
-      return saveOn(reply, store, opened.link.scenarioId, request.body, false);
+      return saveOn(reply, store, opened.link.scenarioId, request.body, false, (revision) =>
+        store.accounts.appendAudit({ actor: `link ${opened.link.linkId}`, action: 'revision', scenarioId: opened.link.scenarioId, revision, detail: 'saved through an edit link' }),
+      );
     },
   );
 };

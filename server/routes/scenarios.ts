@@ -6,7 +6,7 @@
  * Every save names the revision it was based on; a stale save gets 409 with the newer revision,
  * so no edit is silently lost.
  */
-import type { FastifyInstance, FastifyReply } from 'fastify';
+import type { FastifyInstance, FastifyReply, FastifyRequest } from 'fastify';
 import fp from 'fastify-plugin';
 import { Type, type Static } from '@sinclair/typebox';
 import { DrydigError } from '../../shared/schema';
@@ -33,6 +33,9 @@ import {
 import { createShareToken, hashShareToken } from '../storage';
 import { writeRateLimit } from '../security';
 import { buildMonitoringSeries, computedViewFor, freezeComputedView, sendExport } from '../exports';
+import { actorOf, requireAccount } from '../auth';
+import { auditRoutes } from './audit';
+import { decodeListCursor, encodeListCursor, HistoryQuerySchema, ListQuerySchema, pageSizeOf } from '../storage/http/paging';
 
 declare module 'fastify' {
   interface FastifyInstance {
@@ -68,11 +71,22 @@ async function requireRevision(store: ScenarioStore, scenarioId: string, revisio
 
 const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
   const store = opts.store;
+  // Every route here reads or writes stored data: a signed-in account first (before the body is checked).
+  app.addHook('preValidation', requireAccount(store));
+  const audit = (request: FastifyRequest, action: string, scenarioId: string, revision: number | null, detail = '') =>
+    store.accounts.appendAudit({ actor: actorOf(request), action, scenarioId, revision, detail });
 
-  app.get(
+  app.get<{ Querystring: Static<typeof ListQuerySchema> }>(
     '/scenarios',
-    { schema: { summary: 'List stored scenarios with their latest revision', description: 'Every stored scenario: id, name, latest revision, when and by whom it was saved.', tags: ['scenarios'] } },
-    async () => ({ scenarios: await store.listScenarios() }),
+    { schema: { summary: 'List stored scenarios with their latest revision, newest first, a page at a time', description: 'Stored scenarios: id, name, latest revision, when and by whom it was saved. At most `limit` (default 50, at most 200) per page; `nextCursor` (null on the last page) goes in `cursor` for the next page.', tags: ['scenarios'], querystring: ListQuerySchema } },
+    async (request) => {
+      const limit = pageSizeOf(request.query.limit);
+      const after = request.query.cursor === undefined ? undefined : decodeListCursor(request.query.cursor);
+      const page = await store.listScenarios({ limit: limit + 1, after });
+      const scenarios = page.slice(0, limit);
+      const last = scenarios[scenarios.length - 1];
+      return { scenarios, nextCursor: page.length > limit && last ? encodeListCursor(last) : null };
+    },
   );
 
   app.post<{ Body: Static<typeof NewScenarioBodySchema> }>(
@@ -80,7 +94,8 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
     { schema: { summary: 'Store a new scenario (revision 1)', description: 'Validates the scenario like the evaluate route (issues name the field, e.g. /scenario/wells/3/rate_m3_s) and stores it as revision 1. Import a scenario JSON export by posting it here.', tags: ['scenarios'], body: NewScenarioBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const scenario = parseSaveScenario(request.body.scenario);
-      const record = await store.createScenario({ scenario, savedBy: request.body.savedBy, note: request.body.note });
+      const record = await store.createScenario({ scenario, savedBy: request.body.savedBy ?? actorOf(request), note: request.body.note });
+      audit(request, 'revision', record.scenarioId, record.revision, 'new scenario');
       return reply.code(201).send(publicRevisionMeta(record));
     },
   );
@@ -97,16 +112,20 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
   app.put<{ Params: Static<typeof ScenarioIdParamsSchema>; Body: Static<typeof SaveBodySchema> }>(
     '/scenarios/:id',
     { schema: { summary: 'Save a new revision, based on a known revision', description: 'Stores a new immutable revision if baseRevision is still the latest. Otherwise 409 DRYDIG_ERR_REVISION_CONFLICT with the newer revision in `latest`, so no edit is silently lost.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: SaveBodySchema }, config: writeRateLimit() },
-    async (request, reply) => saveOn(reply, store, request.params.id, request.body),
+    async (request, reply) => saveOn(reply, store, request.params.id, { ...request.body, savedBy: request.body.savedBy ?? actorOf(request) }, true, (revision) => audit(request, 'revision', request.params.id, revision)),
   );
 
-  app.get<{ Params: Static<typeof ScenarioIdParamsSchema> }>(
+  app.get<{ Params: Static<typeof ScenarioIdParamsSchema>; Querystring: Static<typeof HistoryQuerySchema> }>(
     '/scenarios/:id/revisions',
-    { schema: { summary: 'History of a scenario', description: 'Revisions newest first: when, the name the saver gave, their note and a short summary of what changed.', tags: ['scenarios'], params: ScenarioIdParamsSchema } },
+    { schema: { summary: 'History of a scenario, newest first, a page at a time', description: 'Revisions newest first: when, the name the saver gave, their note and a short summary of what changed. At most `limit` (default 50, at most 200) per page; `nextCursor` (null on the last page) goes in `cursor` for the next page.', tags: ['scenarios'], params: ScenarioIdParamsSchema, querystring: HistoryQuerySchema } },
     async (request) => {
-      const revisions = await store.listRevisions(request.params.id);
+      const limit = pageSizeOf(request.query.limit);
+      const beforeRevision = request.query.cursor === undefined ? undefined : parseRevisionParam(request.query.cursor, '/cursor');
+      const revisions = await store.listRevisions(request.params.id, { limit: limit + 1, beforeRevision });
       if (!revisions) throw new DrydigError('DRYDIG_ERR_NOT_FOUND', `no scenario with id "${request.params.id}"`, [{ path: '/id', message: 'no such scenario' }]);
-      return { scenarioId: request.params.id, revisions: revisions.map((r) => publicRevisionMeta(r)) };
+      const page = revisions.slice(0, limit);
+      const last = page[page.length - 1];
+      return { scenarioId: request.params.id, revisions: page.map((r) => publicRevisionMeta(r)), nextCursor: revisions.length > limit && last ? String(last.revision) : null };
     },
   );
 
@@ -128,10 +147,11 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
         scenarioId: request.params.id,
         baseRevision: request.body.baseRevision,
         scenario: old.scenario,
-        savedBy: request.body.savedBy,
+        savedBy: request.body.savedBy ?? actorOf(request),
         note: request.body.note,
         restoredFrom: old.revision,
       });
+      if (outcome.ok) audit(request, 'restore', request.params.id, outcome.revision.revision, `restored revision ${old.revision}`);
       if (!outcome.ok) {
         if (outcome.reason === 'not-found') await requireLatest(store, request.params.id);
         else return conflictAnswer(reply, outcome.latest, request.body.baseRevision);
@@ -175,7 +195,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
     { bodyLimit: SMALL_BODY_LIMIT_BYTES, schema: { summary: 'Enter a site reading', description: 'Appends a piezometer reading; time since pumping started comes from measuredAt and monitoring.pumpingStart, or from time_s.', tags: ['scenarios'], params: ScenarioIdParamsSchema, body: ReadingBodySchema }, config: writeRateLimit() },
     async (request, reply) => {
       const latest = await requireLatest(store, request.params.id);
-      const reading = await storeReading(store, latest, request.body);
+      const reading = await storeReading(store, latest, { ...request.body, enteredBy: request.body.enteredBy ?? actorOf(request) });
       return reply.code(201).send(reading);
     },
   );
@@ -196,6 +216,7 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
         label: request.body.label,
         tokenHash: hashShareToken(token),
       });
+      audit(request, 'link', request.params.id, pinned, `${link.mode} link ${link.linkId}${link.label ? ` "${link.label}"` : ''}`);
       // The token is shown once, here; only its hash is stored.
       return reply.code(201).send({ ...link, token, sitePath: `/site/${token}`, apiPath: `/api/v1/links/${token}` });
     },
@@ -219,9 +240,12 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
         throw new DrydigError('DRYDIG_ERR_NOT_FOUND', `no live link "${request.params.linkId}" on scenario "${request.params.id}"`, [
           { path: '/linkId', message: 'no such link, or already revoked' },
         ]);
+      audit(request, 'revoke', request.params.id, null, `link ${request.params.linkId}`);
       return reply.code(204).send();
     },
   );
+
+  await app.register(auditRoutes, { store, requireLatest: (id: string) => requireLatest(store, id), requireRevision: (id: string, revision: number) => requireRevision(store, id, revision) });
 };
 
 /**
@@ -234,9 +258,11 @@ export async function saveOn(
   scenarioId: string,
   body: Static<typeof SaveBodySchema>,
   revealScenarioId = true,
+  onSaved?: (revision: number) => void,
 ): Promise<FastifyReply> {
   const scenario = parseSaveScenario(body.scenario);
   const outcome = await store.saveRevision({ scenarioId, baseRevision: body.baseRevision, scenario, savedBy: body.savedBy, note: body.note });
+  if (outcome.ok) onSaved?.(outcome.revision.revision);
   if (outcome.ok) return reply.code(201).send(publicRevisionMeta(outcome.revision, revealScenarioId));
   if (outcome.reason === 'conflict') return conflictAnswer(reply, outcome.latest, body.baseRevision, revealScenarioId);
   throw new DrydigError('DRYDIG_ERR_NOT_FOUND', `no scenario with id "${scenarioId}"`, [{ path: '/id', message: 'no such scenario' }]);
@@ -245,10 +271,12 @@ export async function saveOn(
 /** Registers the scenario routes and decorates the app with `scenarioStore` for the link routes. */
 export const scenarioRoutes = fp<ScenarioRoutesOptions>(
   async (app, opts) => {
-    const store = opts.store ?? openScenarioStore(opts.dataDir);
-    app.decorate('scenarioStore', store);
+    // The auth plugin opens the store (sessions live in it); on its own, this plugin opens one.
+    const owned = !opts.store && !app.hasDecorator('scenarioStore');
+    const store = opts.store ?? (app.hasDecorator('scenarioStore') ? app.scenarioStore : openScenarioStore(opts.dataDir));
+    if (!app.hasDecorator('scenarioStore')) app.decorate('scenarioStore', store);
     app.addHook('onClose', async () => {
-      if (!opts.store) await store.close();
+      if (owned) await store.close();
     });
     // fastify-plugin shares the decoration but drops the prefix, so routes go in a child context.
     await app.register(routes, { prefix: opts.prefix ?? '', store });

@@ -4,3 +4,4 @@ export * from './sqlite-scenario-store';
 export * from './open-scenario-store';
 export * from './summarise-changes';
 export * from './tokens';
+export * from './account-store';

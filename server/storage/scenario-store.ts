@@ -7,6 +7,7 @@
  */
 import { DrydigError, type Scenario } from '../../shared/schema';
 import type { PlanReading } from '../../shared/exports';
+import type { AccountStore } from './account-store';
 
 /** What the history shows about one revision (no scenario body). */
 export interface RevisionMeta {
@@ -122,12 +123,13 @@ export interface ScenarioStore {
   createScenario(input: SaveInput): Promise<RevisionRecord>;
   /** Stores a new revision if `baseRevision` is still the latest; otherwise reports the conflict. */
   saveRevision(input: SaveRevisionInput): Promise<SaveOutcome>;
-  listScenarios(): Promise<ScenarioListing[]>;
+  /** Newest saved first; `after` continues a page (the last listing of the page before). */
+  listScenarios(page?: { limit?: number; after?: { savedAt: string; scenarioId: string } }): Promise<ScenarioListing[]>;
   /** Latest revision, or undefined when the scenario does not exist. */
   getLatest(scenarioId: string): Promise<RevisionRecord | undefined>;
   getRevision(scenarioId: string, revision: number): Promise<RevisionRecord | undefined>;
   /** Newest first; undefined when the scenario does not exist. */
-  listRevisions(scenarioId: string): Promise<RevisionMeta[] | undefined>;
+  listRevisions(scenarioId: string, page?: { limit?: number; beforeRevision?: number }): Promise<RevisionMeta[] | undefined>;
   createLink(input: CreateLinkInput): Promise<LinkRecord>;
   findLinkByTokenHash(tokenHash: string): Promise<LinkRecord | undefined>;
   listLinks(scenarioId: string): Promise<LinkRecord[]>;
@@ -139,6 +141,10 @@ export interface ScenarioStore {
   /** Stores computed results for a revision checksum; the first one stored stays (insert-only). */
   putSnapshot(input: Omit<SnapshotRecord, 'computedAt'>): Promise<void>;
   getSnapshot(sha256: string): Promise<SnapshotRecord | undefined>;
+  /** Accounts, sessions and the audit trail (same database). */
+  accounts: AccountStore;
+  /** A consistent copy of the whole database to `file` while serving (WAL included). */
+  backupTo(file: string): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -147,7 +153,12 @@ export interface ScenarioStore {
  * the service answers DRYDIG_ERR_STORED_DATA_DAMAGED (500) instead of serving altered data.
  */
 export class StoredDataDamagedError extends DrydigError {
-  constructor(scenarioId: string, revision: number) {
-    super('DRYDIG_ERR_STORED_DATA_DAMAGED', `stored revision ${revision} of scenario ${scenarioId} does not match its checksum`);
+  constructor(scenarioId: string, revision: number | null, what = 'its scenario text') {
+    super(
+      'DRYDIG_ERR_STORED_DATA_DAMAGED',
+      revision !== null
+        ? `stored revision ${revision} of scenario ${scenarioId} is damaged (${what} was altered); open another revision or restore a backup (drydig restore)`
+        : `the stored ${what} of scenario ${scenarioId} is damaged (altered); restore a backup (drydig restore)`,
+    );
   }
 }

@@ -25,8 +25,9 @@ import {
 } from './scenario-store';
 import { summariseScenarioChanges } from './summarise-changes';
 import { createRecordId, sha256Hex } from './tokens';
+import { ACCOUNTS_MIGRATION, openAccountStore } from './account-store';
 
-const SCHEMA_VERSION = 2;
+const SCHEMA_VERSION = 3;
 
 const MIGRATION_1 = `
 CREATE TABLE scenarios (
@@ -101,6 +102,7 @@ interface RevisionRow {
   name: string;
   restored_from: number | null;
   sha256: string;
+  record_sha256?: string | null;
   body?: string;
 }
 
@@ -112,6 +114,8 @@ interface LinkRow {
   label: string;
   created_at: string;
   revoked_at: string | null;
+  token_hash?: string;
+  record_sha256?: string | null;
 }
 
 interface ReadingRow {
@@ -124,9 +128,53 @@ interface ReadingRow {
   entered_by: string;
   note: string;
   entered_at: string;
+  record_sha256?: string | null;
+}
+
+/**
+ * Checksums of whole records (schema 3): everything the history shows, not only the scenario text,
+ * so a rewritten name, note or date is reported as damage too.
+ */
+function revisionRecordHash(row: RevisionRow): string {
+  return sha256Hex(JSON.stringify(['revision', row.scenario_id, row.revision, row.saved_at, row.saved_by, row.note, row.summary, row.name, row.restored_from, row.sha256]));
+}
+function linkRecordHash(row: LinkRow & { token_hash: string }): string {
+  return sha256Hex(JSON.stringify(['link', row.link_id, row.token_hash, row.scenario_id, row.mode, row.revision, row.label, row.created_at, row.revoked_at]));
+}
+function readingRecordHash(row: Omit<ReadingRow, 'reading_id'>): string {
+  return sha256Hex(JSON.stringify(['reading', row.scenario_id, row.piezometer_id, row.measured_at, row.time_s, row.level_m, row.entered_by, row.note, row.entered_at]));
+}
+
+/**
+ * Schema 3: accounts and audit, and record checksums over every stored field. Rows written before
+ * get their record checksum from what they hold now (their scenario text stays checked as before).
+ */
+function migration3(db: Database.Database): void {
+  db.exec(ACCOUNTS_MIGRATION);
+  db.exec(`
+    ALTER TABLE revisions ADD COLUMN record_sha256 TEXT;
+    ALTER TABLE links ADD COLUMN record_sha256 TEXT;
+    ALTER TABLE readings ADD COLUMN record_sha256 TEXT;
+    DROP TRIGGER revisions_no_update;
+    DROP TRIGGER readings_no_update;`);
+  const setRevision = db.prepare('UPDATE revisions SET record_sha256 = ? WHERE scenario_id = ? AND revision = ?');
+  for (const row of db.prepare('SELECT scenario_id, revision, saved_at, saved_by, note, summary, name, restored_from, sha256 FROM revisions').all() as RevisionRow[])
+    setRevision.run(revisionRecordHash(row), row.scenario_id, row.revision);
+  const setLink = db.prepare('UPDATE links SET record_sha256 = ? WHERE link_id = ?');
+  for (const row of db.prepare('SELECT * FROM links').all() as Array<LinkRow & { token_hash: string }>) setLink.run(linkRecordHash(row), row.link_id);
+  const setReading = db.prepare('UPDATE readings SET record_sha256 = ? WHERE reading_id = ?');
+  for (const row of db.prepare('SELECT * FROM readings').all() as ReadingRow[]) setReading.run(readingRecordHash(row), row.reading_id);
+  db.exec(`
+    CREATE TRIGGER revisions_no_update BEFORE UPDATE ON revisions BEGIN SELECT RAISE(ABORT, 'revisions are immutable'); END;
+    CREATE TRIGGER readings_no_update BEFORE UPDATE ON readings BEGIN SELECT RAISE(ABORT, 'readings are append-only'); END;`);
+}
+
+function checkRevisionRow(row: RevisionRow): void {
+  if (row.record_sha256 !== undefined && row.record_sha256 !== revisionRecordHash(row)) throw new StoredDataDamagedError(row.scenario_id, row.revision, 'its history record (name, saved by, note, summary or date)');
 }
 
 function toMeta(row: RevisionRow): RevisionMeta {
+  checkRevisionRow(row);
   return {
     scenarioId: row.scenario_id,
     revision: row.revision,
@@ -143,10 +191,18 @@ function toMeta(row: RevisionRow): RevisionMeta {
 function toRecord(row: RevisionRow): RevisionRecord {
   const body = row.body ?? '';
   if (sha256Hex(body) !== row.sha256) throw new StoredDataDamagedError(row.scenario_id, row.revision);
-  return { ...toMeta(row), scenario: JSON.parse(body) as Scenario };
+  let scenario: Scenario;
+  try {
+    scenario = JSON.parse(body) as Scenario;
+  } catch {
+    throw new StoredDataDamagedError(row.scenario_id, row.revision);
+  }
+  return { ...toMeta(row), scenario };
 }
 
 function toLink(row: LinkRow): LinkRecord {
+  if (row.record_sha256 !== undefined && row.record_sha256 !== linkRecordHash(row as LinkRow & { token_hash: string }))
+    throw new StoredDataDamagedError(row.scenario_id, null, `share link ${row.link_id}`);
   return {
     linkId: row.link_id,
     scenarioId: row.scenario_id,
@@ -159,6 +215,7 @@ function toLink(row: LinkRow): LinkRecord {
 }
 
 function toReading(row: ReadingRow): ReadingRecord {
+  if (row.record_sha256 !== undefined && row.record_sha256 !== readingRecordHash(row)) throw new StoredDataDamagedError(row.scenario_id, null, `site reading ${row.reading_id}`);
   return {
     readingId: row.reading_id,
     scenarioId: row.scenario_id,
@@ -177,12 +234,33 @@ export interface SqliteScenarioStoreOptions {
   filename: string;
   /** How long a writer waits for another process's lock before failing, ms. Default 5000. */
   busyTimeout_ms?: number;
+  /** Run SQLite's quick integrity check at open; a damaged file throws. Default false. */
+  integrityCheck?: boolean;
+}
+
+/** SQLite's quick check: 'ok', or the first problems it found. */
+export function quickCheck(db: Database.Database): string {
+  const rows = db.pragma('quick_check(5)') as Array<{ quick_check: string }>;
+  return rows.map((r) => r.quick_check).join('; ');
 }
 
 /** Opens (creating and migrating when needed) a SQLite-backed ScenarioStore. */
 export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): ScenarioStore {
   const db = new Database(options.filename);
   db.pragma(`busy_timeout = ${Math.max(0, Math.round(options.busyTimeout_ms ?? 5000))}`);
+  if (options.integrityCheck) {
+    let verdict: string;
+    try {
+      verdict = quickCheck(db);
+    } catch (error) {
+      db.close();
+      throw error;
+    }
+    if (verdict !== 'ok') {
+      db.close();
+      throw new Error(`integrity check: ${verdict}`);
+    }
+  }
   if (options.filename !== ':memory:') db.pragma('journal_mode = WAL');
   db.pragma('synchronous = FULL');
   db.pragma('foreign_keys = ON');
@@ -191,41 +269,45 @@ export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): Sc
   if (version > SCHEMA_VERSION)
     throw new Error(`the database was written by a newer drydig (schema ${version}, this one knows ${SCHEMA_VERSION})`);
   // Each step runs once, in order, inside a transaction with the version bump.
-  const migrations: Array<[number, string]> = [[1, MIGRATION_1], [2, MIGRATION_2]];
-  for (const [target, sql] of migrations) {
+  const migrations: Array<[number, string | ((db: Database.Database) => void)]> = [[1, MIGRATION_1], [2, MIGRATION_2], [3, migration3]];
+  for (const [target, step] of migrations) {
     db.transaction(() => {
       const current = db.pragma('user_version', { simple: true }) as number;
       if (current >= target) return;
-      db.exec(sql);
+      if (typeof step === 'string') db.exec(step);
+      else step(db);
       db.pragma(`user_version = ${target}`);
     }).immediate();
   }
 
-  const revisionColumns = 'scenario_id, revision, saved_at, saved_by, note, summary, name, restored_from, sha256';
+  const revisionColumns = 'scenario_id, revision, saved_at, saved_by, note, summary, name, restored_from, sha256, record_sha256';
+  const linkColumns = 'link_id, token_hash, scenario_id, mode, revision, label, created_at, revoked_at, record_sha256';
   const q = {
     insertScenario: db.prepare('INSERT INTO scenarios (id, created_at) VALUES (?, ?)'),
     insertRevision: db.prepare(
-      `INSERT INTO revisions (${revisionColumns}, body) VALUES (@scenario_id, @revision, @saved_at, @saved_by, @note, @summary, @name, @restored_from, @sha256, @body)`,
+      `INSERT INTO revisions (${revisionColumns}, body) VALUES (@scenario_id, @revision, @saved_at, @saved_by, @note, @summary, @name, @restored_from, @sha256, @record_sha256, @body)`,
     ),
     latest: db.prepare(`SELECT ${revisionColumns}, body FROM revisions WHERE scenario_id = ? ORDER BY revision DESC LIMIT 1`),
     byNumber: db.prepare(`SELECT ${revisionColumns}, body FROM revisions WHERE scenario_id = ? AND revision = ?`),
-    history: db.prepare(`SELECT ${revisionColumns} FROM revisions WHERE scenario_id = ? ORDER BY revision DESC`),
+    history: db.prepare(`SELECT ${revisionColumns} FROM revisions WHERE scenario_id = ? AND revision < ? ORDER BY revision DESC LIMIT ?`),
     exists: db.prepare('SELECT 1 FROM scenarios WHERE id = ?'),
     list: db.prepare(
       `SELECT s.id AS scenario_id, s.created_at, r.revision, r.saved_at, r.saved_by, r.name
        FROM scenarios s JOIN revisions r ON r.scenario_id = s.id
        WHERE r.revision = (SELECT MAX(revision) FROM revisions WHERE scenario_id = s.id)
-       ORDER BY r.saved_at DESC, s.id`,
+         AND (r.saved_at < @at OR (r.saved_at = @at AND s.id < @id))
+       ORDER BY r.saved_at DESC, s.id DESC LIMIT @limit`,
     ),
     insertLink: db.prepare(
-      'INSERT INTO links (link_id, token_hash, scenario_id, mode, revision, label, created_at) VALUES (?, ?, ?, ?, ?, ?, ?)',
+      'INSERT INTO links (link_id, token_hash, scenario_id, mode, revision, label, created_at, record_sha256) VALUES (?, ?, ?, ?, ?, ?, ?, ?)',
     ),
-    linkByHash: db.prepare('SELECT link_id, scenario_id, mode, revision, label, created_at, revoked_at FROM links WHERE token_hash = ?'),
-    linksOf: db.prepare('SELECT link_id, scenario_id, mode, revision, label, created_at, revoked_at FROM links WHERE scenario_id = ? ORDER BY created_at, link_id'),
-    revoke: db.prepare('UPDATE links SET revoked_at = ? WHERE scenario_id = ? AND link_id = ? AND revoked_at IS NULL'),
+    linkByHash: db.prepare(`SELECT ${linkColumns} FROM links WHERE token_hash = ?`),
+    linkById: db.prepare(`SELECT ${linkColumns} FROM links WHERE scenario_id = ? AND link_id = ?`),
+    linksOf: db.prepare(`SELECT ${linkColumns} FROM links WHERE scenario_id = ? ORDER BY created_at, link_id`),
+    revoke: db.prepare('UPDATE links SET revoked_at = ?, record_sha256 = ? WHERE scenario_id = ? AND link_id = ? AND revoked_at IS NULL'),
     insertReading: db.prepare(
-      `INSERT INTO readings (scenario_id, piezometer_id, measured_at, time_s, level_m, entered_by, note, entered_at)
-       VALUES (@scenario_id, @piezometer_id, @measured_at, @time_s, @level_m, @entered_by, @note, @entered_at)`,
+      `INSERT INTO readings (scenario_id, piezometer_id, measured_at, time_s, level_m, entered_by, note, entered_at, record_sha256)
+       VALUES (@scenario_id, @piezometer_id, @measured_at, @time_s, @level_m, @entered_by, @note, @entered_at, @record_sha256)`,
     ),
     readingById: db.prepare('SELECT * FROM readings WHERE reading_id = ?'),
     readingsOf: db.prepare('SELECT * FROM readings WHERE scenario_id = ? ORDER BY time_s, reading_id'),
@@ -234,10 +316,11 @@ export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): Sc
   };
 
   const now = () => new Date().toISOString();
+  const accounts = openAccountStore(db);
 
   function insertRevision(scenarioId: string, revision: number, input: SaveInput, before: Scenario | undefined, restoredFrom: number | null): RevisionRecord {
     const body = JSON.stringify(input.scenario);
-    const row: Required<RevisionRow> = {
+    const row: Required<Omit<RevisionRow, 'record_sha256'>> & { record_sha256: string } = {
       scenario_id: scenarioId,
       revision,
       saved_at: now(),
@@ -247,8 +330,10 @@ export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): Sc
       name: input.scenario.name,
       restored_from: restoredFrom,
       sha256: sha256Hex(body),
+      record_sha256: '',
       body,
     };
+    row.record_sha256 = revisionRecordHash(row);
     q.insertRevision.run(row);
     // Hand back a parsed copy so callers never share objects with their input.
     return toRecord(row);
@@ -275,8 +360,9 @@ export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): Sc
     async saveRevision(input) {
       return saveTx.immediate(input);
     },
-    async listScenarios(): Promise<ScenarioListing[]> {
-      const rows = q.list.all() as Array<{ scenario_id: string; created_at: string; revision: number; saved_at: string; saved_by: string; name: string }>;
+    async listScenarios(page = {}): Promise<ScenarioListing[]> {
+      const after = page.after ?? { savedAt: '\uffff', scenarioId: '\uffff' };
+      const rows = q.list.all({ at: after.savedAt, id: after.scenarioId, limit: page.limit ?? -1 }) as Array<{ scenario_id: string; created_at: string; revision: number; saved_at: string; saved_by: string; name: string }>;
       return rows.map((r) => ({
         scenarioId: r.scenario_id,
         name: r.name,
@@ -294,14 +380,15 @@ export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): Sc
       const row = q.byNumber.get(scenarioId, revision) as RevisionRow | undefined;
       return row ? toRecord(row) : undefined;
     },
-    async listRevisions(scenarioId) {
+    async listRevisions(scenarioId, page = {}) {
       if (!q.exists.get(scenarioId)) return undefined;
-      return (q.history.all(scenarioId) as RevisionRow[]).map(toMeta);
+      return (q.history.all(scenarioId, page.beforeRevision ?? Number.MAX_SAFE_INTEGER, page.limit ?? -1) as RevisionRow[]).map(toMeta);
     },
     async createLink(input: CreateLinkInput) {
       const linkId = createRecordId(9);
       const createdAt = now();
-      q.insertLink.run(linkId, input.tokenHash, input.scenarioId, input.mode, input.revision, input.label ?? '', createdAt);
+      const row = { link_id: linkId, token_hash: input.tokenHash, scenario_id: input.scenarioId, mode: input.mode, revision: input.revision, label: input.label ?? '', created_at: createdAt, revoked_at: null };
+      q.insertLink.run(linkId, input.tokenHash, input.scenarioId, input.mode, input.revision, input.label ?? '', createdAt, linkRecordHash(row));
       return { linkId, scenarioId: input.scenarioId, mode: input.mode, revision: input.revision, label: input.label ?? '', createdAt, revokedAt: null };
     },
     async findLinkByTokenHash(tokenHash) {
@@ -312,10 +399,16 @@ export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): Sc
       return (q.linksOf.all(scenarioId) as LinkRow[]).map(toLink);
     },
     async revokeLink(scenarioId, linkId) {
-      return q.revoke.run(now(), scenarioId, linkId).changes === 1;
+      return db.transaction(() => {
+        const row = q.linkById.get(scenarioId, linkId) as (LinkRow & { token_hash: string }) | undefined;
+        if (!row || row.revoked_at !== null) return false;
+        toLink(row);
+        const revokedAt = now();
+        return q.revoke.run(revokedAt, linkRecordHash({ ...row, revoked_at: revokedAt }), scenarioId, linkId).changes === 1;
+      }).immediate();
     },
     async appendReading(input: AppendReadingInput) {
-      const info = q.insertReading.run({
+      const row = {
         scenario_id: input.scenarioId,
         piezometer_id: input.piezometerId,
         measured_at: input.measuredAt,
@@ -324,7 +417,8 @@ export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): Sc
         entered_by: input.enteredBy,
         note: input.note,
         entered_at: now(),
-      });
+      };
+      const info = q.insertReading.run({ ...row, record_sha256: readingRecordHash(row) });
       return toReading(q.readingById.get(info.lastInsertRowid) as ReadingRow);
     },
     async listReadings(scenarioId) {
@@ -336,6 +430,11 @@ export function openSqliteScenarioStore(options: SqliteScenarioStoreOptions): Sc
     async getSnapshot(sha256) {
       const row = q.snapshot.get(sha256) as { sha256: string; computed_by: string; computed_at: string; body: string } | undefined;
       return row ? { sha256: row.sha256, computedBy: row.computed_by, computedAt: row.computed_at, body: row.body } : undefined;
+    },
+    accounts,
+    async backupTo(file) {
+      // SQLite's online backup: a consistent copy, WAL content included, while others keep writing.
+      await db.backup(file);
     },
     async close() {
       if (db.open) db.close();

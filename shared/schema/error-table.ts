@@ -91,6 +91,31 @@ export const ERROR_TABLE = {
     title: 'This share link has been revoked',
     fix: 'Ask the designer for a new link.',
   },
+  DRYDIG_ERR_SIGN_IN_REQUIRED: {
+    status: 401,
+    title: 'Sign in first',
+    fix: 'Sign in with your drydig account (an admin adds accounts with `drydig user add`).',
+  },
+  DRYDIG_ERR_SIGN_IN_FAILED: {
+    status: 401,
+    title: 'The user name or password is wrong, or the account is disabled',
+    fix: 'Check the user name and password; an admin can reset it with `drydig user reset`.',
+  },
+  DRYDIG_ERR_ROLE_FORBIDDEN: {
+    status: 403,
+    title: 'Your role may not do this',
+    fix: 'Viewers can read only; ask an admin for the designer role.',
+  },
+  DRYDIG_ERR_CSRF: {
+    status: 403,
+    title: 'The request lacks the form token of your session',
+    fix: 'Reload the page and try again (writes need the x-drydig-csrf header from GET /api/v1/auth/session).',
+  },
+  DRYDIG_ERR_SETUP_LINK_INVALID: {
+    status: 410,
+    title: 'This setup link has been used or is not valid',
+    fix: 'Sign in with the account made at setup, or make one with `drydig user add`.',
+  },
   DRYDIG_ERR_STORED_DATA_DAMAGED: {
     status: 500,
     title: 'A stored revision does not match its checksum',

@@ -39,13 +39,33 @@ export function stopServer(server: ServerProcess, signal: NodeJS.Signals = 'SIGT
   });
 }
 
-/** JSON request with a timeout; never throws for HTTP errors, only for network failure. */
+/** The account reliability-server.ts makes; the harness signs in once per server origin. */
+export const RELIABILITY_USER = { username: 'reliability', password: 'reliability-test-password' };
+const sessions = new Map<string, Promise<Record<string, string>>>();
+
+/** Session cookie and CSRF token for a server, from a real sign-in (once per origin). */
+function sessionHeadersFor(origin: string): Promise<Record<string, string>> {
+  let found = sessions.get(origin);
+  if (!found) {
+    found = (async () => {
+      const res = await fetch(`${origin}/api/v1/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(RELIABILITY_USER) });
+      if (res.status !== 200) throw new Error(`sign-in to ${origin} answered ${res.status}`);
+      const cookie = (res.headers.get('set-cookie') ?? '').split(';')[0]!;
+      const { csrfToken } = (await res.json()) as { csrfToken: string };
+      return { cookie, 'x-drydig-csrf': csrfToken };
+    })();
+    sessions.set(origin, found);
+  }
+  return found;
+}
+
+/** JSON request with a timeout, signed in; never throws for HTTP errors, only for network failure. */
 // The answers are read loosely, field by field, as a client would.
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export async function request(origin: string, method: string, path: string, body?: unknown, timeout_ms = 10_000): Promise<{ status: number; json: any }> {
   const res = await fetch(`${origin}${path}`, {
     method,
-    headers: body === undefined ? {} : { 'content-type': 'application/json' },
+    headers: { ...(await sessionHeadersFor(origin)), ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
     body: body === undefined ? undefined : JSON.stringify(body),
     signal: AbortSignal.timeout(timeout_ms),
   });

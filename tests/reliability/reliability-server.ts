@@ -4,6 +4,8 @@
  * `LISTENING <port>` on stdout, and keeps the write limit high so bursts test storage, not limits.
  */
 import { buildApp } from '../../server/app';
+import { hashPassword } from '../../server/auth';
+import { RELIABILITY_USER } from './reliability-harness';
 
 const dataDir = process.argv[2];
 if (!dataDir) {
@@ -11,6 +13,9 @@ if (!dataDir) {
   process.exit(2);
 }
 const app = await buildApp({ dataDir, clientDir: false, security: { writeMax: 1_000_000 } });
+// The storage routes need an account: the harness signs in with this one.
+if (!app.scenarioStore.accounts.findUser(RELIABILITY_USER.username))
+  app.scenarioStore.accounts.addUser({ username: RELIABILITY_USER.username, role: 'designer', passwordHash: await hashPassword(RELIABILITY_USER.password) });
 await app.listen({ host: '127.0.0.1', port: 0 });
 const address = app.server.address();
 process.stdout.write(`LISTENING ${typeof address === 'object' && address ? address.port : 0}\n`);

@@ -7,6 +7,7 @@ import { expect } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import { buildApp, type AppOptions } from '../../server/app';
 import type { Scenario } from '../../shared/schema';
+import { signInApp } from '../helpers/sign-in';
 
 export const DEMO_FILES = {
   unconfined: 'fixtures/demo-wellpoints-unconfined.json',
@@ -21,6 +22,13 @@ export function demoScenario(name: keyof typeof DEMO_FILES): Scenario {
 /** An app on an in-memory database without the web client; write limit high unless given. */
 export function memoryApp(options: AppOptions = {}): Promise<FastifyInstance> {
   return buildApp({ dataDir: ':memory:', clientDir: false, security: { writeMax: 100_000 }, ...options });
+}
+
+/** memoryApp with a signed-in designer (or `role`): every inject carries the session cookie and CSRF token. */
+export async function signedInMemoryApp(options: AppOptions = {}, role: 'admin' | 'designer' | 'viewer' = 'designer'): Promise<FastifyInstance> {
+  const app = await memoryApp(options);
+  await signInApp(app, role);
+  return app;
 }
 
 /** |actual − expected| ≤ abs + rel·|expected|, with the source named in the failure message. */

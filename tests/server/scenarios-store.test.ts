@@ -10,6 +10,7 @@ import Database from 'better-sqlite3';
 import { afterEach, describe, expect, it } from 'vitest';
 import { DATABASE_FILE, openScenarioStore, openSqliteScenarioStore, StoredDataDamagedError, summariseScenarioChanges } from '../../server/storage';
 import { buildApp } from '../../server/app';
+import { signInApp } from '../helpers/sign-in';
 import type { Scenario } from '../../shared/schema';
 import { demoScenario } from './scenarios-helpers';
 
@@ -67,9 +68,9 @@ describe('openScenarioStore(dataDir)', () => {
     const dir = tempDir();
     (await openScenarioStore(dir).close());
     const raw = new Database(join(dir, DATABASE_FILE));
-    expect(raw.pragma('user_version', { simple: true })).toBe(2);
+    expect(raw.pragma('user_version', { simple: true })).toBe(3);
     expect(raw.prepare("SELECT name FROM sqlite_master WHERE type = 'table' ORDER BY name").all().map((r) => (r as { name: string }).name))
-      .toEqual(expect.arrayContaining(['links', 'readings', 'revisions', 'scenarios', 'snapshots']));
+      .toEqual(expect.arrayContaining(['links', 'readings', 'revisions', 'scenarios', 'snapshots', 'users', 'sessions', 'audit']));
     raw.close();
     const again = openScenarioStore(dir);
     await again.close();
@@ -122,6 +123,7 @@ describe('stored revisions', () => {
   it('answer a damaged revision over HTTP with a 500 that says nothing internal', async () => {
     const { dir, saved } = await storeDamagedRevision('15', '16');
     const app = await buildApp({ dataDir: dir, clientDir: false });
+    await signInApp(app);
     const res = await app.inject({ method: 'GET', url: `/api/v1/scenarios/${saved.scenarioId}` });
     expect(res.statusCode).toBe(500);
     expect(res.json().error.code).toBe('DRYDIG_ERR_STORED_DATA_DAMAGED');

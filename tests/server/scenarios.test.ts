@@ -5,11 +5,11 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import type { Scenario } from '../../shared/schema';
-import { createStored, demoScenario, memoryApp } from './scenarios-helpers';
+import { createStored, demoScenario, signedInMemoryApp } from './scenarios-helpers';
 
 let app: FastifyInstance;
 beforeEach(async () => {
-  app = await memoryApp();
+  app = await signedInMemoryApp();
 });
 afterEach(async () => {
   await app.close();

@@ -9,7 +9,8 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildApp } from '../../server/app';
 import { redactTokens } from '../../server/security';
-import { createStored, demoScenario, memoryApp } from './scenarios-helpers';
+import { createStored, demoScenario, memoryApp, signedInMemoryApp } from './scenarios-helpers';
+import { signInApp } from '../helpers/sign-in';
 
 describe('security headers', () => {
   it('send a CSP allowing only same-origin scripts and workers, inline styles, data:/blob: images', async () => {
@@ -59,6 +60,7 @@ describe('security headers', () => {
 describe('write rate limit', () => {
   it('answers 429 DRYDIG_ERR_RATE_LIMITED past the limit, on writes only', async () => {
     const app = await buildApp({ dataDir: ':memory:', clientDir: false, security: { writeMax: 5, writeWindow_ms: 60_000 } });
+    await signInApp(app);
     const statuses: number[] = [];
     for (let i = 0; i < 7; i++) statuses.push((await app.inject({ method: 'POST', url: '/api/v1/scenarios', payload: { scenario: demoScenario('confined') } })).statusCode);
     expect(statuses).toEqual([201, 201, 201, 201, 201, 429, 429]);
@@ -74,7 +76,7 @@ describe('write rate limit', () => {
 
 describe('body size limit', () => {
   it('refuses an oversize save with 413 before storing anything', async () => {
-    const app = await memoryApp({ bodyLimit_bytes: 20_000 });
+    const app = await signedInMemoryApp({ bodyLimit_bytes: 20_000 });
     const big = demoScenario('confined');
     big.name = 'x'.repeat(150);
     (big as unknown as Record<string, unknown>).padding = 'y'.repeat(30_000);
@@ -88,7 +90,7 @@ describe('body size limit', () => {
 
 describe('small-body routes', () => {
   it('refuse a reading or link request over 16 KiB with 413, whatever the service limit', async () => {
-    const app = await memoryApp();
+    const app = await signedInMemoryApp();
     const id = await createStored(app, demoScenario('confined'));
     const link = await app.inject({ method: 'POST', url: `/api/v1/scenarios/${id}/links`, payload: { mode: 'view', label: 'x'.repeat(17 * 1024) } });
     expect(link.statusCode).toBe(413);
@@ -147,7 +149,7 @@ describe('redactTokens(url)', () => {
 
 describe('stored data', () => {
   it('is untouched by a request carrying prototype-pollution keys', async () => {
-    const app = await memoryApp();
+    const app = await signedInMemoryApp();
     const id = await createStored(app, demoScenario('confined'));
     const res = await app.inject({
       method: 'PUT', url: `/api/v1/scenarios/${id}`,

@@ -69,7 +69,11 @@ export const ReadingBodySchema = Type.Object(
 export const ScenarioIdParamsSchema = Type.Object({ id: Type.String({ pattern: SCENARIO_ID_PATTERN }) });
 export const RevisionParamSchema = Type.Object({ id: Type.String({ pattern: SCENARIO_ID_PATTERN }), revision: Type.String({ pattern: REVISION_TEXT_PATTERN }) });
 export const LinkIdParamsSchema = Type.Object({ id: Type.String({ pattern: SCENARIO_ID_PATTERN }), linkId: Type.String({ pattern: LINK_ID_PATTERN }) });
-export const TokenParamsSchema = Type.Object({ token: Type.String({ pattern: TOKEN_PATTERN }) });
+/**
+ * The token's shape is checked by the route (isTokenShaped), not here: any wrong-shaped token gets
+ * the same 404 as an unknown one, as documented, so tokens cannot be probed by their answers.
+ */
+export const TokenParamsSchema = Type.Object({ token: Type.String({ maxLength: 200, description: `A share token (${TOKEN_PATTERN}).` }) });
 
 export const EXPORT_FORMATS = ['scenario-json', 'setout-csv', 'geojson', 'dxf', 'report-html', 'monitoring-csv'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];

@@ -9,12 +9,12 @@ import { evaluateRoutes } from './routes/evaluate';
 import { installRouteCatalog, openapiRoutes } from './routes/openapi';
 import { designRoutes } from './routes/design';
 import { pumpingTestRoutes } from './routes/pumping-test';
-import { sectionRoutes } from './routes/section';
+import { sectionRoutes, type SectionSolverOptions } from './routes/section';
 import { scenarioRoutes } from './routes/scenarios';
 import { linkRoutes } from './routes/links';
 import { clientStatic } from './routes/client-static';
 import { DEFAULT_MAX_GRID_NODES, DEFAULT_MAX_POINTS } from './request-schemas';
-import type { SectionSolverOptions } from './section-compute';
+import { computePlugin, type ComputePoolOptions } from './compute';
 import { checkTileOrigin, securityPlugin, withRedactedLogging, type SecurityOptions } from './security';
 
 export interface AppOptions {
@@ -39,8 +39,16 @@ export interface AppOptions {
    * client loads same-origin resources only. Anything that is not an https origin is refused.
    */
   tileOrigin?: string;
-  /** Section solves (worker thread): time budget per job and queue length. Default 30 s, 8 waiting. */
+  /**
+   * The compute pool every request's engine work runs on (server/compute): threads (default the
+   * cores, at least 2; 0 = in process), time budget per job, queue limits. Defaults: 30 s a job
+   * (75 s a layout search), 32 waiting, 4 per client.
+   */
+  compute?: ComputePoolOptions;
+  /** Section solves: their time budget on the compute pool. Default the pool's. */
   section?: SectionSolverOptions;
+  /** Largest wells × points × times of one evaluate. Default 2.5·10⁸. */
+  maxWork?: number;
 }
 
 export const DEFAULT_BODY_LIMIT_BYTES = 8 * 1024 * 1024;
@@ -74,10 +82,12 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   installRouteCatalog(app);
   // Before the routes: the rate limiter attaches to write routes as they are added.
   await app.register(securityPlugin, { ...options.security, tileOrigin: resolveTileOrigin(options) });
+  // Before the routes: every request runs in a compute scope (the pool, its client, its lane).
+  await app.register(computePlugin, options.compute ?? {});
   const maxGridNodes = options.maxGridNodes ?? DEFAULT_MAX_GRID_NODES;
   const maxPoints = options.maxPoints ?? DEFAULT_MAX_POINTS;
   await app.register(healthRoutes, { prefix: '/api/v1', limits: { bodyLimit_bytes, maxGridNodes, maxPoints } });
-  await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes, maxPoints });
+  await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes, maxPoints, ...(options.maxWork ? { maxWork: options.maxWork } : {}) });
   await app.register(designRoutes, { prefix: '/api/v1' });
   await app.register(pumpingTestRoutes, { prefix: '/api/v1' });
   await app.register(sectionRoutes, { prefix: '/api/v1', solver: options.section });

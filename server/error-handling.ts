@@ -164,6 +164,9 @@ export function installErrorHandling(app: FastifyInstance): void {
   app.setErrorHandler((error: unknown, request: FastifyRequest, reply: FastifyReply) => {
     const { status, body, internal } = classifyError(error);
     if (internal) request.log.error({ err: error }, `unexpected error on ${describeRequest(request)}`);
+    // A refusal for load says when to come back (RFC 9110 section 10.2.3).
+    const retryAfter_s = (error as { retryAfter_s?: unknown } | null)?.retryAfter_s;
+    if (typeof retryAfter_s === 'number') void reply.header('retry-after', String(Math.ceil(retryAfter_s)));
     else request.log.info({ code: body.error.code, issues: body.error.issues?.length ?? 0 }, body.error.message);
     return reply.status(status).type('application/json; charset=utf-8').send(body);
   });

@@ -6,7 +6,7 @@
  */
 import type { FastifyPluginAsync } from 'fastify';
 import { DrydigError, parseScenario, type Scenario } from '../../shared/schema';
-import { runEvaluation } from '../evaluation';
+import { checkEvaluateWork, currentCompute, DEFAULT_MAX_WORK } from '../compute';
 import {
   buildEvaluateRequestSchema,
   DEFAULT_MAX_GRID_NODES,
@@ -21,6 +21,8 @@ export interface EvaluateRoutesOptions {
   maxGridNodes?: number;
   /** Largest points × times per request. Default 100 000. */
   maxPoints?: number;
+  /** Largest wells × points × times per request. Default 2.5·10⁸. */
+  maxWork?: number;
 }
 
 /** Throws the size errors a request can earn before any computing starts. */
@@ -85,8 +87,10 @@ export const evaluateRoutes: FastifyPluginAsync<EvaluateRoutesOptions> = async (
     },
     async (request) => {
       checkRequestSize(request.body, limits);
+      checkEvaluateWork(request.body, options.maxWork ?? DEFAULT_MAX_WORK);
       const scenario: Scenario = request.body.scenario;
-      return runEvaluation({
+      // On the compute pool: a large grid never holds the event loop.
+      return currentCompute().run('evaluate', {
         scenario,
         points: request.body.points,
         grid: request.body.grid,

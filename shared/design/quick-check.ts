@@ -10,6 +10,9 @@ export function buildQuickChecks(ctx: DesignContext, total_m3_s: number): QuickC
     const shared = scenario.excavations.length > 1 ? ' The superposition total serves every excavation.' : '';
     try {
       const c = equivalentWellInflow({ scenario, excavationId: e.id, time_s: ctx.designTime_s });
+      // Far outside the formula's range (e.g. a design time of a fraction of a second, W(u) → 0)
+      // the estimate is no number at all: say so rather than hand out Infinity.
+      if (!Number.isFinite(c.rate_m3_s)) throw new RangeError(`the estimate is not a finite number here (${String(c.rate_m3_s)} m³/s): the design time is outside the formula's useful range`);
       return {
         excavationId: e.id,
         equivalentWellInflow_m3_s: c.rate_m3_s,

@@ -7,3 +7,5 @@ export * from './view-schema';
 export * from './pumping-test-record-schema';
 export * from './section-schema';
 export * from './validate-section';
+export * from './structural-issues';
+export * from './physical-ranges';

@@ -15,7 +15,17 @@ import { linkRoutes } from './routes/links';
 import { clientStatic } from './routes/client-static';
 import { DEFAULT_MAX_GRID_NODES, DEFAULT_MAX_POINTS } from './request-schemas';
 import { computePlugin, type ComputePoolOptions } from './compute';
-import { checkTileOrigin, securityPlugin, withRedactedLogging, type SecurityOptions } from './security';
+import {
+  checkTileOrigin,
+  connectionTimeoutOptions,
+  installHostAllowList,
+  limitConnections,
+  LOOPBACK_HOST_NAMES,
+  securityPlugin,
+  withRedactedLogging,
+  type ConnectionLimits,
+  type SecurityOptions,
+} from './security';
 
 export interface AppOptions {
   /** Folder for stored scenarios (SQLite). Default `./data`; ':memory:' keeps nothing on disk. */
@@ -49,6 +59,13 @@ export interface AppOptions {
   section?: SectionSolverOptions;
   /** Largest wells × points × times of one evaluate. Default 2.5·10⁸. */
   maxWork?: number;
+  /**
+   * Host names the service answers for (the Host header, port ignored); others get 421. Default
+   * localhost, 127.0.0.1 and ::1; `drydig serve` adds its bind address and `--host-name` values.
+   */
+  hostNames?: readonly string[];
+  /** Header and request time-outs, idle keep-alive, connections per address (server/security/connection-limits). */
+  connections?: ConnectionLimits;
 }
 
 export const DEFAULT_BODY_LIMIT_BYTES = 8 * 1024 * 1024;
@@ -69,6 +86,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
     // Share tokens in URLs are redacted from every log line.
     logger: withRedactedLogging(options.logger ?? false),
     bodyLimit: bodyLimit_bytes,
+    ...connectionTimeoutOptions(options.connections),
     ajv: { customOptions: { allErrors: false, coerceTypes: false, removeAdditional: false } },
     // Errors the router raises before any handler (malformed %-escapes, over-long parameters)
     // leave in the same JSON error shape as every other failure.
@@ -78,19 +96,23 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
     },
   });
   installErrorHandling(app);
+  limitConnections(app.server, options.connections);
+  // First of all hooks: a request for another host name is not served at all (DNS rebinding).
+  installHostAllowList(app, options.hostNames ?? LOOPBACK_HOST_NAMES);
   // Before any plugin, so every route (whoever adds it) lands in the OpenAPI description.
   installRouteCatalog(app);
   // Before the routes: the rate limiter attaches to write routes as they are added.
-  await app.register(securityPlugin, { ...options.security, tileOrigin: resolveTileOrigin(options) });
+  const security = { ...options.security, tileOrigin: resolveTileOrigin(options) };
+  await app.register(securityPlugin, security);
   // Before the routes: every request runs in a compute scope (the pool, its client, its lane).
   await app.register(computePlugin, options.compute ?? {});
   const maxGridNodes = options.maxGridNodes ?? DEFAULT_MAX_GRID_NODES;
   const maxPoints = options.maxPoints ?? DEFAULT_MAX_POINTS;
   await app.register(healthRoutes, { prefix: '/api/v1', limits: { bodyLimit_bytes, maxGridNodes, maxPoints } });
-  await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes, maxPoints, ...(options.maxWork ? { maxWork: options.maxWork } : {}) });
-  await app.register(designRoutes, { prefix: '/api/v1' });
-  await app.register(pumpingTestRoutes, { prefix: '/api/v1' });
-  await app.register(sectionRoutes, { prefix: '/api/v1', solver: options.section });
+  await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes, maxPoints, security, ...(options.maxWork ? { maxWork: options.maxWork } : {}) });
+  await app.register(designRoutes, { prefix: '/api/v1', security });
+  await app.register(pumpingTestRoutes, { prefix: '/api/v1', security });
+  await app.register(sectionRoutes, { prefix: '/api/v1', solver: options.section, security });
   await app.register(scenarioRoutes, { prefix: '/api/v1', dataDir: options.dataDir ?? 'data' });
   await app.register(linkRoutes, { prefix: '/api/v1' });
   await app.register(openapiRoutes, { prefix: '/api/v1' });

@@ -14,7 +14,7 @@ import { availableParallelism } from 'node:os';
 import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import { DrydigError, type ErrorCode, type FieldIssue } from '../../shared/schema';
-import { COMPUTE_TASKS, type ComputeInput, type ComputeOutput, type ComputeTaskName, type ProgressReporter } from './compute-tasks';
+import { asRequestError, COMPUTE_TASKS, type ComputeInput, type ComputeOutput, type ComputeTaskName, type ProgressReporter } from './compute-tasks';
 import { FairQueue, type ComputeLane } from './fair-queue';
 
 export interface ComputePoolOptions {
@@ -70,7 +70,11 @@ function cancelledError(): DrydigError {
 /** Runs a task in process (no thread, no budget): the pool's `threads: 0`. */
 async function runInProcess<N extends ComputeTaskName>(task: N, input: ComputeInput<N>, options: ComputeRunOptions): Promise<ComputeOutput<N>> {
   const run = COMPUTE_TASKS[task] as (input: unknown, progress: ProgressReporter) => unknown;
-  return (await run(input, options.onProgress ?? (() => undefined))) as ComputeOutput<N>;
+  try {
+    return (await run(input, options.onProgress ?? (() => undefined))) as ComputeOutput<N>;
+  } catch (error) {
+    throw asRequestError(error);
+  }
 }
 
 function inProcessPool(): ComputePool {

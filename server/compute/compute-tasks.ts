@@ -4,7 +4,7 @@
  * bench's "before"). Every task takes and returns plain structured-clone data. A new kind of work
  * (Monte Carlo realisations, …) is one more entry here, and `ComputePool.run` can run it at once.
  */
-import type { Scenario } from '../../shared/schema';
+import { DrydigError, type Scenario } from '../../shared/schema';
 import { runDesign, type DesignResult, type RunDesignOptions } from '../../shared/design';
 import { runSectionJob, type SectionJob, type SectionJobAnswer } from '../../shared/section';
 import { analysePumpingTest, type AnalysePumpingTestOptions, type PumpingTestResult } from '../../shared/testing';
@@ -49,3 +49,15 @@ export const COMPUTE_TASKS: ComputeTaskTable = {
     return { slept_ms: ms };
   },
 };
+
+/**
+ * An engine argument guard (a RangeError such as "theisWellFunction: argument u must be a number
+ * > 0") reached from a request means the request lies outside what the method can compute — a
+ * 400 with the engine's words, never a 500. Anything else passes unchanged.
+ */
+export function asRequestError(error: unknown): unknown {
+  if (error instanceof RangeError && / argument \w+ must be /.test(error.message)) {
+    return new DrydigError('DRYDIG_ERR_INVALID_REQUEST', `the request lies outside the range the methods can compute (${error.message}); check times, levels and aquifer parameters`);
+  }
+  return error;
+}

@@ -5,7 +5,7 @@
 import { register } from 'tsx/esm/api';
 
 register();
-const { COMPUTE_TASKS } = await import('./compute-tasks.ts');
+const { COMPUTE_TASKS, asRequestError } = await import('./compute-tasks.ts');
 
 export default async function runComputeTask({ task, input, port }) {
   const progress = (stage, fraction) => port?.postMessage({ stage, fraction });
@@ -13,7 +13,8 @@ export default async function runComputeTask({ task, input, port }) {
     const run = COMPUTE_TASKS[task];
     if (typeof run !== 'function') throw new Error(`unknown compute task ${String(task)}`);
     return { ok: true, value: await run(input, progress) };
-  } catch (error) {
+  } catch (thrown) {
+    const error = asRequestError(thrown);
     const known = error && typeof error === 'object' && typeof error.code === 'string' && error.code.startsWith('DRYDIG_ERR_');
     return {
       ok: false,

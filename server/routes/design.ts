@@ -10,6 +10,7 @@ import type { FastifyPluginAsync } from 'fastify';
 import { DesignResultSchema, validateDesignOptions } from '../../shared/design';
 import { currentCompute } from '../compute';
 import { DesignModeSchema, DesignOptionsSchema, DrydigError, parseScenario, ScenarioSchema, summariseIssues, type Scenario } from '../../shared/schema';
+import { computeRateLimit, type SecurityOptions } from '../security';
 import { ErrorResponseSchema } from '../request-schemas';
 
 export const DesignRequestSchema = Type.Object(
@@ -28,11 +29,12 @@ function requestedMode(body: DesignRequest): string {
   return body.mode ?? body.options?.mode ?? (typeof stored === 'string' ? stored : 'optimal');
 }
 
-export const designRoutes: FastifyPluginAsync = async (app) => {
+export const designRoutes: FastifyPluginAsync<{ security?: SecurityOptions }> = async (app, options) => {
 
   app.post<{ Body: DesignRequest }>(
     '/design',
     {
+      config: computeRateLimit(options.security),
       schema: {
         summary: 'Design rates that meet every excavation’s target level',
         description:

@@ -7,6 +7,7 @@
 import type { FastifyPluginAsync } from 'fastify';
 import { DrydigError, parseScenario, type Scenario } from '../../shared/schema';
 import { checkEvaluateWork, currentCompute, DEFAULT_MAX_WORK } from '../compute';
+import { computeRateLimit, type SecurityOptions } from '../security';
 import {
   buildEvaluateRequestSchema,
   DEFAULT_MAX_GRID_NODES,
@@ -23,6 +24,8 @@ export interface EvaluateRoutesOptions {
   maxPoints?: number;
   /** Largest wells × points × times per request. Default 2.5·10⁸. */
   maxWork?: number;
+  /** The per-client compute rate limit. */
+  security?: SecurityOptions;
 }
 
 /** Throws the size errors a request can earn before any computing starts. */
@@ -66,6 +69,7 @@ export const evaluateRoutes: FastifyPluginAsync<EvaluateRoutesOptions> = async (
   app.post<{ Body: EvaluateRequest }>(
     '/evaluate',
     {
+      config: computeRateLimit(options.security),
       schema: {
         summary: 'Levels and drawdowns at points and on a grid',
         description:

@@ -9,6 +9,7 @@ import { Type, type Static } from '@sinclair/typebox';
 import type { FastifyPluginAsync } from 'fastify';
 import { DrydigError } from '../../shared/schema';
 import { PumpingTestResultSchema, TestMethodSchema, parseReadingsCsv, type TestReading } from '../../shared/testing';
+import { computeRateLimit, type SecurityOptions } from '../security';
 import { ErrorResponseSchema } from '../request-schemas';
 import { currentCompute } from '../compute';
 
@@ -72,10 +73,11 @@ function readingsOf(body: PumpingTestRequest): TestReading[] {
   });
 }
 
-export const pumpingTestRoutes: FastifyPluginAsync = async (app) => {
+export const pumpingTestRoutes: FastifyPluginAsync<{ security?: SecurityOptions }> = async (app, options) => {
   app.post<{ Body: PumpingTestRequest }>(
     '/pumping-test',
     {
+      config: computeRateLimit(options.security),
       schema: {
         summary: 'Aquifer parameters from pumping-test readings',
         description:

@@ -9,6 +9,7 @@ import { Type, type Static } from '@sinclair/typebox';
 import type { FastifyPluginAsync } from 'fastify';
 import { DrydigError, parseScenario, parseSection, ScenarioSchema, SectionDocumentSchema } from '../../shared/schema';
 import type { SectionJob } from '../../shared/section';
+import { computeRateLimit, type SecurityOptions } from '../security';
 import { ErrorResponseSchema } from '../request-schemas';
 import { currentCompute } from '../compute';
 
@@ -59,6 +60,8 @@ export interface SectionSolverOptions {
 
 export interface SectionRoutesOptions {
   solver?: SectionSolverOptions;
+  /** The per-client compute rate limit. */
+  security?: SecurityOptions;
 }
 
 export const sectionRoutes: FastifyPluginAsync<SectionRoutesOptions> = async (app, options) => {
@@ -67,6 +70,7 @@ export const sectionRoutes: FastifyPluginAsync<SectionRoutesOptions> = async (ap
   app.post<{ Body: SectionRequest }>(
     '/section',
     {
+      config: computeRateLimit(options.security),
       schema: {
         summary: 'Steady seepage in a vertical section: flow, exit gradient, heave and uplift',
         description:

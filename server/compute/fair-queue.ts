@@ -35,8 +35,11 @@ export class FairQueue {
   readonly #limits: Required<FairQueueLimits>;
   readonly #waiting = new Map<string, FairJob[]>();
   readonly #runningByClient = new Map<string, number>();
+  /** Clients with waiting or running work, in order of arrival. */
   #order: string[] = [];
-  #next = 0;
+  /** When each client last got a thread (a running count); a client never served comes first. */
+  readonly #lastServed = new Map<string, number>();
+  #serveCount = 0;
   #running = 0;
   #runningLong = 0;
   #queued = 0;
@@ -84,10 +87,14 @@ export class FairQueue {
     if ((this.#waiting.get(client)?.length ?? 0) > 0 || (this.#runningByClient.get(client) ?? 0) > 0) return;
     this.#waiting.delete(client);
     const at = this.#order.indexOf(client);
-    if (at >= 0) {
-      this.#order.splice(at, 1);
-      if (this.#next > at) this.#next--;
-    }
+    if (at >= 0) this.#order.splice(at, 1);
+    this.#lastServed.delete(client);
+    this.#runningByClient.delete(client);
+  }
+
+  /** The client just got a thread: it goes behind every other client. */
+  #served(client: string): void {
+    this.#lastServed.set(client, ++this.#serveCount);
   }
 
   #eligible(job: FairJob): boolean {
@@ -96,20 +103,16 @@ export class FairQueue {
     return (this.#runningByClient.get(job.client) ?? 0) < this.#limits.perClientSlots;
   }
 
-  /** The next job to start: a waiting view first, then round-robin over clients. */
+  /** The next job to start: a waiting view first, then the least recently served client's first eligible job. */
   #pick(): FairJob | undefined {
     for (const client of this.#order) {
       const view = this.#waiting.get(client)?.find((j) => j.lane === 'view');
       if (view) return view;
     }
-    const n = this.#order.length;
-    for (let k = 0; k < n; k++) {
-      const at = (this.#next + k) % n;
-      const job = this.#waiting.get(this.#order[at]!)?.find((j) => this.#eligible(j));
-      if (job) {
-        this.#next = (at + 1) % n;
-        return job;
-      }
+    const byTurn = [...this.#order].sort((a, b) => (this.#lastServed.get(a) ?? 0) - (this.#lastServed.get(b) ?? 0));
+    for (const client of byTurn) {
+      const job = this.#waiting.get(client)?.find((j) => this.#eligible(j));
+      if (job) return job;
     }
     return undefined;
   }
@@ -119,6 +122,7 @@ export class FairQueue {
       const job = this.#pick();
       if (!job) return;
       this.withdraw(job);
+      this.#served(job.client);
       this.#running++;
       if (job.lane === 'long') this.#runningLong++;
       this.#runningByClient.set(job.client, (this.#runningByClient.get(job.client) ?? 0) + 1);

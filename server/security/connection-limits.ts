@@ -27,8 +27,10 @@ export const DEFAULT_CONNECTION_LIMITS = {
 /** Fastify's server options for the time-outs. */
 export function connectionTimeoutOptions(limits: ConnectionLimits = {}) {
   const l = { ...DEFAULT_CONNECTION_LIMITS, ...limits };
-  // Not connectionTimeout: an idle socket while a long computation runs is normal.
-  return { requestTimeout: l.requestTimeout_ms, keepAliveTimeout: l.keepAliveTimeout_ms };
+  // Not connectionTimeout: an idle socket while a long computation runs is normal. Node checks
+  // the header and request time-outs every connectionsCheckingInterval (30 s by default).
+  const checkEvery_ms = Math.max(100, Math.min(l.headersTimeout_ms, l.requestTimeout_ms, 30_000) / 4);
+  return { requestTimeout: l.requestTimeout_ms, keepAliveTimeout: l.keepAliveTimeout_ms, http: { connectionsCheckingInterval: checkEvery_ms } };
 }
 
 /** Sets the header time-out and caps connections per address on the HTTP server. */

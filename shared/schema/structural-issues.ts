@@ -19,6 +19,8 @@ const UNIT_SUFFIXES: ReadonlyArray<readonly [string, string]> = [
 /** The unit a field's name carries (`/aquifer/base_m` → " m"), or '' for a dimensionless one. */
 export function unitOfPointer(path: string): string {
   const name = path.slice(path.lastIndexOf('/') + 1);
+  // Plan coordinates carry no suffix: x, y (and tuple members [x, y]) are metres.
+  if (name === 'x' || name === 'y' || /\/(outline|from|to|origin)\/\d+(\/\d+)?$/.test(path)) return ' m';
   return UNIT_SUFFIXES.find(([suffix]) => name.endsWith(suffix))?.[1] ?? '';
 }
 
@@ -41,6 +43,11 @@ export function describeStructuralError(error: ValueError): string {
       .map((s) => s.const)
       .filter((c) => c !== undefined);
     if (literals.length > 0) return `must be one of ${literals.map((l) => JSON.stringify(l)).join(', ')}`;
+    // number | null (a time that may be steady state): the number's range, or null.
+    const numeric = (schema.anyOf as Array<Record<string, unknown>>).find((s) => s.type === 'number');
+    const nullable = (schema.anyOf as Array<Record<string, unknown>>).some((s) => s.type === 'null');
+    const range = numeric && describeNumberRange(numeric, unitOfPointer(error.path));
+    if (typeof value === 'number' && range) return `must be ${range}${nullable ? ' (or null)' : ''}, got ${value}`;
   }
   if (schema.type === 'number' || schema.type === 'integer') {
     if (typeof value !== 'number') return `must be a number, got ${typeof value === 'string' ? JSON.stringify(value).slice(0, 40) : typeof value}`;

@@ -10,14 +10,24 @@ import { installRouteCatalog, openapiRoutes } from './routes/openapi';
 import { designRoutes } from './routes/design';
 import { validateRoutes } from './routes/validate';
 import { pumpingTestRoutes } from './routes/pumping-test';
-import { sectionRoutes } from './routes/section';
+import { sectionRoutes, type SectionSolverOptions } from './routes/section';
 import { scenarioRoutes } from './routes/scenarios';
 import { linkRoutes } from './routes/links';
 import { authPlugin } from './auth';
 import { clientStatic } from './routes/client-static';
 import { DEFAULT_MAX_GRID_NODES, DEFAULT_MAX_POINTS } from './request-schemas';
-import type { SectionSolverOptions } from './section-compute';
-import { checkTileOrigin, securityPlugin, withRedactedLogging, type SecurityOptions } from './security';
+import { computePlugin, type ComputePoolOptions } from './compute';
+import {
+  checkTileOrigin,
+  connectionTimeoutOptions,
+  installHostAllowList,
+  limitConnections,
+  LOOPBACK_HOST_NAMES,
+  securityPlugin,
+  withRedactedLogging,
+  type ConnectionLimits,
+  type SecurityOptions,
+} from './security';
 
 export interface AppOptions {
   /** Folder for stored scenarios (SQLite). Default `./data`; ':memory:' keeps nothing on disk. */
@@ -41,8 +51,23 @@ export interface AppOptions {
    * client loads same-origin resources only. Anything that is not an https origin is refused.
    */
   tileOrigin?: string;
-  /** Section solves (worker thread): time budget per job and queue length. Default 30 s, 8 waiting. */
+  /**
+   * The compute pool every request's engine work runs on (server/compute): threads (default the
+   * cores, at least 2; 0 = in process), time budget per job, queue limits. Defaults: 30 s a job
+   * (75 s a layout search), 32 waiting, 4 per client.
+   */
+  compute?: ComputePoolOptions;
+  /** Section solves: their time budget on the compute pool. Default the pool's. */
   section?: SectionSolverOptions;
+  /** Largest wells × points × times of one evaluate. Default 2.5·10⁸. */
+  maxWork?: number;
+  /**
+   * Host names the service answers for (the Host header, port ignored); others get 421. Default
+   * localhost, 127.0.0.1 and ::1; `drydig serve` adds its bind address and `--host-name` values.
+   */
+  hostNames?: readonly string[];
+  /** Header and request time-outs, idle keep-alive, connections per address (server/security/connection-limits). */
+  connections?: ConnectionLimits;
 }
 
 export const DEFAULT_BODY_LIMIT_BYTES = 8 * 1024 * 1024;
@@ -63,6 +88,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
     // Share tokens in URLs are redacted from every log line.
     logger: withRedactedLogging(options.logger ?? false),
     bodyLimit: bodyLimit_bytes,
+    ...connectionTimeoutOptions(options.connections),
     ajv: { customOptions: { allErrors: false, coerceTypes: false, removeAdditional: false } },
     // Errors the router raises before any handler (malformed %-escapes, over-long parameters)
     // leave in the same JSON error shape as every other failure.
@@ -72,18 +98,24 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
     },
   });
   installErrorHandling(app);
+  limitConnections(app.server, options.connections);
+  // First of all hooks: a request for another host name is not served at all (DNS rebinding).
+  installHostAllowList(app, options.hostNames ?? LOOPBACK_HOST_NAMES);
   // Before any plugin, so every route (whoever adds it) lands in the OpenAPI description.
   installRouteCatalog(app);
   // Before the routes: the rate limiter attaches to write routes as they are added.
-  await app.register(securityPlugin, { ...options.security, tileOrigin: resolveTileOrigin(options) });
+  const security = { ...options.security, tileOrigin: resolveTileOrigin(options) };
+  await app.register(securityPlugin, security);
+  // Before the routes: every request runs in a compute scope (the pool, its client, its lane).
+  await app.register(computePlugin, options.compute ?? {});
   const maxGridNodes = options.maxGridNodes ?? DEFAULT_MAX_GRID_NODES;
   const maxPoints = options.maxPoints ?? DEFAULT_MAX_POINTS;
   await app.register(healthRoutes, { prefix: '/api/v1', limits: { bodyLimit_bytes, maxGridNodes, maxPoints } });
-  await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes, maxPoints });
-  await app.register(designRoutes, { prefix: '/api/v1' });
+  await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes, maxPoints, security, ...(options.maxWork ? { maxWork: options.maxWork } : {}) });
+  await app.register(designRoutes, { prefix: '/api/v1', security });
   await app.register(validateRoutes, { prefix: '/api/v1' });
-  await app.register(pumpingTestRoutes, { prefix: '/api/v1' });
-  await app.register(sectionRoutes, { prefix: '/api/v1', solver: options.section });
+  await app.register(pumpingTestRoutes, { prefix: '/api/v1', security });
+  await app.register(sectionRoutes, { prefix: '/api/v1', solver: options.section, security });
   // Accounts: opens the store, session cookie, /api/v1/auth; the storage routes require a session.
   await app.register(authPlugin, { prefix: '/api/v1', dataDir: options.dataDir ?? 'data' });
   await app.register(scenarioRoutes, { prefix: '/api/v1', dataDir: options.dataDir ?? 'data' });

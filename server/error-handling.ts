@@ -9,6 +9,7 @@ import type { FastifyError, FastifyInstance, FastifyReply, FastifyRequest } from
 import { DrydigError, ERROR_TABLE, summariseIssues, type ErrorCode, type FieldIssue } from '../shared/schema';
 import type { ErrorResponse } from './request-schemas';
 import { redactTokens } from './security';
+import { jsonNestingDepth, MAX_JSON_DEPTH } from './json-depth';
 
 /** Longest request URL echoed back in a 404 message, characters. */
 const MAX_ECHOED_URL_CHARS = 200;
@@ -161,10 +162,24 @@ export function installErrorHandling(app: FastifyInstance): void {
   // Fastify parses text/plain by default; a JSON API answers 415 instead of "body must be object".
   // A plugin that takes another type (CSV upload …) adds its own parser in its own scope.
   app.removeContentTypeParser('text/plain');
+  // Fastify's own JSON parser (prototype-poisoning checks kept), behind a nesting-depth check.
+  const parseJson = app.getDefaultJsonParser('error', 'error');
+  app.removeContentTypeParser('application/json');
+  app.addContentTypeParser('application/json', { parseAs: 'string' }, (request, body, done) => {
+    const text = typeof body === 'string' ? body : body.toString('utf8');
+    if (jsonNestingDepth(text, MAX_JSON_DEPTH) > MAX_JSON_DEPTH) {
+      done(new DrydigError('DRYDIG_ERR_INVALID_REQUEST', `the body nests arrays and objects deeper than ${MAX_JSON_DEPTH} levels; no drydig document needs that many`), undefined);
+      return;
+    }
+    parseJson(request, text, done);
+  });
 
   app.setErrorHandler((error: unknown, request: FastifyRequest, reply: FastifyReply) => {
     const { status, body, internal } = classifyError(error);
     if (internal) request.log.error({ err: error }, `unexpected error on ${describeRequest(request)}`);
+    // A refusal for load says when to come back (RFC 9110 section 10.2.3).
+    const retryAfter_s = (error as { retryAfter_s?: unknown } | null)?.retryAfter_s;
+    if (typeof retryAfter_s === 'number') void reply.header('retry-after', String(Math.ceil(retryAfter_s)));
     else request.log.info({ code: body.error.code, issues: body.error.issues?.length ?? 0 }, body.error.message);
     return reply.status(status).type('application/json; charset=utf-8').send(body);
   });

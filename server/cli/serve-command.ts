@@ -9,7 +9,7 @@ import path from 'node:path';
 import type { FastifyInstance } from 'fastify';
 import { buildApp, DEFAULT_BODY_LIMIT_BYTES } from '../app';
 import { DrydigError } from '../../shared/schema';
-import { checkTileOrigin } from '../security';
+import { checkTileOrigin, defaultHostNames } from '../security';
 import type { CliCommand, CliIo } from './cli-io';
 import { parseOptions, usageError } from './parse-options';
 import { SERVE_HELP } from './usage-text';
@@ -32,6 +32,8 @@ export interface ServeSettings {
   logLevel?: string;
   /** https origin of a background map-tile server allowed by the CSP. Default: DRYDIG_TILE_ORIGIN, else none. */
   tileOrigin?: string;
+  /** Extra host names the service answers for (`--host-name`, repeatable or comma-separated; DRYDIG_HOST_NAMES). */
+  hostNames?: string[];
 }
 
 const LOG_LEVELS = ['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'];
@@ -43,7 +45,7 @@ function parsePort(text: string, source: string): number {
 
 /** Resolves serve settings from arguments, then environment, then defaults. */
 export function resolveServeSettings(args: readonly string[], env: Record<string, string | undefined>, cwd: string): ServeSettings & { help: boolean } {
-  const { positionals, values } = parseOptions(args, { port: 'value', host: 'value', data: 'value', 'body-limit': 'value', 'tile-origin': 'value', help: 'flag' }, 'serve');
+  const { positionals, values } = parseOptions(args, { port: 'value', host: 'value', data: 'value', 'body-limit': 'value', 'tile-origin': 'value', 'host-name': 'value', help: 'flag' }, 'serve');
   if (positionals.length > 0) throw usageError(`serve: unexpected argument ${positionals[0]}`);
   const port = values.port !== undefined ? parsePort(values.port, '--port') : env.PORT ? parsePort(env.PORT, 'PORT') : DEFAULT_PORT;
   const host = values.host ?? (env.HOST || DEFAULT_HOST);
@@ -57,11 +59,23 @@ export function resolveServeSettings(args: readonly string[], env: Record<string
   const logLevel = env.DRYDIG_LOG_LEVEL || 'info';
   if (!LOG_LEVELS.includes(logLevel)) throw usageError(`DRYDIG_LOG_LEVEL: "${logLevel}" is not one of ${LOG_LEVELS.join(', ')}`);
   const tileOrigin = parseTileOrigin(values['tile-origin'], env.DRYDIG_TILE_ORIGIN);
+  const hostNames = parseHostNames(values['host-name'] ?? env.DRYDIG_HOST_NAMES);
   return {
     port, host, dataDir: data === ':memory:' ? data : path.resolve(cwd, data), bodyLimit_bytes, logLevel,
     ...(tileOrigin ? { tileOrigin } : {}),
+    ...(hostNames ? { hostNames } : {}),
     help: values.help === 'true',
   };
+}
+
+/** --host-name NAME[,NAME…]: DNS names or addresses, checked for shape. */
+function parseHostNames(text: string | undefined): string[] | undefined {
+  if (text === undefined || text.trim() === '') return undefined;
+  const names = text.split(',').map((n) => n.trim()).filter((n) => n !== '');
+  for (const name of names) {
+    if (!/^(\[[0-9a-f:.]+\]|[0-9a-f:]*:[0-9a-f:.]+|[a-z0-9]([a-z0-9.-]{0,251}[a-z0-9])?)$/i.test(name)) throw usageError(`--host-name: "${name.slice(0, 80)}" is not a host name or address`);
+  }
+  return names;
 }
 
 /** --tile-origin, else DRYDIG_TILE_ORIGIN (empty = unset), checked to be an https origin. */
@@ -87,6 +101,8 @@ export async function startServer(settings: ServeSettings): Promise<{ app: Fasti
     bodyLimit_bytes: settings.bodyLimit_bytes,
     logger: { level: settings.logLevel ?? 'info' },
     ...(settings.tileOrigin ? { tileOrigin: settings.tileOrigin } : {}),
+    // The bind address and localhost, and any names given: other Host headers get 421.
+    hostNames: [...defaultHostNames(settings.host), ...(settings.hostNames ?? [])],
   });
   try {
     await app.listen({ port: settings.port, host: settings.host });

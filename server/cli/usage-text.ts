@@ -52,6 +52,7 @@ Prints {"points":[{"x","y","time_s","level_m","drawdown_m","flags"}], "model", "
 `;
 
 export const SERVE_HELP = `drydig serve [--port N] [--host H] [--data DIR] [--body-limit BYTES] [--tile-origin URL]
+             [--host-name NAME[,NAME…]]
 
   --port N           port to listen on (default: PORT, else 8080; 0 picks a free port)
   --host H           address to listen on (default: HOST, else 127.0.0.1)
@@ -59,6 +60,9 @@ export const SERVE_HELP = `drydig serve [--port N] [--host H] [--data DIR] [--bo
   --body-limit B     largest request body accepted, bytes (default 8388608)
   --tile-origin URL  https origin of a map-tile server the page may load from
                      (default: DRYDIG_TILE_ORIGIN, else none)
+  --host-name NAMES  host names the service answers for besides the bind address
+                     and localhost (comma-separated; default: DRYDIG_HOST_NAMES);
+                     requests naming another host get 421
 
 Stops on Ctrl-C (SIGINT) or SIGTERM.
 `;

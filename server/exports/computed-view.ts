@@ -30,8 +30,8 @@ interface SnapshotBody {
 }
 
 async function computeLive(record: RevisionRecord): Promise<ComputedView> {
-  const plan = planResultsFor(record.sha256, record.scenario);
-  const design = await designFor(record.sha256, record.scenario);
+  // Both on the pool at once: a view waits for the longer of the two, not their sum.
+  const [plan, design] = await Promise.all([planResultsFor(record.sha256, record.scenario), designFor(record.sha256, record.scenario)]);
   return {
     results: plan.results, resultsError: plan.error ?? null, design: design.design, designError: design.error,
     computedBy: COMPUTED_BY, frozenAt: null,

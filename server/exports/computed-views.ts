@@ -1,19 +1,14 @@
 /**
- * Computed pictures of a stored revision (plan grid and contours, monitoring plan), cached by the
- * revision's checksum: a revision never changes, so neither does what is computed from it.
- * An engine failure (e.g. boundary geometry the image-well method cannot take) is reported in
- * words beside the export, never turned into a crash or a blank.
+ * Computed pictures of a stored revision (plan grid and contours, monitoring plan), run on the
+ * compute pool of the request (server/compute) and cached by the revision's checksum: a revision
+ * never changes, so neither does what is computed from it. The cache holds the promise, so
+ * parallel requests share one computation.
  */
-import { DrydigError, type Scenario } from '../../shared/schema';
-import {
-  buildMonitoringPlan,
-  computePlanResults,
-  type MonitoringPlan,
-  type PlanReading,
-  type PlanResults,
-} from '../../shared/exports';
-import { fieldEngine } from './field-engine';
+import type { Scenario } from '../../shared/schema';
+import type { MonitoringPlan, PlanReading, PlanResults } from '../../shared/exports';
 import { readPackageVersion } from '../routes/health';
+import { currentCompute } from '../compute/compute-context';
+import type { PlanOutcome } from './plan-compute';
 
 /**
  * Which engine computed the levels, checks and design shown beside a revision. The scenario is
@@ -23,48 +18,27 @@ import { readPackageVersion } from '../routes/health';
 export const COMPUTED_BY = `drydig ${readPackageVersion()}`;
 
 const MAX_CACHED = 64;
-const planCache = new Map<string, PlanResults | { error: string }>();
-
-function remember<T>(cache: Map<string, T>, key: string, make: () => T): T {
-  const hit = cache.get(key);
-  if (hit !== undefined) {
-    cache.delete(key);
-    cache.set(key, hit);
-    return hit;
-  }
-  const value = make();
-  cache.set(key, value);
-  if (cache.size > MAX_CACHED) cache.delete(cache.keys().next().value as string);
-  return value;
-}
-
-function describeFailure(error: unknown): string {
-  if (error instanceof DrydigError) return error.message;
-  return 'the field could not be computed for this scenario';
-}
+const planCache = new Map<string, Promise<PlanOutcome>>();
 
 /** Plan results for a revision (by its checksum), or the reason they could not be computed. */
-export function planResultsFor(sha256: string, scenario: Scenario): { results?: PlanResults; error?: string } {
-  const value = remember(planCache, sha256, () => {
-    try {
-      return computePlanResults({ scenario, engine: fieldEngine });
-    } catch (error) {
-      return { error: describeFailure(error) };
-    }
-  });
-  return 'error' in value ? { error: value.error } : { results: value };
+export async function planResultsFor(sha256: string, scenario: Scenario): Promise<{ results?: PlanResults; error?: string }> {
+  let pending = planCache.get(sha256);
+  if (pending) {
+    planCache.delete(sha256);
+  } else {
+    pending = currentCompute().run('planResults', { scenario });
+    // A refusal (busy, past its budget) is not a property of the revision: do not keep it.
+    pending.catch(() => planCache.delete(sha256));
+  }
+  planCache.set(sha256, pending);
+  if (planCache.size > MAX_CACHED) planCache.delete(planCache.keys().next().value as string);
+  const value = await pending;
+  return 'error' in value ? { error: value.error } : { results: value.results };
 }
 
 /** Monitoring plan with readings assessed (readings change, so this is not cached). */
-export function monitoringPlanFor(scenario: Scenario, readings: readonly PlanReading[]): MonitoringPlan & { error?: string } {
-  try {
-    return buildMonitoringPlan({ scenario, engine: fieldEngine, readings });
-  } catch (error) {
-    return {
-      present: false, pumpingStart: null, interval_s: null, staticLevel_m: scenario.aquifer.staticLevel_m, piezometers: [],
-      notes: [], error: describeFailure(error),
-    };
-  }
+export function monitoringPlanFor(scenario: Scenario, readings: readonly PlanReading[]): Promise<MonitoringPlan & { error?: string }> {
+  return currentCompute().run('monitoringPlan', { scenario, readings });
 }
 
 /** Alias used by the routes: the monitoring plan of a scenario with its readings. */

@@ -1,17 +1,9 @@
 /** Serves one export of a stored revision with its content type and a download file name. */
 import type { FastifyReply } from 'fastify';
-import {
-  createSiteProjection,
-  writeDxf,
-  writeGeoJson,
-  writeMonitoringCsv,
-  writeReportHtml,
-  writeScenarioJson,
-  writeSetoutCsv,
-} from '../../shared/exports';
 import type { ExportFormat } from '../storage/http';
 import type { ReadingRecord, RevisionRecord } from '../storage';
-import { monitoringPlanFor } from './computed-views';
+import { currentCompute } from '../compute/compute-context';
+import { exportNeedsComputedView, renderExportBody } from './render-export-body';
 import type { ComputedView } from './computed-view';
 
 /** What an export is made from. */
@@ -39,37 +31,13 @@ const TYPES: Record<ExportFormat, { type: string; ext: string; inline: boolean }
   'monitoring-csv': { type: 'text/csv; charset=utf-8', ext: 'monitoring.csv', inline: false },
 };
 
-/** Renders the export body (exported for tests and the CLI). */
+/** Renders the export body on the request's compute pool (exported for tests and the CLI). */
 export async function renderExport(format: ExportFormat, source: ExportSource): Promise<string> {
-  const { record } = source;
-  const scenario = record.scenario;
-  const projection = createSiteProjection(scenario);
-  switch (format) {
-    case 'scenario-json':
-      return writeScenarioJson(scenario);
-    case 'setout-csv':
-      return writeSetoutCsv({ scenario, projection });
-    case 'geojson':
-      return writeGeoJson({ scenario, projection, revision: record.revision, results: (await source.computed()).results });
-    case 'dxf':
-      return writeDxf({ scenario, results: (await source.computed()).results });
-    case 'monitoring-csv':
-      return writeMonitoringCsv(monitoringPlanFor(scenario, source.readings));
-    case 'report-html': {
-      const computed = await source.computed();
-      return writeReportHtml({
-        scenario,
-        projection,
-        revision: record,
-        results: computed.results,
-        resultsError: computed.resultsError,
-        computedBy: computed.frozenAt ? `${computed.computedBy} (frozen ${computed.frozenAt}, when a link fixed this revision)` : computed.computedBy,
-        design: computed.design,
-        designError: computed.designError,
-        monitoring: monitoringPlanFor(scenario, source.readings),
-      });
-    }
-  }
+  const computed = exportNeedsComputedView(format) ? await source.computed() : undefined;
+  const input = { format, record: source.record, readings: source.readings, ...(computed ? { computed } : {}) };
+  // Small writers need no thread; a scenario file or set-out table costs less than the hand-over.
+  if (format === 'scenario-json' || format === 'setout-csv') return renderExportBody(input);
+  return currentCompute().run('exportBody', input);
 }
 
 /** Sends the export with Content-Type and Content-Disposition. */

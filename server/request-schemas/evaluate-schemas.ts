@@ -53,13 +53,16 @@ export interface EvaluateLimits {
   maxGridNodes: number;
 }
 
+/** A point to evaluate: any finite plan position (the scenario's own positions carry the physical ranges). */
+const EvaluatePointSchema = Type.Tuple([Type.Number(), Type.Number()], { description: 'Plan position [x, y] in metres.' });
+
 /** The body of `POST /api/v1/evaluate`. */
 export function buildEvaluateRequestSchema(limits: EvaluateLimits) {
   return Type.Object(
     {
       scenario: ScenarioSchema,
       points: Type.Optional(
-        Type.Array(PointSchema, {
+        Type.Array(EvaluatePointSchema, {
           maxItems: limits.maxPoints,
           description: `Plan positions [x, y] to evaluate, m. At most ${limits.maxPoints} points × times.`,
         }),

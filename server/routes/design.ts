@@ -5,21 +5,12 @@
  * `/scenario/aquifer/storativity` or `/options/pumpEfficiency`; the route schema then documents
  * the body and the response for the OpenAPI document.
  */
-import { createRequire } from 'node:module';
-import { Worker } from 'node:worker_threads';
 import { Type, type Static } from '@sinclair/typebox';
 import type { FastifyPluginAsync } from 'fastify';
-import {
-  DesignResultSchema,
-  runDesign,
-  setLinearProgramSolver,
-  solveWithHighs,
-  validateDesignOptions,
-  type LinearProgram,
-  type LinearProgramSolution,
-  type LinearProgramSolver,
-} from '../../shared/design';
+import { DesignResultSchema, validateDesignOptions } from '../../shared/design';
+import { currentCompute } from '../compute';
 import { DesignModeSchema, DesignOptionsSchema, DrydigError, parseScenario, ScenarioSchema, summariseIssues, type Scenario } from '../../shared/schema';
+import { computeRateLimit, type SecurityOptions } from '../security';
 import { ErrorResponseSchema } from '../request-schemas';
 
 export const DesignRequestSchema = Type.Object(
@@ -32,84 +23,18 @@ export const DesignRequestSchema = Type.Object(
 );
 export type DesignRequest = Static<typeof DesignRequestSchema>;
 
-/**
- * HiGHS in a worker thread: a solve (a layout search may take its whole time limit) runs off the
- * event loop, so the service keeps answering. The worker runs the same `solveWithHighs` code from
- * its source text and loads the `highs` package itself; solves queue one after another.
- */
-export function createWorkerLinearSolver(): { solve: LinearProgramSolver; close: () => Promise<void> } {
-  const highsPath = createRequire(import.meta.url).resolve('highs');
-  const source = `'use strict';
-const { parentPort } = require('node:worker_threads');
-const loadHighs = require(${JSON.stringify(highsPath)});
-const __name = (f) => f;
-const solveWithHighs = ${solveWithHighs.toString()};
-const ready = loadHighs();
-parentPort.on('message', async ({ id, problem }) => {
-  try {
-    const highs = await ready;
-    parentPort.postMessage({ id, solution: solveWithHighs(highs, problem) });
-  } catch (error) {
-    parentPort.postMessage({ id, error: String((error && error.message) || error) });
-  }
-});`;
-  let worker: Worker | null = null;
-  let nextId = 1;
-  const pending = new Map<number, { resolve: (s: LinearProgramSolution) => void; reject: (e: Error) => void }>();
-  const failAll = (error: Error) => {
-    for (const p of pending.values()) p.reject(error);
-    pending.clear();
-    worker = null;
-  };
-  const start = (): Worker => {
-    const w = new Worker(source, { eval: true });
-    w.on('message', (m: { id: number; solution?: LinearProgramSolution; error?: string }) => {
-      const p = pending.get(m.id);
-      if (!p) return;
-      pending.delete(m.id);
-      if (m.solution) p.resolve(m.solution);
-      else p.reject(new Error(`LP solver: ${m.error ?? 'no answer'}`));
-    });
-    w.on('error', (e) => failAll(e instanceof Error ? e : new Error(String(e))));
-    w.on('exit', (code) => {
-      if (pending.size > 0) failAll(new Error(`LP solver worker stopped (exit code ${code})`));
-      worker = null;
-    });
-    w.unref();
-    return w;
-  };
-  let queue: Promise<unknown> = Promise.resolve();
-  const solve: LinearProgramSolver = (problem: LinearProgram) => {
-    const run = () =>
-      new Promise<LinearProgramSolution>((resolve, reject) => {
-        worker ??= start();
-        const id = nextId++;
-        pending.set(id, { resolve, reject });
-        worker.postMessage({ id, problem });
-      });
-    const result = queue.then(run, run);
-    queue = result.catch(() => undefined);
-    return result;
-  };
-  const close = async () => {
-    const w = worker;
-    worker = null;
-    if (w) await w.terminate();
-  };
-  return { solve, close };
+/** The mode a design request solves in: the body's, else the scenario's designOptions.mode, else optimal. */
+function requestedMode(body: DesignRequest): string {
+  const stored = (body.scenario as { designOptions?: { mode?: unknown } }).designOptions?.mode;
+  return body.mode ?? body.options?.mode ?? (typeof stored === 'string' ? stored : 'optimal');
 }
 
-export const designRoutes: FastifyPluginAsync = async (app) => {
-  const solver = createWorkerLinearSolver();
-  const previous = setLinearProgramSolver(solver.solve);
-  app.addHook('onClose', async () => {
-    setLinearProgramSolver(previous);
-    await solver.close();
-  });
+export const designRoutes: FastifyPluginAsync<{ security?: SecurityOptions }> = async (app, options) => {
 
   app.post<{ Body: DesignRequest }>(
     '/design',
     {
+      config: computeRateLimit(options.security),
       schema: {
         summary: 'Design rates that meet every excavation’s target level',
         description:
@@ -141,7 +66,13 @@ export const designRoutes: FastifyPluginAsync = async (app) => {
     async (request) => {
       const scenario: Scenario = request.body.scenario;
       try {
-        return await runDesign({ scenario, mode: request.body.mode, options: request.body.options, scenarioPath: '/scenario', optionsPath: '/options' });
+        // On the compute pool; a layout search (which may run for its whole time limit) in the long lane.
+        const lane = requestedMode(request.body) === 'layout' ? 'long' : 'normal';
+        return await currentCompute().run(
+          'design',
+          { scenario, ...(request.body.mode ? { mode: request.body.mode } : {}), ...(request.body.options ? { options: request.body.options } : {}), scenarioPath: '/scenario', optionsPath: '/options' },
+          { lane },
+        );
       } catch (error) {
         // Options stored in the scenario sit under /scenario in this body.
         if (error instanceof DrydigError && error.issues.some((i) => i.path.startsWith('/designOptions'))) {

@@ -6,7 +6,8 @@
  */
 import type { FastifyPluginAsync } from 'fastify';
 import { DrydigError, parseScenario, type Scenario } from '../../shared/schema';
-import { runEvaluation } from '../evaluation';
+import { checkEvaluateWork, currentCompute, DEFAULT_MAX_WORK } from '../compute';
+import { computeRateLimit, type SecurityOptions } from '../security';
 import {
   buildEvaluateRequestSchema,
   DEFAULT_MAX_GRID_NODES,
@@ -21,6 +22,10 @@ export interface EvaluateRoutesOptions {
   maxGridNodes?: number;
   /** Largest points × times per request. Default 100 000. */
   maxPoints?: number;
+  /** Largest wells × points × times per request. Default 2.5·10⁸. */
+  maxWork?: number;
+  /** The per-client compute rate limit. */
+  security?: SecurityOptions;
 }
 
 /** Throws the size errors a request can earn before any computing starts. */
@@ -64,6 +69,7 @@ export const evaluateRoutes: FastifyPluginAsync<EvaluateRoutesOptions> = async (
   app.post<{ Body: EvaluateRequest }>(
     '/evaluate',
     {
+      config: computeRateLimit(options.security),
       schema: {
         summary: 'Levels and drawdowns at points and on a grid',
         description:
@@ -85,8 +91,10 @@ export const evaluateRoutes: FastifyPluginAsync<EvaluateRoutesOptions> = async (
     },
     async (request) => {
       checkRequestSize(request.body, limits);
+      checkEvaluateWork(request.body, options.maxWork ?? DEFAULT_MAX_WORK);
       const scenario: Scenario = request.body.scenario;
-      return runEvaluation({
+      // On the compute pool: a large grid never holds the event loop.
+      return currentCompute().run('evaluate', {
         scenario,
         points: request.body.points,
         grid: request.body.grid,

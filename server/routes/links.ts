@@ -24,6 +24,7 @@ import {
 import { writeRateLimit } from '../security';
 import { computedViewFor, monitoringPlanFor, sendExport } from '../exports';
 import { saveOn } from './scenarios';
+import { useComputeLane } from '../compute';
 
 interface OpenedLink {
   link: LinkRecord;
@@ -73,6 +74,8 @@ const routes = async (app: FastifyInstance) => {
   if (!store) throw new Error('link routes need the scenario routes registered first (scenarioStore)');
 
   app.get<{ Params: Static<typeof TokenParamsSchema> }>('/links/:token', { schema: { summary: 'What a share link shows (site view data)', description: 'The revision the link shows, its scenario, the set-out table (lat/lon where georeferenced), level contours, checks, the design result and the cautions. Never the scenario id.', tags: ['links'], params: TokenParamsSchema } }, async (request, reply) => {
+    // The site team's view goes before any waiting computation, never behind a layout search.
+    useComputeLane('view');
     const opened = await openLink(store, request.params.token);
     const { record, link } = opened;
     const projection = createSiteProjection(record.scenario);

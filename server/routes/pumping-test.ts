@@ -3,13 +3,15 @@
  * as CSV text (the file format of `drydig pumping-test`) or as rows, the rate, distance and stop
  * time — answered with the analysis of design.md §8 (`{ fits: [...] }`, the same as the CLI).
  * Bad rows are a 400 naming each line. The analysis is small (≤ 20 000 readings, a few hundred
- * well-function evaluations per fit step) and bounded by the row limit.
+ * well-function evaluations per fit step) and bounded by the row limit; it runs on the compute pool.
  */
 import { Type, type Static } from '@sinclair/typebox';
 import type { FastifyPluginAsync } from 'fastify';
 import { DrydigError } from '../../shared/schema';
-import { PumpingTestResultSchema, TestMethodSchema, analysePumpingTest, parseReadingsCsv, type TestReading } from '../../shared/testing';
+import { PumpingTestResultSchema, TestMethodSchema, parseReadingsCsv, type TestReading } from '../../shared/testing';
+import { computeRateLimit, type SecurityOptions } from '../security';
 import { ErrorResponseSchema } from '../request-schemas';
+import { currentCompute } from '../compute';
 
 /** Most readings one request may carry. */
 export const MAX_API_READINGS = 20_000;
@@ -71,10 +73,11 @@ function readingsOf(body: PumpingTestRequest): TestReading[] {
   });
 }
 
-export const pumpingTestRoutes: FastifyPluginAsync = async (app) => {
+export const pumpingTestRoutes: FastifyPluginAsync<{ security?: SecurityOptions }> = async (app, options) => {
   app.post<{ Body: PumpingTestRequest }>(
     '/pumping-test',
     {
+      config: computeRateLimit(options.security),
       schema: {
         summary: 'Aquifer parameters from pumping-test readings',
         description:
@@ -89,7 +92,7 @@ export const pumpingTestRoutes: FastifyPluginAsync = async (app) => {
     async (request) => {
       const body = request.body;
       const readings = readingsOf(body);
-      return analysePumpingTest({
+      return currentCompute().run('pumpingTest', {
         readings,
         ...(body.methods ? { methods: body.methods } : {}),
         stop_s: body.stop_s ?? null,

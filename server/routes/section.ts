@@ -2,15 +2,16 @@
  * `POST /api/v1/section`: steady seepage in a vertical section — `{ section }` (a section
  * document) or `{ scenario, fromScenario? }` (a half-section built across an excavation), with
  * `compare` for the options side by side. The body is checked by the shared validators on the
- * event loop (messages name fields such as `/section/walls/0/toe_m`); the solve runs in a worker
- * thread within a time budget.
+ * event loop (messages name fields such as `/section/walls/0/toe_m`); the solve runs on the
+ * compute pool within its time budget.
  */
 import { Type, type Static } from '@sinclair/typebox';
 import type { FastifyPluginAsync } from 'fastify';
 import { DrydigError, parseScenario, parseSection, ScenarioSchema, SectionDocumentSchema } from '../../shared/schema';
 import type { SectionJob } from '../../shared/section';
+import { computeRateLimit, type SecurityOptions } from '../security';
 import { ErrorResponseSchema } from '../request-schemas';
-import { createSectionSolver, type SectionSolverOptions } from '../section-compute';
+import { currentCompute } from '../compute';
 
 const Level = (description: string) => Type.Number({ minimum: -20_000, maximum: 20_000, description });
 
@@ -52,17 +53,24 @@ export const SectionResponseSchema = Type.Object(
   { additionalProperties: true },
 );
 
+export interface SectionSolverOptions {
+  /** Time budget of one section solve on the compute pool, ms. Default the pool's (30 s). */
+  timeout_ms?: number;
+}
+
 export interface SectionRoutesOptions {
   solver?: SectionSolverOptions;
+  /** The per-client compute rate limit. */
+  security?: SecurityOptions;
 }
 
 export const sectionRoutes: FastifyPluginAsync<SectionRoutesOptions> = async (app, options) => {
-  const solver = createSectionSolver(options.solver);
-  app.addHook('onClose', async () => solver.close());
+  const runOptions = options.solver?.timeout_ms !== undefined ? { timeout_ms: options.solver.timeout_ms } : {};
 
   app.post<{ Body: SectionRequest }>(
     '/section',
     {
+      config: computeRateLimit(options.security),
       schema: {
         summary: 'Steady seepage in a vertical section: flow, exit gradient, heave and uplift',
         description:
@@ -83,6 +91,6 @@ export const sectionRoutes: FastifyPluginAsync<SectionRoutesOptions> = async (ap
         if ('scenario' in raw) parseScenario(raw.scenario, '/scenario');
       },
     },
-    async (request) => solver.run(request.body as SectionJob),
+    async (request) => currentCompute().run('section', request.body as SectionJob, runOptions),
   );
 };

@@ -2,3 +2,5 @@
 export * from './security-plugin';
 export * from './content-security-policy';
 export * from './redact-tokens';
+export * from './host-allow-list';
+export * from './connection-limits';

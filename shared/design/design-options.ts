@@ -2,9 +2,9 @@
  * Design options with their defaults filled in. The scenario's `designOptions` is read first,
  * then `overrides` (CLI flags, API `options`) replace it field by field.
  */
-import { Value } from '@sinclair/typebox/value';
 import {
   DesignOptionsSchema,
+  structuralIssuesOf,
   DrydigError,
   summariseIssues,
   type DesignControlPoint,
@@ -103,21 +103,7 @@ export const DESIGN_OPTION_DEFAULTS = {
 } as const;
 
 function schemaIssues(value: unknown, prefix: string): FieldIssue[] {
-  const issues: FieldIssue[] = [];
-  const seen = new Set<string>();
-  for (const error of Value.Errors(DesignOptionsSchema, value)) {
-    if (seen.has(error.path)) continue;
-    seen.add(error.path);
-    const message =
-      error.value === undefined
-        ? 'is required'
-        : error.message.includes('additional') || error.message.includes('Unexpected property')
-          ? 'is not a design option (check spelling and units in the name)'
-          : error.message.replace(/^Expected/, 'must be').toLowerCase();
-    issues.push({ path: `${prefix}${error.path}`, message });
-    if (issues.length >= 20) break;
-  }
-  return issues;
+  return structuralIssuesOf(DesignOptionsSchema, value, { prefix, unknownField: 'is not a design option (check spelling and units in the name)' });
 }
 
 /**

@@ -85,7 +85,17 @@ export function setLinearProgramSolver(solver: LinearProgramSolver | null): Line
  */
 export async function solveLinearProgram(problem: LinearProgram): Promise<LinearProgramSolution> {
   if (external) return external(problem);
-  return solveWithHighs(await loadLinearSolver(), problem);
+  const highs = await loadLinearSolver();
+  try {
+    return solveWithHighs(highs, problem);
+  } catch (error) {
+    // HiGHS refuses a model it cannot take (a coefficient out of its range: passModel status −1)
+    // or stops (its WebAssembly aborted). That is the solver's answer about this problem, so it
+    // comes back as status 'error' with its words, and the design says why; a runtime that
+    // aborted is loaded afresh for the next solve.
+    if (error instanceof WebAssembly.RuntimeError) runtime = null;
+    return { status: 'error', x: new Float64Array(0), objective: NaN, detail: `the LP solver could not take this problem (${error instanceof Error ? error.message : String(error)})` };
+  }
 }
 
 /**

@@ -8,6 +8,13 @@
  */
 import { Type, type Static } from '@sinclair/typebox';
 import { DESIGN_BID_OPTION_FIELDS } from './design-bid-options-schema';
+import { COORDINATE_LIMIT_M, LEVEL_LIMIT_M, TIME_LIMIT_S } from './physical-ranges';
+
+/** Layout searches stop within this many seconds: a longer one would hold a pool thread that others are waiting for. */
+export const MAX_LAYOUT_TIME_LIMIT_S = 60;
+const LEVEL = { minimum: -LEVEL_LIMIT_M, maximum: LEVEL_LIMIT_M };
+const COORDINATE = { minimum: -COORDINATE_LIMIT_M, maximum: COORDINATE_LIMIT_M };
+const MONEY = 1e9;
 
 export const DesignModeSchema = Type.Union([Type.Literal('uniform'), Type.Literal('optimal'), Type.Literal('layout')], {
   description: 'uniform: one rate for all active wells; optimal: least total pumping per well (LP); layout: choose wells and rates at least cost (MIP).',
@@ -16,10 +23,10 @@ export type DesignMode = Static<typeof DesignModeSchema>;
 
 export const DesignControlPointSchema = Type.Object(
   {
-    x: Type.Number({ description: 'Easting, m.' }),
-    y: Type.Number({ description: 'Northing, m.' }),
+    x: Type.Number({ ...COORDINATE, description: 'Easting, m.' }),
+    y: Type.Number({ ...COORDINATE, description: 'Northing, m.' }),
     targetLevel_m: Type.Optional(
-      Type.Number({ description: 'Level the groundwater must reach here, m. Default: the target of the excavation the point lies in.' }),
+      Type.Number({ ...LEVEL, description: 'Level the groundwater must reach here, m. Default: the target of the excavation the point lies in.' }),
     ),
     label: Type.Optional(Type.String({ maxLength: 200 })),
   },
@@ -30,7 +37,7 @@ export type DesignControlPoint = Static<typeof DesignControlPointSchema>;
 export const DesignStageSchema = Type.Object(
   {
     wellIds: Type.Array(Type.String({ minLength: 1, maxLength: 64 }), { minItems: 1, maxItems: 5000 }),
-    start_s: Type.Number({ minimum: 0, description: 'Time these wells are switched on, s after the first pumps start.' }),
+    start_s: Type.Number({ minimum: 0, maximum: TIME_LIMIT_S, description: 'Time these wells are switched on, s after the first pumps start.' }),
   },
   { additionalProperties: false, description: 'A group of wells switched on later than t = 0 (staged start).' },
 );
@@ -69,7 +76,7 @@ export const DesignOptionsSchema = Type.Object(
     airEntryCheck: Type.Optional(
       Type.Boolean({ description: 'Keep each well point’s pumping level above its given screen top (air entry) as a limit row. Default false (the cautions list well points drawn below it).' }),
     ),
-    headerLevel_m: Type.Optional(Type.Number({ description: 'Well-point header elevation, m. Default: ground level.' })),
+    headerLevel_m: Type.Optional(Type.Number({ ...LEVEL, description: 'Well-point header elevation, m. Default: ground level.' })),
     pumpEfficiency: Type.Optional(
       Type.Number({ exclusiveMinimum: 0, maximum: 1, description: 'Wire-to-water efficiency η of the pump sets (−). Default 0.6 (common practice).' }),
     ),
@@ -86,7 +93,7 @@ export const DesignOptionsSchema = Type.Object(
       Type.Number({ minimum: 1, maximum: 5, description: 'Steady designs: factor on the steady rate for the first weeks while storage drains (−). Default 1.3 (UFC 3-220-05).' }),
     ),
     initialPeriod_s: Type.Optional(
-      Type.Number({ minimum: 0, description: 'Steady designs: length of that initial period, s. Default 14 days.' }),
+      Type.Number({ minimum: 0, maximum: TIME_LIMIT_S, description: 'Steady designs: length of that initial period, s. Default 14 days.' }),
     ),
     pumpCapacity_m3_s: Type.Optional(
       Type.Number({ exclusiveMinimum: 0, maximum: 10, description: 'Rated flow of one pump set, m³/s. Default 0.02 (72 m³/h).' }),
@@ -94,17 +101,17 @@ export const DesignOptionsSchema = Type.Object(
     standbyRatio: Type.Optional(
       Type.Number({ minimum: 0, maximum: 2, description: 'Standby pumps per duty pump (rounded up, at least one). Default 0.5 (common practice).' }),
     ),
-    energyPrice_per_kWh: Type.Optional(Type.Number({ minimum: 0, description: 'Energy price per kWh, bid currency. Default 0.2 (placeholder: enter your own).' })),
-    wellCost: Type.Optional(Type.Number({ minimum: 0, description: 'Cost of installing one well, bid currency. Default 5000 (placeholder: enter your own).' })),
+    energyPrice_per_kWh: Type.Optional(Type.Number({ minimum: 0, maximum: MONEY, description: 'Energy price per kWh, bid currency. Default 0.2 (placeholder: enter your own).' })),
+    wellCost: Type.Optional(Type.Number({ minimum: 0, maximum: MONEY, description: 'Cost of installing one well, bid currency. Default 5000 (placeholder: enter your own).' })),
     pumpedVolumeCost_per_m3: Type.Optional(
-      Type.Number({ minimum: 0, description: 'Cost per m³ pumped besides energy (discharge fees, treatment), bid currency. Default 0.1 (placeholder).' }),
+      Type.Number({ minimum: 0, maximum: MONEY, description: 'Cost per m³ pumped besides energy (discharge fees, treatment), bid currency. Default 0.1 (placeholder).' }),
     ),
     duration_s: Type.Optional(
-      Type.Number({ exclusiveMinimum: 0, description: 'Pumping duration for energy, volume and cost, s. Default 90 days.' }),
+      Type.Number({ exclusiveMinimum: 0, maximum: TIME_LIMIT_S, description: 'Pumping duration for energy, volume and cost, s. Default 90 days.' }),
     ),
     stages: Type.Optional(Type.Array(DesignStageSchema, { maxItems: 100 })),
     layoutTimeLimit_s: Type.Optional(
-      Type.Number({ exclusiveMinimum: 0, maximum: 600, description: 'Layout mode: longest the integer search may run before it returns its best layout, s. Default 20.' }),
+      Type.Number({ exclusiveMinimum: 0, maximum: MAX_LAYOUT_TIME_LIMIT_S, description: `Layout mode: longest the integer search may run before it returns its best layout, s (at most ${MAX_LAYOUT_TIME_LIMIT_S}). Default 20.` }),
     ),
     floor: Type.Optional(FloorOptionsSchema),
     outOfServiceWell: Type.Optional(

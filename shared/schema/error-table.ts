@@ -146,6 +146,26 @@ export const ERROR_TABLE = {
     title: 'The computation did not finish within its time budget',
     fix: 'Use a coarser mesh or fewer options, or try again when the service is less busy.',
   },
+  DRYDIG_ERR_BUSY: {
+    status: 503,
+    title: 'The service is busy: too many computations are waiting',
+    fix: 'Try again after the seconds given in Retry-After; send fewer requests at once.',
+  },
+  DRYDIG_ERR_CANCELLED: {
+    status: 503,
+    title: 'The computation was cancelled before it finished',
+    fix: 'The request went away or the service is stopping; send it again.',
+  },
+  DRYDIG_ERR_WORK_TOO_LARGE: {
+    status: 413,
+    title: 'The request asks for more computation than the limit (wells × points × times)',
+    fix: 'Ask for fewer points, grid nodes or times, or split the request; the message gives the limit.',
+  },
+  DRYDIG_ERR_HOST_NOT_ALLOWED: {
+    status: 421,
+    title: 'The request names a host this service does not answer for',
+    fix: 'Use the service under one of its configured host names (drydig serve --host-name NAME).',
+  },
   DRYDIG_ERR_INTERNAL: {
     status: 500,
     title: 'An unexpected error (a bug in drydig)',

@@ -9,3 +9,5 @@ export * from './section-schema';
 export * from './validate-section';
 export * from './ground-schema';
 export * from './scenario-warnings';
+export * from './structural-issues';
+export * from './physical-ranges';

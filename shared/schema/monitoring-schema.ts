@@ -4,8 +4,9 @@
  * time comes from the engine; readings are site data stored apart from scenario revisions.
  */
 import { Type, type Static } from '@sinclair/typebox';
-import { Value } from '@sinclair/typebox/value';
+import { structuralIssuesOf } from './structural-issues';
 import type { FieldIssue } from './error-table';
+import { COORDINATE_LIMIT_M, LEVEL_LIMIT_M, TIME_LIMIT_S } from './physical-ranges';
 
 /** Default alert offset above the expected level, m (the issue's example; common practice, no single source). */
 export const DEFAULT_ALERT_OFFSET_M = 0.3;
@@ -13,13 +14,15 @@ export const DEFAULT_ALERT_OFFSET_M = 0.3;
 export const PiezometerSchema = Type.Object(
   {
     id: Type.String({ minLength: 1, maxLength: 64, description: 'Piezometer id as marked on site.' }),
-    x: Type.Number({ description: 'Easting / plan x, m (site CRS).' }),
-    y: Type.Number({ description: 'Northing / plan y, m (site CRS).' }),
+    x: Type.Number({ minimum: -COORDINATE_LIMIT_M, maximum: COORDINATE_LIMIT_M, description: 'Easting / plan x, m (site CRS).' }),
+    y: Type.Number({ minimum: -COORDINATE_LIMIT_M, maximum: COORDINATE_LIMIT_M, description: 'Northing / plan y, m (site CRS).' }),
     alertOffset_m: Type.Optional(
       Type.Number({ minimum: 0, maximum: 20, description: 'Alert when a reading stands this far above the expected level, m. Default 0.3.' }),
     ),
     actionLevel_m: Type.Optional(
       Type.Number({
+        minimum: -LEVEL_LIMIT_M,
+        maximum: LEVEL_LIMIT_M,
         description:
           'Act (stop digging, add pumping) when a reading stands above this level, m. Default: target level (formation − margin) of the excavation containing or nearest the piezometer.',
       }),
@@ -37,7 +40,7 @@ export const MonitoringSchema = Type.Object(
       Type.String({ maxLength: 40, description: 'When pumping starts (t = 0), ISO 8601; lets readings be entered by date.' }),
     ),
     readingInterval_s: Type.Optional(
-      Type.Number({ exclusiveMinimum: 0, description: 'Spacing of the expected-level table, s. Default one day.' }),
+      Type.Number({ exclusiveMinimum: 0, maximum: TIME_LIMIT_S, description: 'Spacing of the expected-level table, s. Default one day.' }),
     ),
   },
   { additionalProperties: false },
@@ -59,20 +62,7 @@ export function validateMonitoring(scenario: unknown): FieldIssue[] {
   if (typeof scenario !== 'object' || scenario === null) return [];
   const monitoring = (scenario as Record<string, unknown>).monitoring;
   if (monitoring === undefined) return [];
-  const issues: FieldIssue[] = [];
-  const seen = new Set<string>();
-  for (const error of Value.Errors(MonitoringSchema, monitoring)) {
-    const path = `/monitoring${error.path}`;
-    if (seen.has(path)) continue;
-    seen.add(path);
-    const schema = error.schema as Record<string, unknown>;
-    let message = error.message.replace(/^Expected/, 'must be').toLowerCase();
-    if (error.value === undefined) message = 'is required';
-    else if (schema.type === 'number' && typeof error.value !== 'number') message = 'must be a number';
-    else if (schema.additionalProperties === false && error.message.includes('additional')) message = 'has an unknown field (check spelling and units in the name)';
-    issues.push({ path, message });
-    if (issues.length >= 20) return issues;
-  }
+  const issues = structuralIssuesOf(MonitoringSchema, monitoring, { prefix: '/monitoring', unknownField: 'has an unknown field (check spelling and units in the name)' });
   if (issues.length) return issues;
   const m = monitoring as Monitoring;
   const ids = new Set<string>();

@@ -4,7 +4,7 @@
  * where its K came from and the uncertainty analysis can sample K from the test's interval.
  */
 import { Type, type Static } from '@sinclair/typebox';
-import { Value } from '@sinclair/typebox/value';
+import { structuralIssuesOf } from './structural-issues';
 import type { FieldIssue } from './error-table';
 
 const Positive = (description: string, maximum: number) => Type.Number({ exclusiveMinimum: 0, maximum, description });
@@ -39,18 +39,7 @@ export function validatePumpingTestRecord(scenario: unknown): FieldIssue[] {
   if (typeof scenario !== 'object' || scenario === null) return [];
   const record = (scenario as Record<string, unknown>).pumpingTest;
   if (record === undefined) return [];
-  const issues: FieldIssue[] = [];
-  const seen = new Set<string>();
-  for (const error of Value.Errors(PumpingTestRecordSchema, record)) {
-    const path = `/pumpingTest${error.path}`;
-    if (seen.has(path)) continue;
-    seen.add(path);
-    const schema = error.schema as Record<string, unknown>;
-    let message = error.message.replace(/^Expected/, 'must be').toLowerCase();
-    if (schema.additionalProperties === false && error.message.includes('additional')) message = 'has an unknown field (check spelling and units in the name)';
-    issues.push({ path, message });
-    if (issues.length >= 20) break;
-  }
+  const issues = structuralIssuesOf(PumpingTestRecordSchema, record, { prefix: '/pumpingTest', unknownField: 'has an unknown field (check spelling and units in the name)' });
   if (issues.length > 0) return issues;
   const r = record as PumpingTestRecord;
   for (const key of ['conductivityInterval_m_s', 'transmissivityInterval_m2_s', 'storativityInterval'] as const) {

@@ -25,8 +25,8 @@ export type SectionLayer = Static<typeof SectionLayerSchema>;
 
 export const SectionSurfaceSchema = Type.Object(
   {
-    x0_m: Type.Number({ description: 'Segment start, m.' }),
-    x1_m: Type.Number({ description: 'Segment end, m.' }),
+    x0_m: Type.Number({ minimum: -1e6, maximum: 1e6, description: 'Segment start, m.' }),
+    x1_m: Type.Number({ minimum: -1e6, maximum: 1e6, description: 'Segment end, m.' }),
     level_m: Level('Ground (or floor) level on this segment, m.'),
     head_m: Type.Union([Level('Fixed water level on the segment (ponded, pumped or drained), m.'), Type.Null()], {
       description: 'Fixed head on the segment, m; null = no flow across it.',
@@ -38,7 +38,7 @@ export type SectionSurface = Static<typeof SectionSurfaceSchema>;
 
 export const SectionWallSchema = Type.Object(
   {
-    x_m: Type.Number({ description: 'Wall position, m (zero thickness, impermeable).' }),
+    x_m: Type.Number({ minimum: -1e6, maximum: 1e6, description: 'Wall position, m (zero thickness, impermeable).' }),
     top_m: Level('Wall top, m.'),
     toe_m: Level('Wall toe, m.'),
   },
@@ -48,7 +48,7 @@ export type SectionWall = Static<typeof SectionWallSchema>;
 
 export const SectionDrainSchema = Type.Object(
   {
-    x_m: Type.Number({ description: 'Drain position, m.' }),
+    x_m: Type.Number({ minimum: -1e6, maximum: 1e6, description: 'Drain position, m.' }),
     level_m: Level('Drain level, m.'),
     head_m: Level('Head held in the drain, m.'),
     radius_m: Type.Optional(Type.Number({ minimum: 0.01, maximum: 1, description: 'Drain radius, m: the mesh is refined to it. Default 0.05.' })),
@@ -59,7 +59,7 @@ export type SectionDrain = Static<typeof SectionDrainSchema>;
 
 export const SectionWellSchema = Type.Object(
   {
-    x_m: Type.Number({ description: 'Well (plane: a row of wells, as a line) position, m.' }),
+    x_m: Type.Number({ minimum: -1e6, maximum: 1e6, description: 'Well (plane: a row of wells, as a line) position, m.' }),
     screenTop_m: Level('Screen top, m.'),
     screenBottom_m: Level('Screen bottom, m.'),
     head_m: Type.Optional(Level('Fixed head in the well, m (relief well or pumped to a level).')),
@@ -73,8 +73,8 @@ export type SectionWell = Static<typeof SectionWellSchema>;
 
 export const SectionSlabSchema = Type.Object(
   {
-    x0_m: Type.Number({ description: 'Slab start, m.' }),
-    x1_m: Type.Number({ description: 'Slab end, m.' }),
+    x0_m: Type.Number({ minimum: -1e6, maximum: 1e6, description: 'Slab start, m.' }),
+    x1_m: Type.Number({ minimum: -1e6, maximum: 1e6, description: 'Slab end, m.' }),
     thickness_m: Type.Number({ minimum: 0.05, maximum: 10, description: 'Slab thickness, m.' }),
     unitWeight_kN_m3: Type.Optional(Type.Number({ minimum: 10, maximum: 30, description: 'Slab unit weight, kN/m³. Default 24 (reinforced concrete, common practice).' })),
   },
@@ -101,7 +101,7 @@ export const SectionDocumentSchema = Type.Object(
     name: Type.Optional(Type.String({ maxLength: 200 })),
     geometry: Type.Union([Type.Literal('plane'), Type.Literal('axisymmetric')], { description: 'plane: flow per metre run; axisymmetric: x is the radius from the axis.' }),
     extent: Type.Object(
-      { x0_m: Type.Number({ description: 'Left edge, m (axisymmetric: ≥ 0).' }), x1_m: Type.Number({ description: 'Right edge, m.' }) },
+      { x0_m: Type.Number({ minimum: -1e6, maximum: 1e6, description: 'Left edge, m (axisymmetric: ≥ 0).' }), x1_m: Type.Number({ minimum: -1e6, maximum: 1e6, description: 'Right edge, m.' }) },
       { additionalProperties: false },
     ),
     layers: Type.Array(SectionLayerSchema, { minItems: 1, maxItems: 50 }),
@@ -112,7 +112,7 @@ export const SectionDocumentSchema = Type.Object(
     slab: Type.Optional(SectionSlabSchema),
     floor: Type.Optional(
       Type.Object(
-        { x0_m: Type.Number(), x1_m: Type.Number() },
+        { x0_m: Type.Number({ minimum: -1e6, maximum: 1e6 }), x1_m: Type.Number({ minimum: -1e6, maximum: 1e6 }) },
         { additionalProperties: false, description: 'The excavation floor span, m. Default: the surface segments at the lowest level.' },
       ),
     ),

@@ -3,51 +3,20 @@
  * together (levels in order, parameters the aquifer kind needs, unique ids, sound outlines).
  * Every issue names the JSON pointer of the field at fault.
  */
-import { Value, ValueErrorType, type ValueError } from '@sinclair/typebox/value';
 import { ScenarioSchema, type Scenario } from './scenario-schema';
 import { DrydigError, summariseIssues, type FieldIssue } from './error-table';
 import { findSelfIntersection, getPolygonArea } from '../geometry/polygon';
 import { validatePumpingTestRecord } from './pumping-test-record-schema';
 import { groundProfileIssues } from './ground-schema';
+import { describeStructuralError, structuralIssuesOf } from './structural-issues';
 
 export type ScenarioValidation = { ok: true; scenario: Scenario } | { ok: false; issues: FieldIssue[] };
 
-const MAX_STRUCTURAL_ISSUES = 20;
-
-/** Words a TypeBox structural error the way a designer reads it (shared by the document validators). */
-export function describeStructuralError(error: ValueError): string {
-  const schema = error.schema as Record<string, unknown>;
-  const value = error.value;
-  if (value === undefined) return 'is required';
-  if (schema.const !== undefined) return `must be ${JSON.stringify(schema.const)}`;
-  if (Array.isArray(schema.anyOf)) {
-    const literals = (schema.anyOf as Array<Record<string, unknown>>)
-      .map((s) => s.const)
-      .filter((c) => c !== undefined);
-    if (literals.length > 0) return `must be one of ${literals.map((l) => JSON.stringify(l)).join(', ')}`;
-  }
-  if (schema.type === 'number') {
-    if (typeof value !== 'number') return `must be a number, got ${typeof value === 'string' ? JSON.stringify(value).slice(0, 40) : typeof value}`;
-    if (!Number.isFinite(value)) return 'must be a finite number';
-  }
-  return error.message.replace(/^Expected/, 'must be').toLowerCase();
-}
+/** Words a TypeBox structural error (kept here for callers that imported it from this file). */
+export { describeStructuralError };
 
 function structuralIssues(input: unknown): FieldIssue[] {
-  const issues: FieldIssue[] = [];
-  const seen = new Set<string>();
-  for (const error of Value.Errors(ScenarioSchema, input)) {
-    // TypeBox reports a union failure on the parent and on each branch; keep the first per path.
-    if (seen.has(error.path)) continue;
-    seen.add(error.path);
-    if (error.type === ValueErrorType.ObjectAdditionalProperties) {
-      issues.push({ path: error.path, message: 'is not a field of this object (check its spelling and the unit in its name)' });
-    } else {
-      issues.push({ path: error.path, message: describeStructuralError(error) });
-    }
-    if (issues.length >= MAX_STRUCTURAL_ISSUES) break;
-  }
-  return issues;
+  return structuralIssuesOf(ScenarioSchema, input);
 }
 
 function semanticIssues(s: Scenario): FieldIssue[] {

@@ -3,10 +3,9 @@
  * (layers contiguous top-down, surface segments covering the extent, walls, wells and drains
  * inside the soil, at least one fixed head). Every issue names the JSON pointer of the field.
  */
-import { Value, ValueErrorType } from '@sinclair/typebox/value';
 import { SectionDocumentSchema, type SectionDocument } from './section-schema';
 import { DrydigError, summariseIssues, type FieldIssue } from './error-table';
-import { describeStructuralError } from './validate-scenario';
+import { structuralIssuesOf } from './structural-issues';
 
 const EPS_M = 1e-9;
 
@@ -18,18 +17,7 @@ export function surfaceLevelAt(doc: Pick<SectionDocument, 'surface'>, x_m: numbe
 }
 
 function structural(input: unknown, prefix: string): FieldIssue[] {
-  const issues: FieldIssue[] = [];
-  const seen = new Set<string>();
-  for (const error of Value.Errors(SectionDocumentSchema, input)) {
-    if (seen.has(error.path)) continue;
-    seen.add(error.path);
-    const message = error.type === ValueErrorType.ObjectAdditionalProperties
-      ? 'is not a field of this object (check its spelling and the unit in its name)'
-      : describeStructuralError(error);
-    issues.push({ path: `${prefix}${error.path}`, message });
-    if (issues.length >= 20) break;
-  }
-  return issues;
+  return structuralIssuesOf(SectionDocumentSchema, input, { prefix });
 }
 
 function layerIssues(doc: SectionDocument, add: (path: string, message: string) => void): void {

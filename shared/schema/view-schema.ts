@@ -6,7 +6,7 @@
  */
 import { Type, type Static } from '@sinclair/typebox';
 
-const XY = Type.Tuple([Type.Number(), Type.Number()]);
+const XY = Type.Tuple([Type.Number({ minimum: -1e8, maximum: 1e8 }), Type.Number({ minimum: -1e8, maximum: 1e8 })]);
 
 export const UnderlayRefSchema = Type.Object(
   { pixel: XY, site: XY },

@@ -10,6 +10,7 @@ import {
   type Monitoring,
   type Scenario,
 } from '../../../shared/schema';
+import { validateDesignOptions } from '../../../shared/design';
 import type { ReadingRecord, RevisionMeta, RevisionRecord, ScenarioStore } from '../scenario-store';
 import type { Static } from '@sinclair/typebox';
 import type { ReadingBodySchema } from './request-schemas';
@@ -17,7 +18,9 @@ import type { ReadingBodySchema } from './request-schemas';
 /** Validates a scenario in a request body; issues are named from the body root (`/scenario/...`). */
 export function parseSaveScenario(input: unknown): Scenario {
   const result = validateScenario(input);
-  const issues = result.ok ? validateMonitoring(input) : result.issues;
+  // The same checks as POST /api/v1/design makes of a scenario's designOptions: a stored scenario
+  // with options the solver refuses would fail every later design.
+  const issues = result.ok ? [...validateMonitoring(input), ...validateDesignOptions((input as { designOptions?: unknown }).designOptions, '/designOptions')] : result.issues;
   if (!result.ok || issues.length > 0) {
     const named = issues.map((i) => ({ ...i, path: `/scenario${i.path}` }));
     throw new DrydigError('DRYDIG_ERR_INVALID_SCENARIO', summariseIssues(named), named);

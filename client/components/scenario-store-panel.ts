@@ -380,7 +380,7 @@ export class ScenarioStorePanel extends LitElement {
     if (!this.account) return this.renderSignIn();
     const stored = this.scenarioId !== null;
     return html`
-      <div class="row status">Signed in as ${this.account.username} (${this.account.role})
+      <div class="row account">Signed in as ${this.account.username} (${this.account.role})
         <button class="secondary" @click=${() => this.signOut()}>Sign out</button></div>
       <section>
         <h3>Save</h3>

@@ -47,7 +47,7 @@ export function buildQuickChecks(ctx: DesignContext, total_m3_s: number): QuickC
       const plausible = Number.isFinite(rate) && rate >= 0 && rate <= QUICK_CHECK_MAX_RATE_M3_S;
       if (!plausible) {
         flags.push('implausible-rate');
-        words.push(`the equivalent well would need ${Number.isFinite(rate) ? `${rate.toPrecision(2)} m³/s` : 'an unbounded rate'}, more than ${QUICK_CHECK_MAX_RATE_M3_S} m³/s: the target is out of reach of any well field here, not a figure to price`);
+        words.push(`the equivalent well would need ${Number.isFinite(rate) ? `${rate.toPrecision(2)} m³/s` : 'an unbounded rate (the estimate is not a finite number here)'}, more than ${QUICK_CHECK_MAX_RATE_M3_S} m³/s: the target is out of reach of any well field here, not a figure to price`);
       }
       const ratio = plausible && rate > 0 ? total_m3_s / rate : null;
       if (ratio !== null && (ratio > QUICK_CHECK_RATIO_BAND || ratio < 1 / QUICK_CHECK_RATIO_BAND)) flags.push('ratio-far-from-one');

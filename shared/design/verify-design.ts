@@ -53,7 +53,7 @@ export function verifyDesign({ ctx, rates, installed, problem, checkPoints }: Ve
     });
     const allowed = capacity * (w.capacityFactor ?? 1);
     if (q > 0 && q > allowed * (1 + 1e-6))
-      verificationIssues.push(`well ${w.id} pumps ${formatLitres(q)}, above its allowed capacity ${formatLitres(allowed)} (Sichardt ${formatLitres(capacity)} × ${w.capacityFactor ?? 1}) at the verified pumping level`);
+      verificationIssues.push(`well ${w.id} pumps ${formatLitres(q)}, above its allowed capacity ${formatLitres(allowed)} (Sichardt capacity ${formatLitres(capacity)} × ${w.capacityFactor ?? 1}) at the verified pumping level`);
     if (q > 0 && level.pumpingLevel_m < w.minimumLevel_m - 1e-6)
       verificationIssues.push(`well ${w.id}: pumping level ${formatFigure(level.pumpingLevel_m, 4)} m is below its floor ${formatFigure(w.minimumLevel_m, 4)} m`);
     return {

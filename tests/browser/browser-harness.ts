@@ -5,10 +5,11 @@
  */
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import type { FastifyInstance } from 'fastify';
 import { afterAll, beforeAll } from 'vitest';
 import { buildApp } from '../../server/app';
+import { hashPassword } from '../../server/auth';
 
 export const ARTIFACTS_DIR = path.resolve('artifacts/browser');
 
@@ -65,6 +66,28 @@ export async function watchPage(page: Page, errors: string[]): Promise<void> {
   });
 }
 
+/** The password of the designer accounts the browser tests sign in with. */
+export const BROWSER_TEST_PASSWORD = 'correct-horse-battery-staple';
+let browserAccounts = 0;
+
+/**
+ * Makes a designer account in the app's store and signs a browser context in through the real
+ * login route, so the Store tab and every storage call carry the session cookie. Returns the
+ * CSRF token that writes made with `context.request` must send as `x-drydig-csrf`.
+ */
+export async function signInContext(app: FastifyInstance, context: BrowserContext, origin: string): Promise<string> {
+  const username = `browser-designer-${++browserAccounts}`;
+  app.scenarioStore.accounts.addUser({ username, role: 'designer', passwordHash: await hashPassword(BROWSER_TEST_PASSWORD) });
+  const res = await context.request.post(`${origin}/api/v1/auth/login`, { data: { username, password: BROWSER_TEST_PASSWORD } });
+  if (!res.ok()) throw new Error(`browser test sign-in failed: ${res.status()} ${await res.text()}`);
+  return ((await res.json()) as { csrfToken: string }).csrfToken;
+}
+
+/** Signs the page's browser context in (see `signInContext`). */
+export async function signInBrowser(app: FastifyInstance, page: Page, origin: string): Promise<string> {
+  return signInContext(app, page.context(), origin);
+}
+
 /** Starts the server and a page at `/`, waiting until the first field is on the map. */
 export async function openPlanMap(options: { viewport?: { width: number; height: number } } = {}): Promise<BrowserSession> {
   const { app, origin } = await startServer({ clientDir: 'client/dist' });
@@ -73,6 +96,7 @@ export async function openPlanMap(options: { viewport?: { width: number; height:
   const page = await browser.newPage({ viewport: options.viewport ?? { width: 1440, height: 900 }, deviceScaleFactor: 1 });
   const errors: string[] = [];
   await watchPage(page, errors);
+  await signInBrowser(app, page, origin);
   await page.goto(url);
   await waitForField(page);
   mkdirSync(ARTIFACTS_DIR, { recursive: true });

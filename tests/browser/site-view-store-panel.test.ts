@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { build } from 'vite';
 import type { Browser, Page } from 'playwright-core';
 import type { FastifyInstance } from 'fastify';
-import { ARTIFACTS_DIR, launchChromium, startServer } from './browser-harness';
+import { ARTIFACTS_DIR, launchChromium, signInContext, startServer } from './browser-harness';
 
 const PAGE_DIR = path.resolve('tests/browser/site-view-panel-page');
 const OUT_DIR = path.resolve('artifacts/site-view-panel-dist');
@@ -39,6 +39,7 @@ async function rename(page: Page, name: string): Promise<void> {
 describe('<scenario-store-panel> in two tabs', () => {
   it('shows the conflict when the second tab saves on an old revision, and loads the newer one', async () => {
     const context = await browser.newContext({ viewport: { width: 900, height: 900 } });
+    await signInContext(app, context, origin);
     const errors: string[] = [];
     const tabA = await context.newPage();
     const tabB = await context.newPage();

@@ -11,7 +11,8 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import type { FastifyInstance } from 'fastify';
-import { ARTIFACTS_DIR, launchChromium, startServer, watchPage } from './browser-harness';
+import { ARTIFACTS_DIR, launchChromium, signInContext, startServer, watchPage } from './browser-harness';
+import { signInApp } from '../helpers/sign-in';
 import type { Scenario } from '../../shared/schema';
 
 const SCREENSHOTS = ARTIFACTS_DIR;
@@ -38,6 +39,8 @@ let origin: string;
 
 beforeAll(async () => {
   ({ app, origin } = await startServer({ clientDir: builtClientDir() }));
+  // Storing scenarios and making links needs a signed-in designer (the site team uses the links).
+  await signInApp(app, 'designer');
   browser = await launchChromium();
   mkdirSync(SCREENSHOTS, { recursive: true });
 });
@@ -69,11 +72,12 @@ describe('the site view', () => {
   it('opens a view link in a second context: read-only, with the set-out table, cautions and GPS position', async () => {
     // The designer's context saves the scenario and makes the link through the API, as the editor does.
     const designer = await browser.newContext();
+    const csrf = await signInContext(app, designer, origin);
     const api = designer.request;
-    const saved = await api.post(`${origin}/api/v1/scenarios`, { data: { scenario: demoWithMonitoring(), savedBy: 'designer' } });
+    const saved = await api.post(`${origin}/api/v1/scenarios`, { data: { scenario: demoWithMonitoring(), savedBy: 'designer' }, headers: { 'x-drydig-csrf': csrf } });
     expect(saved.status()).toBe(201);
     const { scenarioId } = (await saved.json()) as { scenarioId: string };
-    const link = await api.post(`${origin}/api/v1/scenarios/${scenarioId}/links`, { data: { mode: 'view', revision: 1 } });
+    const link = await api.post(`${origin}/api/v1/scenarios/${scenarioId}/links`, { data: { mode: 'view', revision: 1 }, headers: { 'x-drydig-csrf': csrf } });
     const { sitePath } = (await link.json()) as { sitePath: string };
     const setout = (await (await api.get(`${origin}/api/v1/links/${sitePath.split('/').pop()}`)).json()) as { setout: Array<{ latitude_deg: number; longitude_deg: number }> };
     await designer.close();

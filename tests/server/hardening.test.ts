@@ -10,10 +10,13 @@ import { buildApp } from '../../server/app';
 import { defaultHostNames, hostNameOf } from '../../server/security';
 import type { Scenario } from '../../shared/schema';
 import { loadFixture } from './helpers/demo-fixtures';
+import { signInApp } from '../helpers/sign-in';
 
 let app: FastifyInstance;
 beforeAll(async () => {
   app = await buildApp({ dataDir: ':memory:', clientDir: false, compute: { threads: 2 } });
+  // Saves are storage routes: a signed-in designer (accounts, issue 14.1).
+  await signInApp(app, 'designer');
 });
 afterAll(() => app.close());
 

@@ -5,6 +5,7 @@
  */
 import { Type, type Static } from '@sinclair/typebox';
 import type { FieldIssue } from './error-table';
+import { CONDUCTIVITY_RANGE_M_S, Level } from './physical-ranges';
 
 /** Plausible unit weights of soils, kN/m³ (common practice: organic clays ≈ 13, dense gravels ≈ 23). */
 export const UNIT_WEIGHT_RANGE_kN_m3 = { minimum: 10, maximum: 26 } as const;
@@ -17,12 +18,12 @@ export type GroundLayerKind = Static<typeof GroundLayerKindSchema>;
 export const GroundLayerSchema = Type.Object(
   {
     id: Type.String({ minLength: 1, maxLength: 64 }),
-    top_m: Type.Number({ description: 'Layer top elevation, m.' }),
-    bottom_m: Type.Number({ description: 'Layer bottom elevation, m.' }),
+    top_m: Level({ description: 'Layer top elevation, m.' }),
+    bottom_m: Level({ description: 'Layer bottom elevation, m.' }),
     kind: GroundLayerKindSchema,
     unitWeightSat_kN_m3: Type.Number({ ...UNIT_WEIGHT_RANGE_kN_m3, description: 'Saturated unit weight γsat, kN/m³.' }),
     unitWeight_kN_m3: Type.Optional(Type.Number({ ...UNIT_WEIGHT_RANGE_kN_m3, description: 'Moist unit weight γ above the water table, kN/m³ (default γsat).' })),
-    conductivity_m_s: Type.Optional(Type.Number({ exclusiveMinimum: 0, maximum: 1, description: 'Hydraulic conductivity K, m/s (information; the plan model uses the aquifer’s).' })),
+    conductivity_m_s: Type.Optional(Type.Number({ minimum: CONDUCTIVITY_RANGE_M_S[0], maximum: CONDUCTIVITY_RANGE_M_S[1], description: 'Hydraulic conductivity K, m/s (information; the plan model uses the aquifer’s).' })),
     description: Type.Optional(Type.String({ maxLength: 500 })),
   },
   { additionalProperties: false },

@@ -1,9 +1,10 @@
 /**
  * Pit-floor checks against hand calculations.
- * Uplift: textbook form FS = Σγᵢtᵢ / (γw·h_p) (e.g. Craig's Soil Mechanics, uplift of the base of
- * an excavation; Powers et al., Construction Dewatering and Groundwater Control, 3rd ed., ch. on
- * uplift), with the partial factors of EN 1997-1:2004 Table A.15 (UPL) — recommended values,
- * national annexes differ. Critical gradient i_c = γ′/γw (Terzaghi 1943).
+ * Uplift: the textbook form FS = Σγᵢtᵢ / (γw·h_p) (base uplift of an excavation; the book
+ * references for this form are from memory: Craig's Soil Mechanics; Powers et al., Construction
+ * Dewatering and Groundwater Control), with the partial factors of EN 1997-1:2004 Table A.15 (UPL)
+ * — recommended values, national annexes differ. Critical gradient i_c = γ′/γw (Terzaghi 1943).
+ * The expected figures are hand calculations of these formulas, written beside each check.
  */
 import { describe, expect, it } from 'vitest';
 import {
@@ -119,6 +120,7 @@ describe('ground profile validation names the field', () => {
     ['unit weight out of range', { layers: [{ ...clayOverSand.layers[0], unitWeightSat_kN_m3: 45 }] }, '/ground/layers/0/unitWeightSat_kN_m3'],
     ['no pumped aquifer among the layers', { layers: [{ ...clayOverSand.layers[1], top_m: 15, bottom_m: -15 }] }, '/ground/layers'],
     ['unknown kind', { layers: [{ ...clayOverSand.layers[0], kind: 'rock' }] }, '/ground/layers/0/kind'],
+    ['a level beyond ±20 km of datum', { layers: [{ ...clayOverSand.layers[0], bottom_m: -1e308 }] }, '/ground/layers/0/bottom_m'],
   ])('refuses %s', (_name, ground, path) => {
     const result = validateScenario(withGround(ground));
     expect(result.ok).toBe(false);

@@ -5,6 +5,7 @@ export * from './design-options-schema';
 export * from './monitoring-schema';
 export * from './view-schema';
 export * from './pumping-test-record-schema';
+export * from './import-record-schema';
 export * from './section-schema';
 export * from './validate-section';
 export * from './ground-schema';

@@ -40,9 +40,11 @@ import './monitoring-editor';
 import './design-panel';
 import './scenario-store-panel';
 import './seepage-panel';
+import './site-import-panel';
+import type { PumpingTestPanel } from './pumping-test-panel';
 import type { ScenarioStorePanel } from './scenario-store-panel';
 
-type Tab = 'layout' | 'ground' | 'test' | 'results' | 'design' | 'section' | 'store' | 'backdrop';
+type Tab = 'layout' | 'ground' | 'test' | 'results' | 'design' | 'section' | 'store' | 'backdrop' | 'import';
 /** The side panel's tabs in order, with their labels (one line per tab keeps additions apart). */
 const TABS: ReadonlyArray<readonly [Tab, string]> = [
   ['layout', 'Layout'],
@@ -53,6 +55,7 @@ const TABS: ReadonlyArray<readonly [Tab, string]> = [
   ['section', 'Section'],
   ['store', 'Store'],
   ['backdrop', 'Backdrop'],
+  ['import', 'Import'],
 ];
 
 const DEMOS: Record<string, { label: string; scenario: Scenario }> = {
@@ -226,6 +229,8 @@ export class DrydigApp extends LightElement {
 
   private onMapReady(controller: LeafletMapController): void {
     this.controller = controller;
+    // The Import tab draws its previews on the map: render once more to hand it over.
+    this.requestUpdate();
     this.controller.fitScenario(this.scenario);
     this.syncMap();
     this.validate();
@@ -757,10 +762,15 @@ export class DrydigApp extends LightElement {
           <nav class="dd-tabs" role="tablist">
             ${TABS.map(([t, label]) => html`<button type="button" role="tab" name=${`tab-${t}`} aria-selected=${this.tab === t} class=${this.tab === t ? 'dd-on' : ''} @click=${() => (this.tab = t)}>${label}</button>`)}
           </nav>
-          <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab === 'store' || this.tab === 'test'}>${this.tab === 'store' || this.tab === 'test' ? nothing : this.renderTab(times, ti, view.contour?.step_m)}</div>
+          <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab === 'store' || this.tab === 'test' || this.tab === 'import'}>${this.tab === 'store' || this.tab === 'test' || this.tab === 'import' ? nothing : this.renderTab(times, ti, view.contour?.step_m)}</div>
           <!-- Kept alive across tab switches: the readings and fits stay while the designer checks the ground model. -->
           <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'test'}>
             <pumping-test-panel .store=${this.store} .scenario=${s} .units=${this.units} .shown=${this.tab === 'test'}></pumping-test-panel>
+          </div>
+          <!-- Kept alive across tab switches: opened site files and their previews on the map stay. -->
+          <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'import'}>
+            <site-import-panel .store=${this.store} .scenario=${s} .units=${this.units} .map=${this.controller?.map ?? null} .shown=${this.tab === 'import'}
+              .storedScenarioId=${this.storedScenarioId} @import-test-readings=${this.onImportedTestReadings}></site-import-panel>
           </div>
           <!-- Kept alive across tab switches: it remembers which stored scenario and revision the editor holds. -->
           <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'store'}>
@@ -774,6 +784,18 @@ export class DrydigApp extends LightElement {
   private storePanel(): ScenarioStorePanel | null {
     return this.querySelector('scenario-store-panel');
   }
+
+  private readonly storedScenarioId = (): string | null => this.storePanel()?.scenarioId ?? null;
+
+  /** Logger readings from the Import tab become the Test tab's readings file. */
+  private onImportedTestReadings = (e: CustomEvent<{ csv: string; name: string }>): void => {
+    const panel = this.querySelector<PumpingTestPanel>('pumping-test-panel');
+    if (!panel) return;
+    panel.csv = e.detail.csv;
+    panel.fileName = e.detail.name;
+    panel.result = null;
+    this.tab = 'test';
+  };
 
   /** A scenario opened from the store (a revision, a restore, theirs after a conflict). */
   private openStored(scenario: Scenario): void {

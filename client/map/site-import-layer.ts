@@ -88,10 +88,16 @@ export class SiteImportLayer extends L.Layer {
     this.backdrop.clearLayers();
     const v = this.view;
     const options = { pane: 'dd-import-backdrop', renderer: this.renderer, color: BACKDROP_COLOUR, weight: 1, interactive: false, className: 'dd-import-backdrop' };
+    // One multi-polyline per DXF layer: 10⁵ entities become a handful of Leaflet layers.
+    const byLayer = new Map<string, L.LatLngTuple[][]>();
     for (const line of v.backdrop) {
       const ll = line.points.map(([x, y]) => [y, x] as L.LatLngTuple);
-      (line.closed ? L.polygon(ll, { ...options, fill: false }) : L.polyline(ll, options)).addTo(this.backdrop);
+      if (line.closed && ll.length > 2) ll.push(ll[0]!);
+      const parts = byLayer.get(line.layer) ?? [];
+      parts.push(ll);
+      byLayer.set(line.layer, parts);
     }
+    for (const parts of byLayer.values()) L.polyline(parts, options).addTo(this.backdrop);
     for (const t of v.backdropTexts.slice(0, MAX_LABELS)) {
       L.marker([t.y, t.x], {
         pane: 'dd-import-backdrop',

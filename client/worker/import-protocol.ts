@@ -30,7 +30,7 @@ export interface DxfImportResult {
   sha256: string;
   units: { code: number | null; name: string; toMetre: number; fromHeader: boolean };
   layers: DxfLayerSummary[];
-  /** Every polyline as read (outlines are taken from these, unsimplified). */
+  /** The closed polylines as read (outlines are taken from these, unsimplified). */
   polylines: DxfPolyline[];
   /** The same, simplified for drawing. */
   display: DxfPolyline[];

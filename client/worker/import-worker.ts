@@ -17,7 +17,8 @@ function run(req: ImportRequest): ImportResponse {
   const plan = readDxfSitePlan(req.text, { source: 'DXF file', ...(req.toMetre !== undefined ? { toMetre: req.toMetre } : {}) });
   const display = simplifyForDisplay(plan.polylines, req.tolerance_m);
   const count = (lines: typeof display) => lines.reduce((n, l) => n + l.points.length, 0);
-  return { kind: 'dxf', id: req.id, sha256, ...plan, display, vertices: { read: count(plan.polylines), drawn: count(display) } };
+  // Only closed polylines travel unsimplified (outlines are taken from them); the rest is drawn from the display copy.
+  return { kind: 'dxf', id: req.id, sha256, ...plan, polylines: plan.polylines.filter((l) => l.closed), display, vertices: { read: count(plan.polylines), drawn: count(display) } };
 }
 
 scope.onmessage = (event: MessageEvent<ImportRequest>) => {

@@ -207,16 +207,15 @@ export class DxfImportSection extends LightElement {
           ${formatNumber(r.vertices.read, { significant: 6 })} vertices drawn as ${formatNumber(r.vertices.drawn, { significant: 6 })}${Object.keys(r.skipped).length ? html`; not used: ${Object.entries(r.skipped).map(([t, n]) => `${t} ${n}`).join(', ')}` : nothing}.</p>
         ${far ? html`<p class="dd-warning" role="alert">${far}</p>` : nothing}
         <table class="dd-import-table" data-test="dxf-layers">
-          <thead><tr><th>Layer</th><th>Entities</th><th title="Closed polylines">Closed</th><th title="Points, blocks, circles">Points</th>
-            <th>${DXF_ROLE_LABELS.outlines}</th><th>${DXF_ROLE_LABELS.marks}</th><th>${DXF_ROLE_LABELS.backdrop}</th></tr></thead>
+          <thead><tr><th>Layer</th><th>Entities</th>
+            <th title="Closed polylines become excavation outlines">${DXF_ROLE_LABELS.outlines}</th><th title="Points, blocks and circle centres become existing wells or receptors">${DXF_ROLE_LABELS.marks}</th><th>${DXF_ROLE_LABELS.backdrop}</th></tr></thead>
           <tbody>${r.layers.map((l) => html`<tr data-layer=${l.name}>
             <td><strong>${l.name}</strong></td>
             <td><small>${Object.entries(l.counts).map(([t, n]) => `${t} ${n}`).join(' · ')}</small></td>
-            <td>${l.closedPolylines}</td><td>${l.points}</td>
-            <td><input type="radio" name="dxf-outline-layer" aria-label="Outlines from ${l.name}" .checked=${this.outlineLayer === l.name} ?disabled=${l.closedPolylines === 0}
-              @change=${() => ((this.outlineLayer = l.name), this.showOnMap())} /></td>
-            <td><input type="radio" name="dxf-marks-layer" aria-label="Wells or receptors from ${l.name}" .checked=${this.marksLayer === l.name} ?disabled=${l.points === 0}
-              @change=${() => ((this.marksLayer = l.name), this.showOnMap())} /></td>
+            <td><label class="dd-check"><input type="radio" name="dxf-outline-layer" aria-label="Outlines from ${l.name}" .checked=${this.outlineLayer === l.name} ?disabled=${l.closedPolylines === 0}
+              @change=${() => ((this.outlineLayer = l.name), this.showOnMap())} /><small>${l.closedPolylines}</small></label></td>
+            <td><label class="dd-check"><input type="radio" name="dxf-marks-layer" aria-label="Wells or receptors from ${l.name}" .checked=${this.marksLayer === l.name} ?disabled=${l.points === 0}
+              @change=${() => ((this.marksLayer = l.name), this.showOnMap())} /><small>${l.points}</small></label></td>
             <td><input type="checkbox" name="dxf-backdrop" aria-label="Draw ${l.name} as backdrop" .checked=${this.backdrop.has(l.name)}
               @change=${(e: Event) => this.toggleBackdrop(l.name, (e.target as HTMLInputElement).checked)} /></td>
           </tr>`)}</tbody>

@@ -10,4 +10,4 @@ export const IMPORT_WORDS = {
 } as const;
 
 /** Roles a DXF layer can play. */
-export const DXF_ROLE_LABELS = { outlines: 'Outlines', marks: 'Wells / receptors', backdrop: 'Backdrop' } as const;
+export const DXF_ROLE_LABELS = { outlines: 'Outlines', marks: 'Wells', backdrop: 'Backdrop' } as const;

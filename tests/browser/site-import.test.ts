@@ -55,6 +55,8 @@ describe('<site-import-panel>', () => {
     expect(await page.locator('path.dd-import-preview-mark').count()).toBe(3);
     // Nothing has entered the scenario yet.
     expect((await scenario()).imports).toBeUndefined();
+    await page.locator('dxf-import-section [data-test="dxf-layers"]').scrollIntoViewIfNeeded();
+    await s.screenshot('site-import-dxf-layers');
   }, 60_000);
 
   it('applies the PIT outline as the excavation, replacing the demo pit, and keeps the file’s SHA-256', async () => {

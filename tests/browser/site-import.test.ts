@@ -140,4 +140,30 @@ describe('<site-import-panel>', () => {
     expect(await page.locator('pumping-test-panel textarea[name="test-csv"]').inputValue()).toBe('time_s,drawdown_m,distance_m,well\n60,0.1999999999999993,18,pz-a\n600,0.5999999999999996,18,pz-a\n3600,1,18,pz-a\n');
     expect(s.errors).toEqual([]);
   }, 60_000);
+
+  it('enters the logger readings as site readings of a piezometer once the scenario is stored', async () => {
+    await page.click('button[name="tab-import"]');
+    await page.selectOption('logger-import-section select[name="logger-piezometer"]', 'PZ1');
+    await page.click('logger-import-section button[name="logger-to-site"]');
+    expect(await page.locator('logger-import-section [data-test="logger-error"]').innerText()).toMatch(/save the scenario in the Store tab/);
+    await page.click('button[name="tab-store"]');
+    const store = page.locator('scenario-store-panel');
+    await store.locator('input[name="savedBy"]').fill('desk designer');
+    await store.getByRole('button', { name: 'Save', exact: true }).click();
+    await expect.poll(() => store.locator('.status').first().innerText()).toMatch(/Stored, showing revision 1/);
+    await page.click('button[name="tab-import"]');
+    await page.click('logger-import-section button[name="logger-to-site"]');
+    await expect.poll(() => page.locator('logger-import-section [data-test="logger-sent"]').innerText()).toMatch(/^Entered 4 readings for PZ1/);
+    const readings = await page.evaluate(async () => {
+      const id = (document.querySelector('scenario-store-panel') as unknown as { scenarioId: string }).scenarioId;
+      return ((await (await fetch(`/api/v1/scenarios/${id}/readings`)).json()) as { readings: Array<{ piezometerId: string; level_m: number; measuredAt: string }> }).readings;
+    });
+    expect(readings.map((r) => [r.piezometerId, r.level_m, r.measuredAt])).toEqual([
+      ['PZ1', 13, '2027-03-01T07:00:00Z'],
+      ['PZ1', 12.8, '2027-03-01T07:01:00Z'],
+      ['PZ1', 12.4, '2027-03-01T07:10:00Z'],
+      ['PZ1', 12, '2027-03-01T08:00:00Z'],
+    ]);
+    expect(s.errors).toEqual([]);
+  }, 60_000);
 });

@@ -45,7 +45,7 @@ export function excavationFloor(scenario: Scenario, excavation: Excavation, opti
 export function safeFormationLevel(scenario: Scenario, excavation: Excavation, options: FloorCheckOptions, head_m: number): number {
   const bottom = excavation.formationLevel_m;
   const top = Math.max(scenario.groundLevel_m, groundProfileOf(scenario, excavation).profile?.layers[0]?.top_m ?? -Infinity);
-  const safeAt = (z: number) => head_m <= excavationFloor(scenario, excavation, options, z).target.targetLevel_m + LEVEL_TOLERANCE_M;
+  const safeAt = (z: number) => head_m <= excavationFloor(scenario, excavation, options, z).target.safeLevel_m + LEVEL_TOLERANCE_M;
   let lastSafe = top;
   if (!safeAt(top)) return top;
   for (let z = top - SCAN_STEP_M; z > bottom; z -= SCAN_STEP_M) {

@@ -22,8 +22,8 @@ export interface BoreholeDesignLevels {
 }
 
 const W = 300;
-const H = 330;
-const PAD = { top: 12, bottom: 44 };
+const H = 320;
+const PAD = { top: 12, bottom: 30 };
 const COL = { x0: 44, x1: 116 };
 const LABEL_X = 128;
 const LABEL_GAP = 11;
@@ -113,7 +113,7 @@ export class BoreholeColumn extends LightElement {
     const Y = (z_m: number) => y(fromSi(z_m, u));
     const labelY = this.spread(lines.map((l) => Y(l.level_m) + 3));
     const dug = this.formation && this.formation.level_m < this.groundLevel_m ? this.formation : null;
-    const keyY = H - 14;
+    const keyY = H - 13;
 
     return html`<figure class="dd-borehole">
       <figcaption>${BOREHOLE_LABELS.title(this.caption)}</figcaption>
@@ -121,15 +121,19 @@ export class BoreholeColumn extends LightElement {
         ${this.defs()}
         ${niceTicks(lo, hi, 6).map((v) => svg`<line x1="36" x2=${COL.x0} y1=${y(v)} y2=${y(v)} class="dd-bh-tick" /><text x="33" y=${y(v) + 3} text-anchor="end" class="dd-bh-tick-text">${formatNumber(v, { decimals: Math.abs(hi - lo) < 5 ? 1 : 0 })}</text>`)}
         <text x="6" y=${PAD.top + 2} class="dd-bh-tick-text" transform=${`rotate(-90 6 ${PAD.top + 2})`} text-anchor="end">${BOREHOLE_LABELS.levelAxis(u)}</text>
-        ${layers.map((l) => {
-          const top = Y(l.top_m);
-          const h = Math.max(Y(l.bottom_m) - top, 0.5);
-          return svg`<g data-layer=${l.id} data-kind=${l.kind}>
-            <rect x=${COL.x0} y=${top} width=${COL.x1 - COL.x0} height=${h} fill=${`url(#${this.ids[l.kind]})`} class="dd-bh-layer" />
-            ${h >= 12 ? svg`<text x=${(COL.x0 + COL.x1) / 2} y=${top + h / 2 + 3.5} text-anchor="middle" class="dd-bh-layer-name">${l.id.length > 12 ? `${l.id.slice(0, 11)}…` : l.id}</text>` : nothing}
-          </g>`;
-        })}
+        ${layers.map((l) => svg`<rect data-layer=${l.id} data-kind=${l.kind} x=${COL.x0} y=${Y(l.top_m)} width=${COL.x1 - COL.x0} height=${Math.max(Y(l.bottom_m) - Y(l.top_m), 0.5)}
+          fill=${`url(#${this.ids[l.kind]})`} class="dd-bh-layer" />`)}
         ${dug ? svg`<rect x=${COL.x0} y=${Y(this.groundLevel_m)} width=${COL.x1 - COL.x0} height=${Math.max(Y(dug.level_m) - Y(this.groundLevel_m), 0)} class="dd-bh-dug" />` : nothing}
+        ${layers.map((l) => {
+          // Name the layer in the part left under the formation when it has room there: that is the ground the checks weigh.
+          const left_m = dug && l.top_m > dug.level_m && l.bottom_m < dug.level_m ? dug.level_m : l.top_m;
+          const top = Y(left_m);
+          const h = Y(l.bottom_m) - top;
+          const room = h >= 12 ? { top, h } : { top: Y(l.top_m), h: Y(l.bottom_m) - Y(l.top_m) };
+          return room.h >= 12
+            ? svg`<text x=${(COL.x0 + COL.x1) / 2} y=${room.top + room.h / 2 + 3.5} text-anchor="middle" class="dd-bh-layer-name">${l.id.length > 12 ? `${l.id.slice(0, 11)}…` : l.id}</text>`
+            : nothing;
+        })}
         ${lines.map((l, i) => svg`<g class=${`dd-bh-line dd-bh-${l.kind}`} data-line=${l.kind}>
           <line x1=${COL.x0 - 6} x2=${LABEL_X - 4} y1=${Y(l.level_m)} y2=${Y(l.level_m)} />
           ${l.kind === 'static' || l.kind === 'head' ? svg`<path d=${`M${COL.x1 + 2},${Y(l.level_m) - 6} l8,0 l-4,6 z`} class="dd-bh-water-mark" />` : nothing}
@@ -138,7 +142,7 @@ export class BoreholeColumn extends LightElement {
         </g>`)}
         <g class="dd-bh-key" transform=${`translate(${COL.x0} ${keyY})`}>
           <rect width="16" height="10" fill=${`url(#${this.ids.plug})`} class="dd-bh-layer" /><text x="20" y="9">${BOREHOLE_LABELS.keyPlug}</text>
-          <rect x="130" width="16" height="10" fill=${`url(#${this.ids.granular})`} class="dd-bh-layer" /><text x="150" y="9">${BOREHOLE_LABELS.keyGranular}</text>
+          <rect x="140" width="16" height="10" fill=${`url(#${this.ids.granular})`} class="dd-bh-layer" /><text x="160" y="9">${BOREHOLE_LABELS.keyGranular}</text>
         </g>
       </svg>
       ${d?.stale ? html`<p class="dd-warn dd-bh-note">${BOREHOLE_LABELS.stale}</p>` : d ? nothing : html`<p class="dd-hint dd-bh-note">${BOREHOLE_LABELS.noDesign}</p>`}

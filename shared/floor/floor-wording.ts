@@ -72,8 +72,8 @@ export type GroundLayerField = keyof typeof GROUND_LAYER_FIELD_LABELS;
 
 /** Kinds of ground as the editor offers them, and short names for the column. */
 export const GROUND_LAYER_KIND_LABELS = {
-  plug: { long: 'Plug — low permeability (clay, silt, rock)', short: 'plug' },
-  granular: { long: 'Granular — sand, gravel', short: 'granular' },
+  plug: { long: 'Plug (clay, silt, rock)', short: 'plug' },
+  granular: { long: 'Granular (sand, gravel)', short: 'granular' },
 } as const;
 
 /** The fixed words of the profile editor. */

@@ -5,9 +5,12 @@
  * aquifer levels. Every edit is one undo step through the scenario store. A typed value that
  * cannot be a soil is refused with a message naming the layer and the field; a profile whose
  * layers do not fit together is kept (so it can be mended step by step) and its problems are
- * listed in plain words. Beside it, the borehole column and the section chart.
+ * listed in plain words. Beside it, the borehole column and the section chart. Inputs always
+ * show what the scenario holds (`live`): a refused value leaves the field at the kept one, and
+ * the message repeats what was typed.
  */
 import { html, nothing } from 'lit';
+import { live } from 'lit/directives/live.js';
 import { LightElement } from './light-element';
 import type { GroundLayer, GroundProfile, Scenario } from '../../shared/schema';
 import { CONDUCTIVITY_RANGE_M_S, LEVEL_LIMIT_M, UNIT_WEIGHT_RANGE_kN_m3, groundProfileIssues } from '../../shared/schema';
@@ -142,7 +145,7 @@ export class GroundProfileEditor extends LightElement {
     const unit = this.unitOf(field);
     const placeholder = field === 'unitWeight_kN_m3' ? GROUND_EDITOR_TEXT.moistEmpty : field === 'conductivity_m_s' ? GROUND_EDITOR_TEXT.kOptional : '';
     return html`<label class="dd-field"><span>${GROUND_LAYER_FIELD_LABELS[field]}</span><span class="dd-input-unit">
-      <input type="text" inputmode="decimal" name=${`layer-${i}-${field}`} .value=${displayValue(l[field], unit)} placeholder=${placeholder}
+      <input type="text" inputmode="decimal" name=${`layer-${i}-${field}`} .value=${live(displayValue(l[field], unit))} placeholder=${placeholder}
         @change=${(e: Event) => this.onNumber(owner, profile, i, field, (e.target as HTMLInputElement).value)} /><em>${unit ?? 'kN/m³'}</em></span></label>`;
   }
 
@@ -151,11 +154,11 @@ export class GroundProfileEditor extends LightElement {
     return html`<fieldset class="dd-layer" data-layer=${l.id} data-kind=${l.kind}>
       <legend>${GROUND_EDITOR_TEXT.layerTitle(i + 1, l.id)}</legend>
       <div class="dd-layer-grid">
-        <label class="dd-field"><span>${GROUND_LAYER_FIELD_LABELS.id}</span><input type="text" name=${`layer-${i}-id`} maxlength="64" .value=${l.id}
+        <div class="dd-layer-head"><label class="dd-field"><span>${GROUND_LAYER_FIELD_LABELS.id}</span><input type="text" name=${`layer-${i}-id`} maxlength="64" .value=${live(l.id)}
           @change=${(e: Event) => this.onName(owner, profile, i, (e.target as HTMLInputElement).value)} /></label>
         <label class="dd-field"><span>${GROUND_LAYER_FIELD_LABELS.kind}</span><select name=${`layer-${i}-kind`}
           @change=${(e: Event) => this.change(`kind of layer ${l.id}`, owner, { layers: profile.layers.map((x, k) => (k === i ? { ...x, kind: (e.target as HTMLSelectElement).value as GroundLayer['kind'] } : x)) })}>
-          ${(['plug', 'granular'] as const).map((k) => html`<option value=${k} ?selected=${l.kind === k}>${GROUND_LAYER_KIND_LABELS[k].long}</option>`)}</select></label>
+          ${(['plug', 'granular'] as const).map((k) => html`<option value=${k} ?selected=${l.kind === k}>${GROUND_LAYER_KIND_LABELS[k].long}</option>`)}</select></label></div>
         ${this.numberField(owner, profile, i, 'top_m')}
         ${this.numberField(owner, profile, i, 'bottom_m')}
         ${this.numberField(owner, profile, i, 'unitWeightSat_kN_m3')}

@@ -10,7 +10,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { Scenario } from '../../shared/schema';
-import { loadDemo, usePlanMap, type BrowserSession } from './browser-harness';
+import { clickSite, loadDemo, usePlanMap, type BrowserSession } from './browser-harness';
 
 let s: BrowserSession;
 let page: Page;
@@ -22,11 +22,20 @@ usePlanMap((session) => {
 
 const scenario = (): Promise<Scenario> => page.evaluate(() => (window as unknown as { __drydig: { scenario(): Scenario } }).__drydig.scenario());
 
-/** Types into a profile field and commits it (a text input commits on change). */
+/**
+ * Types into a profile field and commits it (a text input commits on change). Renders pending
+ * from the last action finish first, and the value is set and committed in one task: the fields
+ * show what the scenario holds, so a render in between would put the old value back.
+ */
 async function typeInto(name: string, text: string): Promise<void> {
-  const input = page.locator(`ground-profile-editor input[name="${name}"]`);
-  await input.fill(text);
-  await input.dispatchEvent('change');
+  await page.evaluate(() => new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done))));
+  await page.locator(`ground-profile-editor input[name="${name}"]`).evaluate((el, value) => {
+    const input = el as HTMLInputElement;
+    input.focus();
+    input.value = value;
+    input.dispatchEvent(new Event('input', { bubbles: true }));
+    input.dispatchEvent(new Event('change', { bubbles: true }));
+  }, text);
 }
 
 describe('<ground-profile-editor>', () => {
@@ -51,6 +60,22 @@ describe('<ground-profile-editor>', () => {
     expect(message).toMatch(/Layer 2 “clay”, saturated unit weight γsat: 40 kN\/m³ is outside 10–26 kN\/m³/);
     expect(message).not.toMatch(/\/ground|layers\/\d|Error|at \w+ \(/);
     expect((await scenario()).ground!.layers[1]!.unitWeightSat_kN_m3).toBe(19.5);
+    // The field shows the value kept, not the refused one.
+    expect(await page.locator('ground-profile-editor input[name="layer-1-unitWeightSat_kN_m3"]').inputValue()).toBe('19.5');
+  });
+
+  it('shows levels in feet in US units and takes typed feet back to metres', async () => {
+    await page.click('button[name="units-us"]');
+    const top = page.locator('ground-profile-editor input[name="layer-1-top_m"]');
+    expect(await top.inputValue()).toBe('41.01');
+    expect(await page.locator('ground-profile-editor borehole-column [data-line="formation"] text').textContent()).toMatch(/22\.97\sft/);
+    await typeInto('layer-1-top_m', '41');
+    expect((await scenario()).ground!.layers[1]!.top_m).toBeCloseTo(12.4968, 6);
+    expect((await scenario()).ground!.layers[0]!.bottom_m).toBeCloseTo(12.4968, 6);
+    await page.click('button[name="undo"]');
+    await page.click('button[name="undo"]');
+    expect(await page.locator('button[name="units-si"]').getAttribute('aria-pressed')).toBe('true');
+    expect((await scenario()).ground!.layers[1]!.top_m).toBe(12.5);
   });
 
   it('keeps a bottom level above the top but lists it in plain words, and undo mends it', async () => {
@@ -92,7 +117,14 @@ describe('<ground-profile-editor>', () => {
     expect(allowable).toMatch(/allowable \(uplift\) 8\.7\d\sm/);
     expect(head).toMatch(/head \(design\) 8\.7\d\sm/);
     expect(await column.locator('.dd-bh-note').count()).toBe(0);
-    await column.evaluate((el) => el.scrollIntoView({ block: 'center' }));
+    // A section line across the basement: its chart is drawn beside the column.
+    await page.click('button[name="tool-section"]');
+    await clickSite(page, 389170, 5819415);
+    await clickSite(page, 389260, 5819415);
+    await expect.poll(() => page.locator('ground-profile-editor section-chart path.dd-water').count(), { timeout: 20_000 }).toBe(1);
+    if (await page.locator('.dd-drawer .dd-close').count()) await page.click('.dd-drawer .dd-close');
+    expect(await column.locator('.dd-bh-note').count()).toBe(0); // the view is not a design input
+    await column.evaluate((el) => el.scrollIntoView({ block: 'start' }));
     await s.screenshot('ground-profile-editor');
 
     // An edit afterwards marks the drawn head as from an earlier design.

@@ -113,9 +113,11 @@ describe('<ground-profile-editor>', () => {
     const allowable = await column.locator('[data-line="allowable"] text').textContent();
     const head = await column.locator('[data-line="head"] text').textContent();
     // Plug of 2 m at 20.5 kN/m³ under formation 7 m over its base at 5 m, required FS 1.111:
-    // allowable ≈ 5 + 41 / (9.81 · 1.111) ≈ 8.76 m (hand calculation, EN 1997-1 UPL), and the design holds the head there.
+    // allowable ≈ 5 + 41 / (9.81 · 1.111) ≈ 8.76 m (hand calculation, EN 1997-1 UPL); the design holds the head at or below it.
     expect(allowable).toMatch(/allowable \(uplift\) 8\.7\d\sm/);
-    expect(head).toMatch(/head \(design\) 8\.7\d\sm/);
+    const level = (text: string | null) => Number(/(-?\d+\.\d+)\sm/.exec(text ?? '')?.[1]);
+    expect(level(head)).toBeLessThanOrEqual(level(allowable) + 0.005);
+    expect(level(head)).toBeGreaterThan(7); // pressure relief: the head stays above formation
     expect(await column.locator('.dd-bh-note').count()).toBe(0);
     // A section line across the basement: its chart is drawn beside the column.
     await page.click('button[name="tool-section"]');

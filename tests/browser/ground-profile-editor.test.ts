@@ -98,6 +98,21 @@ describe('<ground-profile-editor>', () => {
     expect(await page.locator('button[name="undo"]').getAttribute('title')).toMatch(/saturated unit weight γsat of layer clay/);
   });
 
+  it('gives an excavation its own profile (a copy of the site one) and takes it away again, each one undo step', async () => {
+    await page.selectOption('ground-profile-editor select[name="profile-owner"]', 'basement');
+    expect(await page.locator('ground-profile-editor').innerText()).toMatch(/Excavation basement has no profile of its own and uses the site profile/);
+    await page.click('ground-profile-editor button[name="profile-copy-site"]');
+    expect((await scenario()).excavations[0]!.ground!.layers.map((l) => l.id)).toEqual(['made-ground', 'clay', 'sand']);
+    expect(await page.locator('ground-profile-editor borehole-column figcaption').innerText()).toMatch(/excavation basement/);
+    await page.click('ground-profile-editor button[name="layer-2-add-below"]');
+    expect((await scenario()).excavations[0]!.ground!.layers.map((l) => [l.id, l.top_m, l.bottom_m])).toEqual([['made-ground', 15, 12.5], ['clay', 12.5, 5], ['sand', 5, -5], ['sand-2', -5, -15]]);
+    expect((await scenario()).ground!.layers).toHaveLength(3); // the site profile is untouched
+    await page.click('ground-profile-editor button[name="profile-drop-own"]');
+    expect((await scenario()).excavations[0]!.ground).toBeUndefined();
+    await page.selectOption('ground-profile-editor select[name="profile-owner"]', '');
+    expect(await page.locator('ground-profile-editor borehole-column figcaption').innerText()).toMatch(/site$/);
+  });
+
   it('runs the design: uplift governs, the safe-dig chart is drawn, and the column shows the head and the allowable uplift level', async () => {
     await page.click('button[name="tab-design"]');
     await page.click('design-panel input[name="design-mode"][value="optimal"]');

@@ -59,6 +59,9 @@ export function computeTimes({ ctx, rates, designPoints, excavations, feasible }
   if (designTime_s !== null) {
     const times = logSpacedTimes({ end_s: designTime_s, count: PUMPING_SAMPLES, start_s: designTime_s / 1e4 });
     const samples = times.map((t) => levelsAt(designPoints, t));
+    // The excavation's first passage samples the same times: read them from here.
+    const sampled = new Map(times.map((t, k) => [t, samples[k]!] as const));
+    const indexOf = new Map(designPoints.map((p, i) => [p, i] as const));
     designPoints.forEach((p, i) => {
       const over = samples.map((s) => s[i]!.level_m - p.targetLevel_m);
       const k = over.findIndex((v) => v <= 0);
@@ -79,7 +82,11 @@ export function computeTimes({ ctx, rates, designPoints, excavations, feasible }
       const timeToTarget_s =
         pts.length > 0 && own.every((t) => t !== null)
           ? firstPassageTime({
-              reached: (t) => levelsAt(pts, t).every((r, i) => r.level_m <= pts[i]!.targetLevel_m),
+              reached: (t) => {
+                const known = sampled.get(t);
+                if (known) return pts.every((p) => known[indexOf.get(p)!]!.level_m <= p.targetLevel_m);
+                return t > 0 && levelsAt(pts, t).every((r, i) => r.level_m <= pts[i]!.targetLevel_m);
+              },
               start_s: times[0]!,
               end_s: designTime_s,
               samples: PUMPING_SAMPLES,

@@ -36,4 +36,15 @@ describe('<floor-check-view>', () => {
     await s.screenshot('floor-check-clay-plug');
     expect(s.errors).toEqual([]);
   }, 120_000);
+
+  it('gives no "back at formation" figure where the design holds the head above formation, and says why', async () => {
+    // Before: "back at formation level after 0 s … standby pumps and power must take over".
+    const badge = page.locator('design-panel .dd-badge[data-excavation="basement"] [data-recovery]');
+    expect(await badge.innerText()).toMatch(/no figure — the design holds the head above formation/);
+    const note = await page.locator('design-panel .dd-chart-note').innerText();
+    expect(note).toMatch(/^Back at formation level: no figure/);
+    expect(note).not.toMatch(/after 0 s|must take over/);
+    await page.locator('design-panel .dd-chart-note').scrollIntoViewIfNeeded();
+    await s.screenshot('floor-check-clay-plug-recovery');
+  });
 });

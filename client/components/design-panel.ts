@@ -18,9 +18,13 @@ import type { DesignResult } from '../../shared/design/design-result';
 import { designResultToCsv } from '../../shared/design/design-csv';
 import { linearScale, niceTicks } from './chart-axes';
 import { formatDuration } from './time-format';
+import { describeRecovery, RECOVERY_STANDBY_NOTE } from '../../shared/design/design-wording';
 import './floor-check-view';
 import { CAUTION_TEXT } from './caution-note';
 import { defaultDisplayUnits, formatQuantity, fromSi, toSi, type DisplayUnits, type FormatQuantityOptions, type UnitId } from '../../shared/units';
+
+/** First letter upper case (a shared phrase opening a sentence). */
+const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
 /** The options the panel edits, in display units (converted to SI when the request is built). */
 interface PanelOptions {
@@ -335,7 +339,7 @@ export class DesignPanel extends LightElement {
               <span class="dd-badge-value">${e.met ? 'met' : 'not met'}, highest level ${this.length(e.critical.level_m, 2)} vs target ${this.length(e.targetLevel_m, 2)} (${this.shortfall(e.worstShortfall_m, true)})</span>
               <small>critical point (${this.coordinate(e.critical.x)}, ${this.coordinate(e.critical.y)}), ${e.critical.kind};
                 ${e.timeToTarget_s !== null ? `target reached after ${formatDuration(e.timeToTarget_s)}` : r.designTime_s === null ? 'steady design' : 'target not reached by the design time'};
-                power failure: back at formation level after ${e.recoveryToFormation_s === null ? 'more than the checked span' : formatDuration(e.recoveryToFormation_s)}</small></span>
+                <span data-recovery>power failure: ${describeRecovery(e, formatDuration)}</span></small></span>
           </div>`,
         )}
       </div>
@@ -386,8 +390,10 @@ export class DesignPanel extends LightElement {
   private renderChart(r: DesignResult) {
     const ts = r.timeSeries!;
     const pumping = ts.pumping.filter((p) => p.time_s > 0);
-    const recovery = ts.recovery.filter((p) => p.time_s > ts.stop_s).map((p) => ({ time_s: p.time_s - ts.stop_s, level_m: p.level_m }));
-    const recoveryAt = r.excavations.find((e) => e.id === ts.excavationId)?.criticalRecoveryToFormation_s ?? null;
+    const stop_s = ts.stop_s ?? 0;
+    const recovery = ts.recovery.filter((p) => p.time_s > stop_s).map((p) => ({ time_s: p.time_s - stop_s, level_m: p.level_m }));
+    const excavation = r.excavations.find((e) => e.id === ts.excavationId);
+    const recoveryAt = excavation?.recoveryToFormation_s ?? null;
     return html`<h3>Level at the critical point <small>${ts.excavationId} (${this.coordinate(ts.x)}, ${this.coordinate(ts.y)})</small></h3>
       ${this.logChart(pumping, 'dd-curve', 'time since pumping started (log)', ts, r.designTime_s, 'Level against time at the critical point, pumping on')}
       <ul class="dd-section-key">
@@ -396,9 +402,9 @@ export class DesignPanel extends LightElement {
         <li><span class="dd-k dd-k-formation"></span>formation level</li>
       </ul>
       ${recovery.length > 1
-        ? html`<h3>Power failure <small>every pump stops at ${formatDuration(ts.stop_s)}</small></h3>
+        ? html`<h3>Power failure <small>every pump stops at ${ts.stop_s === null ? 'the steady state' : formatDuration(ts.stop_s)}</small></h3>
           ${this.logChart(recovery, 'dd-recovery', 'time since the pumps stopped (log)', ts, recoveryAt, 'Recovery of the level at the critical point after every pump stops')}
-          <p class="dd-chart-note">Back at formation level after ${recoveryAt === null ? 'more than the span shown' : formatDuration(recoveryAt)}: standby pumps and power must take over within that time.</p>`
+          <p class="dd-chart-note">${capitalise(describeRecovery(excavation ?? { recoveryToFormation_s: null, recoveryNote: null }, formatDuration))}${recoveryAt !== null ? `: ${RECOVERY_STANDBY_NOTE}` : '.'}</p>`
         : nothing}`;
   }
 

@@ -9,6 +9,7 @@ export * from './rate-problem';
 export * from './well-limits';
 export * from './bid-summary';
 export * from './design-times';
+export * from './design-recovery';
 export * from './design-csv';
 export * from './design-wording';
 export * from './design-setup';

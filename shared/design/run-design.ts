@@ -27,7 +27,7 @@ import { buildQuickChecks } from './quick-check';
 import { collectDesignCautions } from './design-run-cautions';
 import { checkFloors } from './floor-stage';
 import { floorCautions } from '../floor';
-import { describeRounding } from './design-wording';
+import { describeRounding, STEADY_RECOVERY_CAUTION } from './design-wording';
 
 /**
  * Runs a design. Throws `DrydigError` naming the field for bad input; never returns NaN
@@ -78,10 +78,10 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
 
   progress('times', 0.65);
   const refinedDesignPoints = [...designPoints, ...[...addedCheckPoints].map((i) => checkPoints[i]!)];
-  const times = computeTimes({ ctx, rates, designPoints: refinedDesignPoints, excavations });
+  const times = computeTimes({ ctx, rates, designPoints: refinedDesignPoints, excavations, feasible });
 
   progress('floor checks', 0.8);
-  const floors = checkFloors({ ctx, rates, checkPoints, pointLevels_m: pointResults.map((r) => r.level_m), stop_s: times.stop_s });
+  const floors = checkFloors({ ctx, rates, checkPoints, pointLevels_m: pointResults.map((r) => r.level_m) });
 
   progress('standby check', 0.85);
   const outOfService = checkOneWellOut(ctx, checkPoints, responses.check, rates);
@@ -101,6 +101,7 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     designPointCount: designPoints.length,
   });
   cautions.push(...floorCautions([...floors].map(([excavationId, f]) => ({ excavationId, ...f }))));
+  if (ctx.designTime_s === null && rates.some((q) => q > 0)) cautions.push(STEADY_RECOVERY_CAUTION);
   progress('done', 1);
   return {
     mode,

@@ -12,7 +12,7 @@ import { DXF_UNITS, marksOnLayer, outlinesOnLayer } from '../../shared/import';
 import { getPolygonArea } from '../../shared/geometry';
 import { formatNumber, formatQuantity, type DisplayUnits } from '../../shared/units';
 import type { ScenarioStore } from '../state';
-import { ImportFailed, type DxfImportResult, type ImportClient } from '../worker';
+import { ImportFailed, linesOnLayers, meanVertex, packedCount, type DxfImportResult, type ImportClient } from '../worker';
 import type { SiteImportLayer } from '../map';
 import { addMarksAsPiezometers, addMarksAsWells, addOutlinesAsExcavations, recordImport } from '../import';
 import { displayValue, parseDisplayNumber } from './unit-context';
@@ -97,11 +97,21 @@ export class DxfImportSection extends LightElement {
     } catch (error) {
       this.result = null;
       this.error = error instanceof ImportFailed ? error.message : `DXF file: ${(error as Error).message}`;
-      this.layer?.setView({ backdrop: [], backdropTexts: [], previewOutlines: [], previewMarks: [] });
+      this.layer?.setView({ backdrop: null, backdropLines: [], backdropTexts: [], previewOutlines: [], previewMarks: [] });
     } finally {
       this.busy = false;
     }
   }
+
+  /** Indices of the display lines on the layers chosen as backdrop (kept while the choice stands). */
+  private get backdropLines(): number[] {
+    const r = this.result;
+    if (!r) return [];
+    if (this.linesFor?.result !== r || this.linesFor.backdrop !== this.backdrop) this.linesFor = { result: r, backdrop: this.backdrop, lines: linesOnLayers(r.display, this.backdrop) };
+    return this.linesFor.lines;
+  }
+
+  private linesFor: { result: DxfImportResult; backdrop: ReadonlySet<string>; lines: number[] } | null = null;
 
   private get outlines() {
     return this.result && this.outlineLayer ? outlinesOnLayer(this.result, this.outlineLayer) : [];
@@ -115,7 +125,8 @@ export class DxfImportSection extends LightElement {
     const r = this.result;
     if (!r || !this.layer) return;
     this.layer.setView({
-      backdrop: r.display.filter((l) => this.backdrop.has(l.layer)),
+      backdrop: r.display,
+      backdropLines: this.backdropLines,
       backdropTexts: r.texts.filter((t) => this.backdrop.has(t.layer)),
       previewOutlines: this.outlines,
       previewMarks: this.marks,
@@ -174,11 +185,10 @@ export class DxfImportSection extends LightElement {
     const r = this.result;
     if (!s || !r) return null;
     const site = [...s.excavations.flatMap((e) => e.outline), ...s.wells.map((w) => [w.x, w.y] as [number, number])];
-    const drawn = r.display.flatMap((l) => l.points);
-    if (site.length === 0 || drawn.length === 0) return null;
-    const mean = (pts: ReadonlyArray<readonly [number, number]>) => pts.reduce((m, p) => [m[0] + p[0] / pts.length, m[1] + p[1] / pts.length], [0, 0]);
-    const [ax, ay] = mean(site);
-    const [bx, by] = mean(drawn);
+    const drawn = meanVertex(r.display, Array.from({ length: packedCount(r.display) }, (_, k) => k));
+    if (site.length === 0 || drawn === null) return null;
+    const [ax, ay] = site.reduce((m, p) => [m[0] + p[0] / site.length, m[1] + p[1] / site.length], [0, 0]);
+    const [bx, by] = drawn;
     const d = Math.hypot(ax - bx, ay - by);
     return d > FAR_FROM_SITE_M ? `The drawing lies ${formatNumber(d / 1000, { significant: 3 })} km from the scenario’s wells and pits: is it drawn in the site grid${s.crs ? ` (${s.crs})` : ''}, in the unit shown?` : null;
   }
@@ -190,7 +200,7 @@ export class DxfImportSection extends LightElement {
     const marks = this.marks;
     const far = this.farFromSite();
     const reference = this.scenario?.excavations[0];
-    const backdropLines = r ? r.display.filter((l) => this.backdrop.has(l.layer)).length : 0;
+    const backdropLines = this.backdropLines.length;
     return html`<section class="dd-import-block" data-import="dxf" data-backdrop-lines=${backdropLines}>
       <h3>Site plan (DXF)</h3>
       <p class="dd-hint">${IMPORT_WORDS.dxfHint}</p>

@@ -6,7 +6,8 @@
  * Coordinates are site metres, as everywhere on the plan (latlng = [y, x]).
  */
 import L from 'leaflet';
-import type { Borehole, DxfMark, DxfPolyline, DxfText } from '../../shared/import';
+import type { Borehole, DxfMark, DxfText } from '../../shared/import';
+import type { PackedLines } from '../worker/packed-lines';
 import { INK, SELECTION_COLOUR } from './colour-scale';
 import { escapeHtml } from './leaflet-map-controller';
 
@@ -16,8 +17,9 @@ const BACKDROP_COLOUR = '#8a8f98';
 const MAX_LABELS = 200;
 
 export interface SiteImportView {
-  /** Backdrop lines (already simplified for display). */
-  backdrop: readonly DxfPolyline[];
+  /** Backdrop lines (already simplified for display) and which of them to draw. */
+  backdrop: PackedLines | null;
+  backdropLines: readonly number[];
   backdropTexts: readonly DxfText[];
   /** Outlines that would become excavations. */
   previewOutlines: ReadonlyArray<ReadonlyArray<readonly [number, number]>>;
@@ -28,7 +30,7 @@ export interface SiteImportView {
   boreholeId: string | null;
 }
 
-const EMPTY: SiteImportView = { backdrop: [], backdropTexts: [], previewOutlines: [], previewMarks: [], boreholes: [], boreholeId: null };
+const EMPTY: SiteImportView = { backdrop: null, backdropLines: [], backdropTexts: [], previewOutlines: [], previewMarks: [], boreholes: [], boreholeId: null };
 
 export class SiteImportLayer extends L.Layer {
   private readonly renderer = L.canvas({ padding: 0.3 });
@@ -51,8 +53,24 @@ export class SiteImportLayer extends L.Layer {
   /** Plan points of everything shown, to fit the view on an import. */
   extent(): Array<[number, number]> {
     const v = this.view;
+    const p = v.backdrop;
+    const drawn: Array<[number, number]> = [];
+    if (p) {
+      // Corners of the drawn lines' box are enough to fit the view.
+      let [x0, y0, x1, y1] = [Infinity, Infinity, -Infinity, -Infinity];
+      for (const k of v.backdropLines)
+        for (let i = p.offsets[k]!; i < p.offsets[k + 1]!; i++) {
+          const x = p.coords[2 * i]!;
+          const y = p.coords[2 * i + 1]!;
+          if (x < x0) x0 = x;
+          if (x > x1) x1 = x;
+          if (y < y0) y0 = y;
+          if (y > y1) y1 = y;
+        }
+      if (x0 <= x1) drawn.push([x0, y0], [x1, y1]);
+    }
     return [
-      ...v.backdrop.flatMap((l) => l.points),
+      ...drawn,
       ...v.previewOutlines.flatMap((o) => o.map(([x, y]) => [x, y] as [number, number])),
       ...v.boreholes.map((b) => [b.x, b.y] as [number, number]),
     ];
@@ -89,14 +107,17 @@ export class SiteImportLayer extends L.Layer {
     const v = this.view;
     const options = { pane: 'dd-import-backdrop', renderer: this.renderer, color: BACKDROP_COLOUR, weight: 1, interactive: false, className: 'dd-import-backdrop' };
     // One multi-polyline per DXF layer: 10⁵ entities become a handful of Leaflet layers.
-    const byLayer = new Map<string, L.LatLngTuple[][]>();
-    for (const line of v.backdrop) {
-      const ll = line.points.map(([x, y]) => [y, x] as L.LatLngTuple);
-      if (line.closed && ll.length > 2) ll.push(ll[0]!);
-      const parts = byLayer.get(line.layer) ?? [];
-      parts.push(ll);
-      byLayer.set(line.layer, parts);
-    }
+    const byLayer = new Map<number, L.LatLngTuple[][]>();
+    const p = v.backdrop;
+    if (p)
+      for (const k of v.backdropLines) {
+        const ll: L.LatLngTuple[] = [];
+        for (let i = p.offsets[k]!; i < p.offsets[k + 1]!; i++) ll.push([p.coords[2 * i + 1]!, p.coords[2 * i]!]);
+        if (p.closed[k] === 1 && ll.length > 2) ll.push(ll[0]!);
+        const parts = byLayer.get(p.layerOf[k]!) ?? [];
+        parts.push(ll);
+        byLayer.set(p.layerOf[k]!, parts);
+      }
     for (const parts of byLayer.values()) L.polyline(parts, options).addTo(this.backdrop);
     for (const t of v.backdropTexts.slice(0, MAX_LABELS)) {
       L.marker([t.y, t.x], {

@@ -5,6 +5,7 @@
  * SHA-256. Nothing enters the scenario here.
  */
 import type { Borehole, DxfLayerSummary, DxfMark, DxfPolyline, DxfText } from '../../shared/import';
+import type { PackedLines } from './packed-lines';
 
 export interface DxfImportRequest {
   kind: 'dxf';
@@ -32,8 +33,8 @@ export interface DxfImportResult {
   layers: DxfLayerSummary[];
   /** The closed polylines as read (outlines are taken from these, unsimplified). */
   polylines: DxfPolyline[];
-  /** The same, simplified for drawing. */
-  display: DxfPolyline[];
+  /** Every polyline simplified for drawing, packed (transferred, not copied). */
+  display: PackedLines;
   marks: DxfMark[];
   texts: DxfText[];
   skipped: Record<string, number>;

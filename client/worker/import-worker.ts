@@ -5,6 +5,7 @@
  */
 import { parseAgs4, readBoreholes, readDxfSitePlan, sha256Hex, simplifyForDisplay } from '../../shared/import';
 import type { ImportRequest, ImportResponse } from './import-protocol';
+import { packLines, packedBuffers } from './packed-lines';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 
@@ -15,10 +16,11 @@ function run(req: ImportRequest): ImportResponse {
     return { kind: 'ags', id: req.id, sha256, groups: [...groups.keys()], boreholes: readBoreholes(groups, 'AGS file') };
   }
   const plan = readDxfSitePlan(req.text, { source: 'DXF file', ...(req.toMetre !== undefined ? { toMetre: req.toMetre } : {}) });
-  const display = simplifyForDisplay(plan.polylines, req.tolerance_m);
-  const count = (lines: typeof display) => lines.reduce((n, l) => n + l.points.length, 0);
+  const simplified = simplifyForDisplay(plan.polylines, req.tolerance_m);
+  const count = (lines: typeof simplified) => lines.reduce((n, l) => n + l.points.length, 0);
+  const display = packLines(simplified);
   // Only closed polylines travel unsimplified (outlines are taken from them); the rest is drawn from the display copy.
-  return { kind: 'dxf', id: req.id, sha256, ...plan, polylines: plan.polylines.filter((l) => l.closed), display, vertices: { read: count(plan.polylines), drawn: count(display) } };
+  return { kind: 'dxf', id: req.id, sha256, ...plan, polylines: plan.polylines.filter((l) => l.closed), display, vertices: { read: count(plan.polylines), drawn: count(simplified) } };
 }
 
 scope.onmessage = (event: MessageEvent<ImportRequest>) => {
@@ -29,5 +31,5 @@ scope.onmessage = (event: MessageEvent<ImportRequest>) => {
   } catch (error) {
     res = { kind: 'error', id: req.id, message: error instanceof Error ? error.message : String(error) };
   }
-  scope.postMessage(res);
+  scope.postMessage(res, res.kind === 'dxf' ? packedBuffers(res.display) : []);
 };

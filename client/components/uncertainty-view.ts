@@ -128,7 +128,7 @@ export class UncertaintyView extends LightElement {
       ${niceTicks(0, top * 1.1, 4).map((v) => svg`<line class="dd-grid" x1=${PAD.left} x2=${W - PAD.right} y1=${y(v)} y2=${y(v)}></line><text class="dd-tick" x=${PAD.left - 4} y=${y(v) + 3} text-anchor="end">${v}</text>`)}
       ${bins.map((b) => svg`<rect class="dd-hist-bar" x=${x(b.from_m3_s * 1000) + 0.5} width=${Math.max(0.5, x(b.to_m3_s * 1000) - x(b.from_m3_s * 1000) - 1)} y=${y(b.count)} height=${y(0) - y(b.count)}><title>${this.formatFlow(b.from_m3_s)} – ${this.formatFlow(b.to_m3_s)}: ${b.count}</title></rect>`)}
       ${niceTicks(lo, hiFlow, 5).map((v) => svg`<text class="dd-tick" x=${x(v)} y=${H - PAD.bottom + 13} text-anchor="middle">${Number(v.toPrecision(3))}</text>`)}
-      ${marks.map((m) => svg`<line class=${`dd-hist-mark dd-hist-${m.label}`} x1=${x(m.v * 1000)} x2=${x(m.v * 1000)} y1=${PAD.top} y2=${H - PAD.bottom}></line><text class="dd-tick" x=${x(m.v * 1000) + 2} y=${PAD.top + 9}>${m.label}</text>`)}
+      ${marks.map((m, k) => svg`<line class=${`dd-hist-mark dd-hist-${m.label}`} x1=${x(m.v * 1000)} x2=${x(m.v * 1000)} y1=${PAD.top} y2=${H - PAD.bottom}></line><text class="dd-tick" x=${x(m.v * 1000) + 2} y=${PAD.top + 9 + 11 * k}>${m.label}</text>`)}
       <text class="dd-axis" x=${12} y=${PAD.top + (H - PAD.bottom - PAD.top) / 2} transform="rotate(-90 12 ${PAD.top + (H - PAD.bottom - PAD.top) / 2})" text-anchor="middle">realisations</text>
       <text class="dd-axis" x=${PAD.left + (W - PAD.right - PAD.left) / 2} y=${H - 3} text-anchor="middle">total flow needed (L/s)</text>
     </svg>`;

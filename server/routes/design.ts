@@ -76,7 +76,9 @@ export const designRoutes: FastifyPluginAsync<{ security?: SecurityOptions }> = 
           'Solves for well rates with the shared design solver: uniform (one rate for every active well, closed form), optimal (least total pumping per well, linear programming) '
           + 'or layout (which wells to install and their rates at least cost, mixed-integer programming). Every control point must reach its target at the design time within '
           + 'each well’s Sichardt capacity, suction lift and wetted-screen limits. feasible:false comes with reasons and the best achievable levels. The answer carries the '
-          + 'times to target, the recovery after a power failure, a one-well-out check, the pump and bid summary, an equivalent-well quick check and cautions.',
+          + 'times to target, the recovery after a power failure, a one-well-out check, the pump and bid summary, an equivalent-well quick check and cautions; on request (options.sensitivity, '
+          + 'options.monteCarlo, options.robust) a sensitivity table for K and S, a seeded Monte Carlo analysis of K (probability met, P50/P90 flow, histogram; realisations in chunks over '
+          + 'the compute pool) and robust designs (any one well out; K within a factor) with the extra flow each costs. For progress and cancel use POST /api/v1/design/jobs.',
         tags: ['design'],
         body: DesignRequestSchema,
         response: { 200: DesignResultSchema, '4xx': ErrorResponseSchema, '5xx': ErrorResponseSchema },

@@ -115,37 +115,60 @@ export interface RunMonteCarloOptions {
   runChunk?: RealisationChunkRunner;
   /** Chunks in flight at once. Default 1. */
   concurrency?: number;
-  /** Realisations per chunk. Default: about four chunks per concurrent slot, 10–250 each. */
+  /**
+   * Realisations per chunk, fixed. Default: adaptive — the first chunks are small, later ones sized
+   * from the time per realisation measured so far to take about `chunkTarget_ms` each (so a chunk
+   * stays well inside a worker's time budget and progress moves steadily).
+   */
   chunkSize?: number;
+  /** Adaptive chunks: wall-clock time one chunk should take, ms. Default 2000. */
+  chunkTarget_ms?: number;
   /** Realisations done so far, and the total. */
   onProgress?: (done: number, runs: number) => void;
   /** Stops handing out chunks (the ones running finish or are cancelled by their runner). */
   signal?: AbortSignal;
 }
 
-/** Every realisation of the plan, in order, chunked over the runner. Throws DRYDIG_ERR_CANCELLED when the signal aborts. */
-export async function runMonteCarlo({ basis, plan, runChunk, concurrency = 1, chunkSize, onProgress, signal }: RunMonteCarloOptions): Promise<RealisationOutcome[]> {
-  const size = chunkSize ?? Math.min(250, Math.max(10, Math.ceil(plan.runs / (4 * Math.max(1, concurrency)))));
-  const starts: number[] = [];
-  for (let s = 0; s < plan.runs; s += size) starts.push(s);
-  const results: RealisationOutcome[][] = new Array(starts.length);
+/** Most realisations in one adaptive chunk. */
+const MAX_CHUNK = 200;
+/** Realisations in each of the first adaptive chunks (before any time is measured). */
+const FIRST_CHUNK = 4;
+
+/**
+ * Every realisation of the plan, in order, chunked over the runner. The factors were drawn up front,
+ * so the chunking never changes the answer. Throws DRYDIG_ERR_CANCELLED when the signal aborts.
+ */
+export async function runMonteCarlo({ basis, plan, runChunk, concurrency = 1, chunkSize, chunkTarget_ms = 2000, onProgress, signal }: RunMonteCarloOptions): Promise<RealisationOutcome[]> {
+  const results: Array<{ start: number; outcomes: RealisationOutcome[] }> = [];
   let done = 0;
   let next = 0;
+  let measured_ms = 0;
+  let measuredRuns = 0;
   const runner = runChunk ?? ((chunk: RealisationChunk) => runRealisationChunk(chunk));
+  const sizeOfNext = () => {
+    if (chunkSize !== undefined) return Math.max(1, Math.floor(chunkSize));
+    if (measuredRuns === 0) return FIRST_CHUNK;
+    return Math.max(1, Math.min(MAX_CHUNK, Math.round(chunkTarget_ms / Math.max(1e-3, measured_ms / measuredRuns))));
+  };
+  const cancelled = () => new DrydigError('DRYDIG_ERR_CANCELLED', 'the Monte Carlo run was cancelled before it finished');
   const worker = async () => {
-    while (next < starts.length) {
-      if (signal?.aborted) throw new DrydigError('DRYDIG_ERR_CANCELLED', 'the Monte Carlo run was cancelled before it finished');
-      const k = next++;
-      const s = starts[k]!;
-      const e = Math.min(plan.runs, s + size);
-      results[k] = await runner({ basis, kFactors: plan.kFactors.slice(s, e), sFactors: plan.sFactors.slice(s, e) });
+    while (next < plan.runs) {
+      if (signal?.aborted) throw cancelled();
+      const s = next;
+      const e = Math.min(plan.runs, s + sizeOfNext());
+      next = e;
+      const t0 = Date.now();
+      const outcomes = await runner({ basis, kFactors: plan.kFactors.slice(s, e), sFactors: plan.sFactors.slice(s, e) });
+      measured_ms += Date.now() - t0;
+      measuredRuns += e - s;
+      results.push({ start: s, outcomes });
       done += e - s;
       onProgress?.(done, plan.runs);
     }
   };
-  await Promise.all(Array.from({ length: Math.max(1, Math.min(concurrency, starts.length)) }, worker));
-  if (signal?.aborted) throw new DrydigError('DRYDIG_ERR_CANCELLED', 'the Monte Carlo run was cancelled before it finished');
-  return results.flat();
+  await Promise.all(Array.from({ length: Math.max(1, Math.min(concurrency, plan.runs)) }, worker));
+  if (signal?.aborted) throw cancelled();
+  return results.sort((a, b) => a.start - b.start).flatMap((r) => r.outcomes);
 }
 
 /** Percentile p (0–1) of ascending values by linear interpolation between order statistics (Hyndman & Fan 1996, type 7); null when it falls on an infinite value. */

@@ -19,6 +19,7 @@
  * Well limits use the wide (un-narrowed) linearisation: conservative over the whole range, so a
  * robust design may be refused where narrowed limits would just allow it (said in the note).
  */
+import { DrydigError } from '../schema';
 import type { ControlPoint } from './control-points';
 import { responseDot } from './design-context';
 import { solveOptimalRates, solveUniformRate, type LimitRow, type RateProblem, type RateSolution } from './rate-problem';
@@ -174,13 +175,34 @@ export async function buildRobustDesigns(options: ResolvedDesignOptions, basis: 
       note: ok ? note : `${note} No rates within the well limits (wide, conservative linearisation) meet every case: ${s.solution.detail}; the rates shown are the best achievable.`,
     };
   };
+  // A scaled K outside the physical range: that robust design is reported as not computed.
+  const refused = (kind: RobustDesign['kind'], error: DrydigError, factor?: number): RobustDesign => ({
+    kind,
+    ...(factor !== undefined ? { conductivityFactor: factor } : {}),
+    feasible: false,
+    totalRate_m3_s: null,
+    extraRate_m3_s: null,
+    extraShare: null,
+    wells: [],
+    worstShortfall_m: null,
+    worstCase: 'not computed',
+    rounds: 0,
+    note: `not computed: ${error.message}`,
+  });
   if (asked.oneWellOut) {
     out.push(await describe('one-well-out', [prepareScaledCase(basis, 1, 1)], true,
       'Every target met with any one well out of service, the others at these rates (N − 1 rows for every outage, generated where the check grid needs them). Well limits are checked with every well on.'));
   }
   if (asked.conductivityFactor !== null) {
     const f = asked.conductivityFactor;
-    const cases = [prepareScaledCase(basis, 1 / f, 1), prepareScaledCase(basis, 1, 1), prepareScaledCase(basis, f, 1)];
+    let cases: ScaledCase[];
+    try {
+      cases = [prepareScaledCase(basis, 1 / f, 1), prepareScaledCase(basis, 1, 1), prepareScaledCase(basis, f, 1)];
+    } catch (error) {
+      if (!(error instanceof DrydigError)) throw error;
+      out.push(refused('conductivity-range', error, f));
+      return out;
+    }
     out.push(await describe('conductivity-range', cases, false,
       `Every target met at K ÷ ${formatFactor(f)}, K and K × ${formatFactor(f)} with the same rates, within each case’s well limits (Sichardt capacity ∝ √K). Lower K needs less flow per metre of lowering in steady confined flow (drawdown ∝ 1/T) but lowers the wells’ capacity; higher K needs more flow.`, f));
   }

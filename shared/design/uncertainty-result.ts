@@ -80,7 +80,7 @@ export const RobustDesignSchema = Type.Object({
   extraRate_m3_s: NullableNum('Robust total minus the ordinary design’s total, m³/s: what the robustness costs.'),
   extraShare: NullableNum('That as a share of the ordinary total (−).'),
   wells: Type.Array(Type.Object({ id: Type.String(), rate_m3_s: Num('m³/s.') })),
-  worstShortfall_m: Num('Over every case covered (each well out; K ÷ f and K × f): highest level above its target with these rates, m (≤ 0 when met).'),
+  worstShortfall_m: NullableNum('Over every case covered (each well out; K ÷ f and K × f): highest level above its target with these rates, m (≤ 0 when met; null: not computed).'),
   worstCase: Type.String({ description: 'The case that governs, in words.' }),
   rounds: Num('LP solves (cases’ rows added where the check grid stood above target).'),
   note: Type.String(),

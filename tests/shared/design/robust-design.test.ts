@@ -59,3 +59,13 @@ describe('robust designs', () => {
     expect(d.note).toMatch(/best achievable/);
   }, 120_000);
 });
+
+describe('robust designs outside the physical range', () => {
+  it('reports a K range whose scaled K leaves the physical range as not computed, not an error', async () => {
+    const scenario = thiemRingScenario();
+    const fast = { ...scenario, aquifer: { ...scenario.aquifer, conductivity_m_s: 0.05 } };
+    const r = await runDesign({ scenario: fast, options: { robust: { conductivityFactor: 50 } } });
+    expect(r.robust![0]).toMatchObject({ kind: 'conductivity-range', feasible: false, totalRate_m3_s: null, worstCase: 'not computed' });
+    expect(r.robust![0]!.note).toMatch(/conductivity_m_s/);
+  }, 60_000);
+});

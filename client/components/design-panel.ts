@@ -388,7 +388,7 @@ export class DesignPanel extends LightElement {
     const check = (key: 'sensitivity' | 'priceAtP90' | 'oneWellOut', label: string) =>
       html`<label class="dd-check"><input type="checkbox" name=${`design-${key}`} .checked=${u[key]} @change=${(e: Event) => this.setUnknown(key, (e.target as HTMLInputElement).checked)} /> ${label}</label>`;
     const hasTest = (this.scenario as { pumpingTest?: { conductivityInterval_m_s?: unknown } } | undefined)?.pumpingTest?.conductivityInterval_m_s !== undefined;
-    return html`<details class="dd-section-block" name="design-unknowns"><summary><h3>Unknowns <small>sensitivity, Monte Carlo, robust designs</small></h3></summary>
+    return html`<details class="dd-section-block" data-block="design-unknowns"><summary><h3>Unknowns <small>sensitivity, Monte Carlo, robust designs</small></h3></summary>
       <div class="dd-design-options">
         ${check('sensitivity', 'Sensitivity table (K and S scaled)')}
         ${text('sensitivityFactors', 'Factors', '1/3, 1/2, 1, 2, 3')}

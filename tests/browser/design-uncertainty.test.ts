@@ -18,8 +18,8 @@ usePlanMap((session) => {
 
 async function openUnknowns(): Promise<void> {
   await page.click('button[name="tab-design"]');
-  const open = await page.locator('design-panel details[name="design-unknowns"]').evaluate((d) => (d as HTMLDetailsElement).open);
-  if (!open) await page.click('design-panel details[name="design-unknowns"] summary');
+  const open = await page.locator('design-panel details[data-block="design-unknowns"]').evaluate((d) => (d as HTMLDetailsElement).open);
+  if (!open) await page.click('design-panel details[data-block="design-unknowns"] summary');
 }
 
 async function fill(name: string, value: string): Promise<void> {

@@ -7,6 +7,7 @@
 import { Type, type Static } from '@sinclair/typebox';
 import { DesignModeSchema, ScenarioWarningSchema } from '../schema';
 import { RateRoundingSchema } from './round-design-rates';
+import { RobustDesignSchema, SensitivityResultSchema, UncertaintyResultSchema } from './uncertainty-result';
 
 const Num = (description: string) => Type.Number({ description });
 const NullableNum = (description: string) => Type.Union([Type.Number(), Type.Null()], { description });
@@ -216,6 +217,9 @@ export const DesignResultSchema = Type.Object(
     summary: PumpSummarySchema,
     quickCheck: Type.Array(QuickCheckSchema),
     rateRounding: Type.Optional(RateRoundingSchema),
+    sensitivity: Type.Optional(SensitivityResultSchema),
+    uncertainty: Type.Optional(UncertaintyResultSchema),
+    robust: Type.Optional(Type.Array(RobustDesignSchema, { description: 'Robust design options (designOptions.robust), each beside the ordinary design.' })),
     chosenWellIds: Type.Optional(Type.Array(Type.String(), { description: 'Layout mode: wells chosen for installation.' })),
     solver: Type.Object({
       status: Type.String(),

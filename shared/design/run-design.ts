@@ -28,6 +28,10 @@ import { collectDesignCautions } from './design-run-cautions';
 import { checkFloors } from './floor-stage';
 import { floorCautions } from '../floor';
 import { describeRounding, STEADY_RECOVERY_CAUTION } from './design-wording';
+import { createDesignBasis } from './scaled-design';
+import { buildSensitivityTable } from './sensitivity-stage';
+import { buildRobustDesigns } from './robust-design';
+import { planMonteCarlo, runMonteCarlo, summariseMonteCarlo } from './monte-carlo';
 
 /**
  * Runs a design. Throws `DrydigError` naming the field for bad input; never returns NaN
@@ -102,6 +106,28 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   });
   cautions.push(...floorCautions([...floors].map(([excavationId, f]) => ({ excavationId, ...f }))));
   if (ctx.designTime_s === null && rates.some((q) => q > 0)) cautions.push(STEADY_RECOVERY_CAUTION);
+
+  // The unknowns: sensitivity table, robust designs, Monte Carlo — all re-solves from one basis.
+  const basis = createDesignBasis({ ctx, options: input.options, designPoints, checkPoints, addedCheckPoints, rates, installed });
+  input.onBasis?.(basis);
+  progress('sensitivity', 0.88);
+  const sensitivity = await buildSensitivityTable(ctx, basis);
+  progress('robust designs', 0.9);
+  const robust = await buildRobustDesigns(options, basis, total);
+  let uncertainty = null;
+  if (options.monteCarlo && !input.monteCarlo?.defer) {
+    const plan = planMonteCarlo(scenario, options.monteCarlo);
+    const t0 = Date.now();
+    const outcomes = await runMonteCarlo({
+      basis,
+      plan,
+      ...(input.monteCarlo?.runChunk ? { runChunk: input.monteCarlo.runChunk } : {}),
+      concurrency: input.monteCarlo?.concurrency ?? 1,
+      ...(input.monteCarlo?.signal ? { signal: input.monteCarlo.signal } : {}),
+      onProgress: (done, runs) => progress(`monte carlo ${done}/${runs}`, 0.92 + (0.08 * done) / runs),
+    });
+    uncertainty = summariseMonteCarlo({ plan, outcomes, elapsed_ms: Date.now() - t0, workers: input.monteCarlo?.workers ?? 0, summary });
+  }
   progress('done', 1);
   return {
     mode,
@@ -127,6 +153,9 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     },
     cautions: rounding === null ? cautions : [...cautions, describeRounding(rounding)],
     ...(rounding !== null ? { rateRounding: rounding } : {}),
+    ...(sensitivity ? { sensitivity } : {}),
+    ...(robust ? { robust } : {}),
+    ...(uncertainty ? { uncertainty } : {}),
     modelNotes: [...verified.modelNotes, `Design run took ${Date.now() - started} ms.`],
     warnings: findScenarioWarnings(scenario, input.scenarioPath ?? ''),
   };

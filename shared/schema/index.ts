@@ -2,6 +2,7 @@ export * from './scenario-schema';
 export * from './validate-scenario';
 export * from './error-table';
 export * from './design-options-schema';
+export * from './design-uncertainty-options-schema';
 export * from './monitoring-schema';
 export * from './view-schema';
 export * from './pumping-test-record-schema';

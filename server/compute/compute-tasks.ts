@@ -19,7 +19,7 @@ export type ProgressReporter = (stage: string, fraction: number) => void;
 
 export interface ComputeTaskTable {
   evaluate: (input: RunEvaluationOptions) => EvaluateResponse;
-  design: (input: Pick<RunDesignOptions, 'scenario' | 'mode' | 'options' | 'scenarioPath' | 'optionsPath'>, progress: ProgressReporter) => Promise<DesignResult>;
+  design: (input: Pick<RunDesignOptions, 'scenario' | 'mode' | 'options' | 'scenarioPath' | 'optionsPath' | 'rates'>, progress: ProgressReporter) => Promise<DesignResult>;
   planResults: (input: { scenario: Scenario }) => PlanOutcome;
   monitoringPlan: (input: { scenario: Scenario; readings: readonly PlanReading[] }) => MonitoringPlan & { error?: string };
   section: (input: SectionJob) => SectionJobAnswer;

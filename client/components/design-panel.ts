@@ -13,6 +13,7 @@
 import { html, nothing, svg } from 'lit';
 import { LightElement } from './light-element';
 import type { DesignMode, Scenario } from '../../shared/schema';
+import { describeErrorPlainly, type ErrorBodyLike } from '../../shared/schema/plain-error';
 // Deep imports on purpose: the design folder's index also exports the solver (and HiGHS).
 import type { DesignResult } from '../../shared/design/design-result';
 import { designResultToCsv } from '../../shared/design/design-csv';
@@ -226,8 +227,8 @@ export class DesignPanel extends LightElement {
       const text = await res.text();
       const body = text ? (JSON.parse(text) as unknown) : null;
       if (!res.ok) {
-        const e = (body as { error?: { message?: string; fix?: string } } | null)?.error;
-        this.error = e?.message ? `${e.message}${e.fix ? `. ${e.fix}` : ''}` : `The design service answered ${res.status}.`;
+        const e = (body as { error?: ErrorBodyLike } | null)?.error;
+        this.error = e?.message ? describeErrorPlainly(e) : `The design service answered ${res.status}.`;
         return;
       }
       this.result = body as DesignResult;

@@ -6,6 +6,7 @@ export * from './escape-html';
 export * from './field-engine';
 export * from './plan-results';
 export * from './plan-svg';
+export * from './plan-symbols';
 export * from './setout-csv';
 export * from './scenario-json';
 export * from './geojson';

@@ -12,6 +12,7 @@ import { METHOD_REFERENCES, SUPPORTING_REFERENCES } from './method-references';
 import type { MonitoringPlan } from './monitoring-plan';
 import type { PlanResults } from './plan-results';
 import { renderPlanSvg } from './plan-svg';
+import { excavationShortfalls, planKeyHtml, planSymbolKeys } from './plan-symbols';
 import { buildSetoutRows } from './setout-csv';
 import type { SiteProjection } from '../crs';
 import { designFloorCautions, writeFloorReportHtml } from './floor-report-html';
@@ -121,6 +122,8 @@ function monitoringSection(plan: MonitoringPlan | undefined): string {
   return `${html}</tbody></table>${plan.notes.map((n) => `<p class="note">${e(n)}</p>`).join('')}`;
 }
 
+const piezometerCount = (s: Scenario) => (s as Scenario & { monitoring?: { piezometers: unknown[] } }).monitoring?.piezometers.length ?? 0;
+
 /** The report as one HTML document. */
 export function writeReportHtml(options: ReportOptions): string {
   const { scenario, results, design, projection } = options;
@@ -137,6 +140,7 @@ export function writeReportHtml(options: ReportOptions): string {
     .map((r) => `<tr><td>${r.number}</td><td>${e(r.id)}</td><td>${e(r.kind)}</td><td>${f(r.easting_m, 3)}</td><td>${f(r.northing_m, 3)}</td>${projection ? `<td>${f(r.latitude_deg, 7)}</td><td>${f(r.longitude_deg, 7)}</td>` : ''}<td>${ls(r.rate_m3_s)}${r.scheduled ? ' (sched.)' : ''}</td>${solvedRates ? `<td>${ls(designRate.get(r.id))}</td>` : ''}<td>${f(r.screenTop_m)} / ${f(r.screenBottom_m)}</td><td>${r.active ? 'yes' : 'no'}</td></tr>`)
     .join('');
   const rev = options.revision;
+  const shortfall = excavationShortfalls(design, results?.excavations ?? []);
   const floorWords = new Set(design ? designFloorCautions(design) : []);
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
@@ -149,6 +153,7 @@ thead th{background:#e8edf3}table.kv th{width:45%;background:#f4f6f8;font-weight
 .cautions{border:2px solid #b60;background:#fff6e8;padding:8px 12px}.cautions h2{border:0;margin:0 0 4px}
 .ok{color:#060;font-weight:600}.bad{color:#a00;font-weight:600}.note{color:#444;font-size:12px}
 .meta{color:#333}.plan{border:1px solid #999;margin:6px 0}
+.plan-key{list-style:none;padding:0;margin:4px 0;display:flex;flex-wrap:wrap;gap:4px 14px;font-size:12px}.plan-key svg{vertical-align:middle}
 footer.print-caution{display:none}
 @media print{
  @page{size:A4;margin:14mm 12mm 18mm}
@@ -174,8 +179,9 @@ ${scenario.excavations.map((x) => `<tr><th>Excavation ${e(x.id)}</th><td>formati
 ${(scenario.boundaries ?? []).map((b, i) => `<tr><th>Boundary ${i + 1}</th><td>${e(b.kind)}${b.label ? ` (${e(b.label)})` : ''}, treated as an infinite straight line</td></tr>`).join('')}
 </table>
 <h2>2. Plan</h2>
-<div class="plan">${renderPlanSvg({ scenario, results })}</div>
-<p class="note">Blue lines: computed groundwater level (m) at ${e(days(results?.time_s ?? scenario.design.time_s))}${results ? `, levels ${f(results.range_m[0])} to ${f(results.range_m[1])} m` : ''}. Red: excavations. Dots: wells, numbered as in the schedule. Green squares: piezometers.</p>
+<div class="plan">${renderPlanSvg({ scenario, results, shortfall })}</div>
+${planKeyHtml(planSymbolKeys({ wells: scenario.wells, piezometerCount: piezometerCount(scenario), excavationCount: scenario.excavations.length, boundaryKinds: (scenario.boundaries ?? []).map((b) => b.kind), shortfallKinds: Object.values(shortfall) }))}
+<p class="note">Blue lines: computed groundwater level (m) at ${e(days(results?.time_s ?? scenario.design.time_s))}${results ? `, levels ${f(results.range_m[0])} to ${f(results.range_m[1])} m` : ''}. Wells are numbered as in the schedule.</p>
 <h2>3. Well schedule</h2>
 <table><thead><tr><th>No.</th><th>Id</th><th>Kind</th><th>Easting m</th><th>Northing m</th>${projection ? '<th>Latitude °</th><th>Longitude °</th>' : ''}<th>${solvedRates ? 'Scenario rate' : 'Rate'} L/s</th>${solvedRates ? '<th>Design rate L/s</th>' : ''}<th>Screen top / bottom m</th><th>Active</th></tr></thead><tbody>${wellRows}</tbody></table>
 <h2>4. Design and bid summary</h2>

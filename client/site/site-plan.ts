@@ -237,7 +237,7 @@ export class SitePlan extends LitElement {
       })}
       ${s.excavations.map((e) => {
         const kind = this.shortfall?.[e.id];
-        return svg`<path d=${d(e.outline, true)} fill=${kind ? `url(#dd-hatch-${kind})` : 'none'} fill-opacity="0.6" data-shortfall=${kind ?? 'none'}
+        return svg`<path d=${d(e.outline, true)} fill=${kind ? `url(#dd-hatch-${kind})` : 'none'} fill-opacity="0.4" data-shortfall=${kind ?? 'none'}
             stroke=${kind ? SHORTFALL_SYMBOLS[kind].colour : EXCAVATION_SYMBOL.stroke} stroke-width=${EXCAVATION_SYMBOL.strokeWidth_px * u}/>
           <text x=${X(e.outline[0]?.[0] ?? 0)} y=${Y(e.outline[0]?.[1] ?? 0) - 5 * u} font-size=${font} stroke-width=${halo} fill=${PLAN_COLOURS.ink} font-weight="600">${e.id}</text>`;
       })}

@@ -66,7 +66,9 @@ export class SiteView extends LitElement {
     .scroll { overflow-x: auto; -webkit-overflow-scrolling: touch; }
     /* The well id stays in view while a wide table scrolls sideways. */
     .sticky { position: sticky; left: 0; z-index: 1; background: #fff; box-shadow: 1px 0 0 #d5dbe1; }
-    thead .sticky { background: #eef2f6; z-index: 2; }
+    thead th { z-index: 1; }
+    thead th.sticky { background: #eef2f6; z-index: 3; }
+    table.kv th, table.kv td { white-space: normal; }
     tr.selected .sticky { background: #ffe8c8; }
     .plan-key { list-style: none; margin: 0.4rem 0; padding: 0; display: flex; flex-wrap: wrap; gap: 0.2rem 0.9rem; font-size: 0.85rem; }
     .plan-key li { display: flex; align-items: center; gap: 0.3rem; }
@@ -292,7 +294,7 @@ export class SiteView extends LitElement {
     const total = v.setout.filter((r) => r.active).reduce((sum, r) => sum + r.rate_m3_s, 0);
     const d = v.design;
     return html`
-      <table aria-label="Design summary">
+      <table class="kv" aria-label="Design summary">
         <tr><th>Wells</th><td>${s.wells.length} (${s.wells.filter((w) => w.active !== false).length} pumping)</td></tr>
         <tr><th>Total pumping rate</th><td data-total-rate>${f(total * 1000, 1)} L/s (this revision’s rates)</td></tr>
         <tr><th>Design time</th><td>${days(s.design.time_s)}</td></tr>

@@ -56,7 +56,7 @@ export function renderPlanSvg(options: PlanSvgOptions): string {
   for (const e of scenario.excavations) {
     const kind = short[e.id];
     const edge = kind ? SHORTFALL_SYMBOLS[kind].colour : EXCAVATION_SYMBOL.stroke;
-    parts.push(`<path d="${path(e.outline, true)}" fill="${kind ? `url(#dd-hatch-${kind})` : 'none'}" fill-opacity="0.6" stroke="${edge}" stroke-width="${EXCAVATION_SYMBOL.strokeWidth_px}"${kind ? ` data-shortfall="${kind}"` : ''}/>`);
+    parts.push(`<path d="${path(e.outline, true)}" fill="${kind ? `url(#dd-hatch-${kind})` : 'none'}" fill-opacity="0.4" stroke="${edge}" stroke-width="${EXCAVATION_SYMBOL.strokeWidth_px}"${kind ? ` data-shortfall="${kind}"` : ''}/>`);
     const first = e.outline[0];
     if (first) parts.push(`<text x="${sx(first[0])}" y="${Number(sy(first[1])) - 4}" font-size="11" font-weight="600" fill="${PLAN_COLOURS.ink}">${escapeHtml(e.id)}</text>`);
   }

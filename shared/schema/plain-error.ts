@@ -43,7 +43,7 @@ export function fieldLabelFromPointer(pointer: string): string {
 const POINTER_AT_START = /^(\/[A-Za-z0-9_~.\-/]*)\s*:?\s*/;
 
 function labelOf(pointer: string, labels: Readonly<Record<string, string>>): string {
-  return labels[pointer] ?? fieldLabelFromPointer(pointer);
+  return capital(labels[pointer] ?? fieldLabelFromPointer(pointer));
 }
 
 /** Sentences of a fix line a person can act on (none that send them to API documents). */
@@ -58,7 +58,8 @@ function plainFix(fix: string | undefined): string {
     .trim();
 }
 
-const sentence = (s: string) => (s === '' ? '' : s.charAt(0).toUpperCase() + s.slice(1) + (/[.!?]$/.test(s) ? '' : '.'));
+const sentence = (s: string) => (s === '' ? '' : s + (/[.!?]$/.test(s) ? '' : '.'));
+const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 /**
  * The error in plain words: each named field as "Label: what is wrong", then what to do.

@@ -92,6 +92,8 @@ describe('the site view shows one agreed rate set (issue 13 item 3)', () => {
     expect(report).toContain(`Total pumping rate (the revision’s rates)</th><td>${sum.toFixed(2)} L/s`);
     expect(report).not.toContain('<th>Design rate L/s</th>');
     await shot(page, `issue13-item3-${size}`);
+    await page.locator('site-view table[aria-label="Set-out table"]').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: path.join(ARTIFACTS_DIR, `issue13-item3-${size}-tables.png`) });
     expect(errors).toEqual([]);
     await context.close();
   });
@@ -235,6 +237,8 @@ describe('the pit-floor check in the site view (issue 8 item 6)', () => {
     expect(await cautions.innerText()).toContain('one-dimensional vertical equilibrium');
     await floor.scrollIntoViewIfNeeded();
     await shot(page, `issue8-item6-site-view-${size}`);
+    await floor.screenshot({ path: path.join(ARTIFACTS_DIR, `issue8-item6-site-view-${size}-floor.png`) });
+    await cautions.screenshot({ path: path.join(ARTIFACTS_DIR, `issue8-item6-site-view-${size}-cautions.png`) });
     expect(errors).toEqual([]);
     await context.close();
   });

@@ -33,8 +33,8 @@ export function drawdownColour(fraction: number): string {
 
 /** Okabe–Ito vermilion: shortfall (computed level above target) — the plan symbol set's colour. */
 export const SHORTFALL_COLOUR = PLAN_COLOURS.shortfall;
-/** Okabe–Ito bluish green: target met. */
-export const MET_COLOUR = '#009e73';
+/** Okabe–Ito bluish green: target met (the plan symbol set's). */
+export const MET_COLOUR = PLAN_COLOURS.met;
 /** Okabe–Ito blue: selection and the user's own marks. */
 export const SELECTION_COLOUR = '#0072b2';
 /** Okabe–Ito reddish purple: design critical points. */

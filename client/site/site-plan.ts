@@ -11,7 +11,7 @@ import { LitElement, css, svg, html, nothing } from 'lit';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
 import type { Scenario } from '../../shared/schema';
 import {
-  BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, PLAN_COLOURS, SHORTFALL_SYMBOLS, piezometerSymbolSvg, shortfallPatternSvg, wellSymbol, wellSymbolSvg, type ShortfallKind,
+  BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, PLAN_COLOURS, piezometerSymbolSvg, shortfallEdge, shortfallPatternSvg, wellSymbol, wellSymbolSvg, type ShortfallAreaKind,
 } from '../../shared/exports/plan-symbols';
 import type { LinkView } from './site-api';
 
@@ -44,7 +44,7 @@ export class SitePlan extends LitElement {
   declare position: PlanPosition | null;
   declare selected: number;
   /** Excavations not meeting their target, by id, with the kind of shortfall. */
-  declare shortfall: Readonly<Record<string, ShortfallKind>>;
+  declare shortfall: Readonly<Record<string, ShortfallAreaKind>>;
   /** The visible part of the drawing (viewBox); null: the whole plan. */
   declare box: Box | null;
   /** Shown width of the drawing, CSS px. */
@@ -237,8 +237,9 @@ export class SitePlan extends LitElement {
       })}
       ${s.excavations.map((e) => {
         const kind = this.shortfall?.[e.id];
+        const edge = kind ? shortfallEdge(kind) : { stroke: EXCAVATION_SYMBOL.stroke, dash_px: null };
         return svg`<path d=${d(e.outline, true)} fill=${kind ? `url(#dd-hatch-${kind})` : 'none'} fill-opacity="0.4" data-shortfall=${kind ?? 'none'}
-            stroke=${kind ? SHORTFALL_SYMBOLS[kind].colour : EXCAVATION_SYMBOL.stroke} stroke-width=${EXCAVATION_SYMBOL.strokeWidth_px * u}/>
+            stroke=${edge.stroke} stroke-width=${EXCAVATION_SYMBOL.strokeWidth_px * u} stroke-dasharray=${edge.dash_px ? edge.dash_px.split(' ').map((v) => Number(v) * u).join(' ') : 'none'}/>
           <text x=${X(e.outline[0]?.[0] ?? 0)} y=${Y(e.outline[0]?.[1] ?? 0) - 5 * u} font-size=${font} stroke-width=${halo} fill=${PLAN_COLOURS.ink} font-weight="600">${e.id}</text>`;
       })}
       ${s.wells.map((w, i) => {

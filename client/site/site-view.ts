@@ -13,7 +13,7 @@
 import { LitElement, css, html, nothing } from 'lit';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
 import type { MonitoringPlan } from '../../shared/exports';
-import { excavationShortfalls, planSymbolKeys, planSymbolSwatchSvg, PLAN_SYMBOL_LABELS } from '../../shared/exports/plan-symbols';
+import { excavationShortfalls, planSymbolKeys, planSymbolSwatchSvg, PLAN_SYMBOL_LABELS, type ShortfallAreaKind } from '../../shared/exports/plan-symbols';
 import { describeRevisionStatus, revisionBadge } from '../../shared/exports/revision-status';
 import '../components/floor-check-view';
 import { resolveSiteProjection } from '../crs';
@@ -324,7 +324,7 @@ export class SiteView extends LitElement {
   }
 
   /** The key: the symbols this plan shows, drawn from the one plan symbol set. */
-  private renderKey(v: LinkView, shortfall: Record<string, 'water' | 'floor'>) {
+  private renderKey(v: LinkView, shortfall: Record<string, ShortfallAreaKind>) {
     const s = v.scenario;
     const keys = planSymbolKeys({
       wells: s.wells, piezometerCount: (s as { monitoring?: { piezometers: unknown[] } }).monitoring?.piezometers.length ?? 0,

@@ -7,6 +7,7 @@ export * from './field-engine';
 export * from './plan-results';
 export * from './plan-svg';
 export * from './plan-symbols';
+export * from './shortfall-symbols';
 export * from './setout-csv';
 export * from './scenario-json';
 export * from './geojson';

@@ -6,7 +6,7 @@
 import type { Scenario } from '../schema';
 import { planExtent, type PlanResults } from './plan-results';
 import { escapeHtml } from './escape-html';
-import { BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, PLAN_COLOURS, SHORTFALL_SYMBOLS, piezometerSymbolSvg, shortfallPatternSvg, wellSymbol, wellSymbolSvg, type ShortfallKind } from './plan-symbols';
+import { BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, PLAN_COLOURS, piezometerSymbolSvg, shortfallEdge, shortfallPatternSvg, wellSymbol, wellSymbolSvg, type ShortfallAreaKind } from './plan-symbols';
 
 /** Options for `renderPlanSvg`. */
 export interface PlanSvgOptions {
@@ -15,7 +15,7 @@ export interface PlanSvgOptions {
   /** Drawing width, px. Default 720. */
   width_px?: number;
   /** Excavations whose target is not met, by id, with the kind of shortfall (hatched). */
-  shortfall?: Readonly<Record<string, ShortfallKind>>;
+  shortfall?: Readonly<Record<string, ShortfallAreaKind>>;
 }
 
 function niceLength(target: number): number {
@@ -55,8 +55,8 @@ export function renderPlanSvg(options: PlanSvgOptions): string {
   if (kinds.length) parts.push(`<defs>${kinds.map((k) => shortfallPatternSvg(k)).join('')}</defs>`);
   for (const e of scenario.excavations) {
     const kind = short[e.id];
-    const edge = kind ? SHORTFALL_SYMBOLS[kind].colour : EXCAVATION_SYMBOL.stroke;
-    parts.push(`<path d="${path(e.outline, true)}" fill="${kind ? `url(#dd-hatch-${kind})` : 'none'}" fill-opacity="0.4" stroke="${edge}" stroke-width="${EXCAVATION_SYMBOL.strokeWidth_px}"${kind ? ` data-shortfall="${kind}"` : ''}/>`);
+    const edge = kind ? shortfallEdge(kind) : { stroke: EXCAVATION_SYMBOL.stroke, dash_px: null };
+    parts.push(`<path d="${path(e.outline, true)}" fill="${kind ? `url(#dd-hatch-${kind})` : 'none'}" fill-opacity="0.4" stroke="${edge.stroke}" stroke-width="${EXCAVATION_SYMBOL.strokeWidth_px}"${edge.dash_px ? ` stroke-dasharray="${edge.dash_px}"` : ''}${kind ? ` data-shortfall="${kind}"` : ''}/>`);
     const first = e.outline[0];
     if (first) parts.push(`<text x="${sx(first[0])}" y="${Number(sy(first[1])) - 4}" font-size="11" font-weight="600" fill="${PLAN_COLOURS.ink}">${escapeHtml(e.id)}</text>`);
   }

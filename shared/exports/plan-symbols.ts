@@ -7,26 +7,13 @@
  * are the Okabe–Ito palette (safe for the common colour-vision deficiencies) and an ink.
  */
 import type { Well } from '../schema';
+import { PLAN_COLOURS } from './plan-colours';
+import { SHORTFALL_SYMBOLS, type ShortfallKind } from './shortfall-symbols';
 
-/** The palette of the plan symbols. */
-export const PLAN_COLOURS = {
-  /** Lines, labels and deep wells. */
-  ink: '#1d2730',
-  /** Okabe–Ito orange: piezometer rings. */
-  piezometer: '#e69f00',
-  /** Okabe–Ito vermilion: water above target. */
-  shortfall: '#d55e00',
-  /** Okabe–Ito reddish purple: floor unsafe (uplift or heave). */
-  floorUnsafe: '#cc79a7',
-  /** Okabe–Ito blue: constant-head boundaries. */
-  constantHead: '#0072b2',
-  /** Brown: no-flow boundaries. */
-  noFlow: '#6b5b45',
-  /** Okabe–Ito sky blue: injection wells. */
-  injection: '#56b4e9',
-  /** Inactive wells. */
-  inactive: '#d0d0d0',
-} as const;
+/** Shortfall kinds that mark an excavation's area on a plan. */
+export type ShortfallAreaKind = Extract<ShortfallKind, 'above-target' | 'floor-unsafe'>;
+
+export { PLAN_COLOURS } from './plan-colours';
 
 /** A circle symbol, in screen pixels. */
 export interface CircleSymbol {
@@ -72,12 +59,6 @@ export const BOUNDARY_SYMBOLS = {
   'no-flow': { stroke: PLAN_COLOURS.noFlow, strokeWidth_px: 2.5, dash_px: '10 5' },
 } as const;
 
-/** Shortfall kinds: a hatch with a solid edge, one colour per kind. */
-export const SHORTFALL_SYMBOLS = {
-  water: { colour: PLAN_COLOURS.shortfall, hatchAngle_deg: 135 },
-  floor: { colour: PLAN_COLOURS.floorUnsafe, hatchAngle_deg: 45 },
-} as const;
-export type ShortfallKind = keyof typeof SHORTFALL_SYMBOLS;
 
 const n = (v: number) => String(Number(v.toFixed(2)));
 
@@ -93,11 +74,24 @@ export function piezometerSymbolSvg(cx: number, cy: number, unit = 1): string {
   return `<circle class="dd-pz-ring" cx="${n(cx)}" cy="${n(cy)}" r="${n(p.ringRadius_px * unit)}" fill="#fff" fill-opacity="0.85" stroke="${PLAN_COLOURS.piezometer}" stroke-width="${n(p.ringStrokeWidth_px * unit)}"/><circle class="dd-pz-dot" cx="${n(cx)}" cy="${n(cy)}" r="${n(p.dotRadius_px * unit)}" fill="${PLAN_COLOURS.ink}"/>`;
 }
 
-/** An SVG hatch pattern for a shortfall kind (id `dd-hatch-<kind>`), to put in `<defs>`. */
-export function shortfallPatternSvg(kind: ShortfallKind, unit = 1): string {
+/**
+ * An SVG hatch pattern for a shortfall kind (id `dd-hatch-<kind>`, or `id` when given), to put in
+ * `<defs>`: the hatch of `shortfall-symbols.ts` (angle, spacing, width, crossed or not).
+ */
+export function shortfallPatternSvg(kind: ShortfallAreaKind, unit = 1, id = `dd-hatch-${kind}`): string {
   const s = SHORTFALL_SYMBOLS[kind];
-  const size = 6 * unit;
-  return `<pattern id="dd-hatch-${kind}" patternUnits="userSpaceOnUse" width="${n(size)}" height="${n(size)}" patternTransform="rotate(${s.hatchAngle_deg})"><rect width="${n(2 * unit)}" height="${n(size)}" fill="${s.colour}"/></pattern>`;
+  const h = s.hatch!;
+  const size = h.spacing_px * unit;
+  // Stripes along y, rotated: 135° for angle 1, 45° for −1 (as the map's canvas hatch), a second set when crossed.
+  const stripe = `<rect width="${n(h.width_px * unit)}" height="${n(size)}" fill="${s.colour}"/>`;
+  const cross = h.cross ? `<rect width="${n(size)}" height="${n(h.width_px * unit)}" fill="${s.colour}"/>` : '';
+  return `<pattern id="${id}" patternUnits="userSpaceOnUse" width="${n(size)}" height="${n(size)}" patternTransform="rotate(${h.angle === 1 ? 135 : 45})">${stripe}${cross}</pattern>`;
+}
+
+/** The edge of a shortfall area: its colour and dash (px). */
+export function shortfallEdge(kind: ShortfallAreaKind): { stroke: string; dash_px: string | null } {
+  const s = SHORTFALL_SYMBOLS[kind];
+  return { stroke: s.colour, dash_px: s.dash.length ? s.dash.join(' ') : null };
 }
 
 /** Keys of the symbols a plan can show. */
@@ -110,8 +104,8 @@ export const PLAN_SYMBOL_LABELS: Record<PlanSymbolKey, string> = {
   ejector: 'Ejector',
   piezometer: 'Piezometer (monitoring)',
   excavation: 'Excavation',
-  'shortfall-water': 'Water above target (shortfall)',
-  'shortfall-floor': 'Floor unsafe (uplift or heave)',
+  'shortfall-water': SHORTFALL_SYMBOLS['above-target'].label,
+  'shortfall-floor': SHORTFALL_SYMBOLS['floor-unsafe'].label,
   'constant-head': 'Constant-head boundary',
   'no-flow': 'No-flow boundary',
 };
@@ -134,9 +128,9 @@ export function planSymbolSwatchSvg(key: PlanSymbolKey): string {
       break;
     case 'shortfall-water':
     case 'shortfall-floor': {
-      const kind: ShortfallKind = key === 'shortfall-water' ? 'water' : 'floor';
-      const c = SHORTFALL_SYMBOLS[kind].colour;
-      body = `<defs>${shortfallPatternSvg(kind).replace(`id="dd-hatch-${kind}"`, `id="dd-swatch-hatch-${kind}"`)}</defs><rect x="2" y="2" width="18" height="10" fill="url(#dd-swatch-hatch-${kind})" stroke="${c}" stroke-width="2"/>`;
+      const kind: ShortfallAreaKind = key === 'shortfall-water' ? 'above-target' : 'floor-unsafe';
+      const edge = shortfallEdge(kind);
+      body = `<defs>${shortfallPatternSvg(kind, 1, `dd-swatch-hatch-${kind}`)}</defs><rect x="2" y="2" width="18" height="10" fill="url(#dd-swatch-hatch-${kind})" stroke="${edge.stroke}" stroke-width="2"${edge.dash_px ? ' stroke-dasharray="4 2"' : ''}/>`;
       break;
     }
     case 'constant-head':
@@ -160,21 +154,21 @@ export function planSymbolKeys(options: {
   piezometerCount: number;
   excavationCount: number;
   boundaryKinds: ReadonlyArray<'constant-head' | 'no-flow'>;
-  shortfallKinds: readonly ShortfallKind[];
+  shortfallKinds: readonly ShortfallAreaKind[];
 }): PlanSymbolKey[] {
   const keys: PlanSymbolKey[] = [];
   for (const k of ['wellpoint', 'deep', 'ejector'] as const) if (options.wells.some((w) => w.kind === k)) keys.push(k);
   if (options.piezometerCount > 0) keys.push('piezometer');
   if (options.excavationCount > 0) keys.push('excavation');
-  if (options.shortfallKinds.includes('water')) keys.push('shortfall-water');
-  if (options.shortfallKinds.includes('floor')) keys.push('shortfall-floor');
+  if (options.shortfallKinds.includes('above-target')) keys.push('shortfall-water');
+  if (options.shortfallKinds.includes('floor-unsafe')) keys.push('shortfall-floor');
   for (const k of ['constant-head', 'no-flow'] as const) if (options.boundaryKinds.includes(k)) keys.push(k);
   return keys;
 }
 
 /** The shortfall kind of an excavation whose target is not met: floor unsafe when a floor check governs. */
-export function shortfallKindOf(governing: 'dry' | 'uplift' | 'heave' | undefined): ShortfallKind {
-  return governing === 'uplift' || governing === 'heave' ? 'floor' : 'water';
+export function shortfallKindOf(governing: 'dry' | 'uplift' | 'heave' | undefined): ShortfallAreaKind {
+  return governing === 'uplift' || governing === 'heave' ? 'floor-unsafe' : 'above-target';
 }
 
 /**
@@ -184,12 +178,12 @@ export function shortfallKindOf(governing: 'dry' | 'uplift' | 'heave' | undefine
 export function excavationShortfalls(
   design: { excavations: ReadonlyArray<{ id: string; met: boolean; floor?: { governing: 'dry' | 'uplift' | 'heave' } }> } | null | undefined,
   grid: ReadonlyArray<{ id: string; shortfall_m: number | null }>,
-): Record<string, ShortfallKind> {
-  const out: Record<string, ShortfallKind> = {};
+): Record<string, ShortfallAreaKind> {
+  const out: Record<string, ShortfallAreaKind> = {};
   if (design) {
     for (const x of design.excavations) if (!x.met) out[x.id] = shortfallKindOf(x.floor?.governing);
   } else {
-    for (const x of grid) if ((x.shortfall_m ?? 0) > 0) out[x.id] = 'water';
+    for (const x of grid) if ((x.shortfall_m ?? 0) > 0) out[x.id] = 'above-target';
   }
   return out;
 }

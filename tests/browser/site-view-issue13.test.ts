@@ -189,7 +189,7 @@ describe('revision status, symbols and plain words (issue 13 items 14, 13, 11)',
     const key = page.locator('site-view ul.plan-key li');
     expect(await key.evaluateAll((els) => els.map((e) => e.getAttribute('data-symbol')))).toEqual(expect.arrayContaining(['deep', 'piezometer', 'excavation']));
     // The design check of the stored rates is not met: the pit is hatched as water above target, and keyed.
-    expect(await plan.locator('path[data-shortfall="water"]').count()).toBe(1);
+    expect(await plan.locator('path[data-shortfall="above-target"]').count()).toBe(1);
     expect(await page.locator('site-view ul.plan-key li[data-symbol="shortfall-water"]').count()).toBe(1);
     await plan.scrollIntoViewIfNeeded();
     await page.screenshot({ path: path.join(ARTIFACTS_DIR, 'issue13-item13-desktop.png') });

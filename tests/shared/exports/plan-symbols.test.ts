@@ -26,10 +26,11 @@ describe('plan symbols', () => {
 
   it('hatches an excavation by the kind of shortfall: floor unsafe where a floor check governs', () => {
     const short = excavationShortfalls({ excavations: [{ id: 'a', met: false, floor: { governing: 'uplift' } }, { id: 'b', met: false }, { id: 'c', met: true }] }, []);
-    expect(short).toEqual({ a: 'floor', b: 'water' });
-    const svg = renderPlanSvg({ scenario, shortfall: { basement: 'floor' } });
-    expect(svg).toContain('data-shortfall="floor"');
-    expect(svg).toContain('id="dd-hatch-floor"');
+    expect(short).toEqual({ a: 'floor-unsafe', b: 'above-target' });
+    const svg = renderPlanSvg({ scenario, shortfall: { basement: 'floor-unsafe' } });
+    expect(svg).toContain('data-shortfall="floor-unsafe"');
+    expect(svg).toContain('id="dd-hatch-floor-unsafe"');
+    expect(svg).toContain('stroke="#a2306f"');
   });
 
   it.each(Object.keys(PLAN_SYMBOL_LABELS) as PlanSymbolKey[])('has a key swatch for %s', (key) => {

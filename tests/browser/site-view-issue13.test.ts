@@ -239,6 +239,15 @@ describe('the pit-floor check in the site view (issue 8 item 6)', () => {
     await floor.screenshot({ path: path.join(ARTIFACTS_DIR, `issue8-item6-site-view-${size}-floor.png`) });
     await cautions.screenshot({ path: path.join(ARTIFACTS_DIR, `issue8-item6-site-view-${size}-cautions.png`) });
     expect(errors).toEqual([]);
+    // The printable report of the same link carries the same floor check and cautions.
+    await page.goto(`${origin}/api/v1/links/${sitePath.split('/').pop()}/export/report-html`);
+    const report = page.locator('table.floor-check[data-excavation="basement"]');
+    expect(await report.innerText()).toContain('uplift of the plug (EN 1997-1 UPL)');
+    expect(await page.locator('table.safe-dig tbody tr').count()).toBeGreaterThan(5);
+    expect(await page.locator('section.cautions').innerText()).toContain('uplift of the plug governs');
+    await shot(page, `issue8-item6-report-${size}`);
+    await report.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: path.join(ARTIFACTS_DIR, `issue8-item6-report-${size}-floor.png`) });
     await context.close();
   });
 });

@@ -58,6 +58,15 @@ function plainFix(fix: string | undefined): string {
     .trim();
 }
 
+/** Schema words a person need not know: "must be <= 20000" → "must be at most 20000". */
+function plainWords(message: string): string {
+  return message
+    .replace(/must be <= /g, 'must be at most ')
+    .replace(/must be >= /g, 'must be at least ')
+    .replace(/must be < /g, 'must be less than ')
+    .replace(/must be > /g, 'must be more than ');
+}
+
 const sentence = (s: string) => (s === '' ? '' : s + (/[.!?]$/.test(s) ? '' : '.'));
 const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
@@ -71,13 +80,13 @@ export function describeErrorPlainly(error: ErrorBodyLike, labels: Readonly<Reco
   if (issues.length > 0) {
     body = issues
       .slice(0, 3)
-      .map((i) => sentence(`${labelOf(i.path, labels)}: ${i.message.replace(POINTER_AT_START, '')}`))
+      .map((i) => sentence(`${labelOf(i.path, labels)}: ${plainWords(i.message.replace(POINTER_AT_START, ''))}`))
       .join(' ');
     if (issues.length > 3) body += ` (and ${issues.length - 3} more)`;
   } else {
     const message = error.message ?? '';
     const m = POINTER_AT_START.exec(message);
-    body = sentence(m && m[1] !== '/' ? `${labelOf(m[1]!, labels)}: ${message.slice(m[0].length)}` : message);
+    body = sentence(m && m[1] !== '/' ? `${labelOf(m[1]!, labels)}: ${plainWords(message.slice(m[0].length))}` : plainWords(message));
   }
   return [body, plainFix(error.fix)].filter(Boolean).join(' ');
 }

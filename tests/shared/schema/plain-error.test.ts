@@ -21,7 +21,7 @@ describe('describeErrorPlainly(error, labels)', () => {
 
   it('names the field by the form’s label and drops the pointer and the API document', () => {
     const text = describeErrorPlainly({ ...invalid, message: '/level_m: must be <= 20000', issues: [{ path: '/level_m', message: 'must be <= 20000' }] }, { '/level_m': 'Level' });
-    expect(text).toMatch(/^Level: must be <= 20000\./);
+    expect(text).toMatch(/^Level: must be at most 20000\./);
     expect(text).not.toContain('/level_m');
     expect(text).not.toContain('openapi');
   });

@@ -13,6 +13,7 @@
 import { html, nothing, svg } from 'lit';
 import { LightElement } from './light-element';
 import type { DesignMode, Scenario } from '../../shared/schema';
+import { describeErrorPlainly, type ErrorBodyLike } from '../../shared/schema/plain-error';
 // Deep imports on purpose: the design folder's index also exports the solver (and HiGHS).
 import type { DesignResult } from '../../shared/design/design-result';
 import { designResultToCsv } from '../../shared/design/design-csv';

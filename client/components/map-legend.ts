@@ -11,6 +11,14 @@ import { drawdownColour } from '../map/colour-scale';
 import { FLAG_LABELS } from './flag-labels';
 import { formatDuration } from './time-format';
 import { stepDecimals } from './step-decimals';
+import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
+import { PLAN_SYMBOL_LABELS, planSymbolSwatchSvg, type PlanSymbolKey } from '../../shared/exports/plan-symbols';
+
+/** Symbols of the key, from the one plan symbol set, with the class names the styles and tests use. */
+const KEY_SYMBOLS: Array<[PlanSymbolKey, string]> = [
+  ['wellpoint', 'dd-sym-wellpoint'], ['deep', 'dd-sym-deep'], ['ejector', 'dd-sym-ejector'], ['piezometer', 'dd-sym-piezometer'],
+  ['excavation', 'dd-sym-pit'], ['shortfall-water', 'dd-sym-short'], ['constant-head', 'dd-sym-ch'], ['no-flow', 'dd-sym-nf'],
+];
 
 export class MapLegend extends LightElement {
   static override properties = {
@@ -53,14 +61,7 @@ export class MapLegend extends LightElement {
           ${formatQuantity(lv, u.length, { decimals: levelDecimals(levels, toSi(1, u.length)) })}</li>`)}</ol>`
         : html`<p class="dd-hint">${r ? 'Flat field: no contours at this time.' : 'No results yet.'}</p>`}
       <ul class="dd-symbols">
-        <li><span class="dd-sym dd-sym-wellpoint"></span>Well point</li>
-        <li><span class="dd-sym dd-sym-deep"></span>Deep well</li>
-        <li><span class="dd-sym dd-sym-ejector"></span>Ejector</li>
-        <li><span class="dd-sym dd-sym-piezometer"></span>Piezometer (monitoring)</li>
-        <li><span class="dd-sym dd-sym-pit"></span>Excavation</li>
-        <li><span class="dd-sym dd-sym-short"></span>Above target (shortfall)</li>
-        <li><span class="dd-sym dd-sym-ch"></span>Constant-head boundary</li>
-        <li><span class="dd-sym dd-sym-nf"></span>No-flow boundary</li>
+        ${KEY_SYMBOLS.map(([key, cls]) => html`<li><span class="dd-sym dd-sym-svg ${cls}">${unsafeSVG(planSymbolSwatchSvg(key))}</span>${PLAN_SYMBOL_LABELS[key]}</li>`)}
         ${(r?.flagAreas ?? []).map((f) => html`<li class="dd-legend-flag"><span class="dd-sym dd-sym-flag-${f.flag}"></span>${FLAG_LABELS[f.flag]?.title ?? f.flag}</li>`)}
       </ul>
       <p class="dd-legend-caution">Idealised model — estimates only; see Results for limits.</p>

@@ -12,6 +12,7 @@
  */
 import { LitElement, css, html, nothing } from 'lit';
 import type { Scenario } from '../../shared/schema';
+import { describeErrorPlainly } from '../../shared/schema/plain-error';
 
 interface RevisionMeta { scenarioId: string; revision: number; savedAt: string; savedBy: string; note: string; summary: string; name: string; restoredFrom: number | null }
 interface Listing { scenarioId: string; name: string; latestRevision: number; latestSavedAt: string; latestSavedBy: string }
@@ -178,7 +179,7 @@ export class ScenarioStorePanel extends LitElement {
   }
 
   private describeError(body: ErrorBody, fallback: string): string {
-    return body.error ? `${body.error.message}. ${body.error.fix}` : fallback;
+    return body.error ? describeErrorPlainly(body.error) : fallback;
   }
 
   /**

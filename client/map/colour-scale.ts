@@ -4,6 +4,7 @@
  * drawdown dark. Shortfall uses Okabe & Ito's (2008) colour-blind-safe vermilion, always with
  * a hatch so it does not rely on colour alone.
  */
+import { PLAN_COLOURS } from '../../shared/exports/plan-symbols';
 
 // viridis at 0, 1/8, …, 1 (matplotlib _cm_listed; nine-stop sampling).
 const VIRIDIS = ['#440154', '#472d7b', '#3b528b', '#2c728e', '#21918c', '#28ae80', '#5ec962', '#addc30', '#fde725'];
@@ -30,13 +31,13 @@ export function drawdownColour(fraction: number): string {
   return viridis(1 - fraction);
 }
 
-/** Okabe–Ito vermilion: shortfall (computed level above target). */
-export const SHORTFALL_COLOUR = '#d55e00';
-/** Okabe–Ito bluish green: target met. */
-export const MET_COLOUR = '#009e73';
+/** Okabe–Ito vermilion: shortfall (computed level above target) — the plan symbol set's colour. */
+export const SHORTFALL_COLOUR = PLAN_COLOURS.shortfall;
+/** Okabe–Ito bluish green: target met (the plan symbol set's). */
+export const MET_COLOUR = PLAN_COLOURS.met;
 /** Okabe–Ito blue: selection and the user's own marks. */
 export const SELECTION_COLOUR = '#0072b2';
 /** Okabe–Ito reddish purple: design critical points. */
 export const CRITICAL_COLOUR = '#cc79a7';
-/** Ink for lines and labels. */
-export const INK = '#1d2730';
+/** Ink for lines and labels (the plan symbol set's). */
+export const INK = PLAN_COLOURS.ink;

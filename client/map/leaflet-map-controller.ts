@@ -14,7 +14,8 @@ import { FieldCanvasLayer, type FieldStyle } from './field-canvas-layer';
 import { PlanGridLayer } from './plan-grid-layer';
 import { UnderlayLayer } from './underlay-layer';
 import { ProjectedTileLayer } from './projected-tile-layer';
-import { CRITICAL_COLOUR, INK, MET_COLOUR, SELECTION_COLOUR, SHORTFALL_COLOUR } from './colour-scale';
+import { CRITICAL_COLOUR, MET_COLOUR, SELECTION_COLOUR, SHORTFALL_COLOUR } from './colour-scale';
+import { BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, piezometerSymbolSvg, wellSymbol } from '../../shared/exports/plan-symbols';
 
 /** The pointer tool in use. */
 export type MapTool = 'select' | 'add-well' | 'add-piezometer' | 'draw-excavation' | 'section' | 'boundary' | 'pick-point';
@@ -47,7 +48,6 @@ export interface MapSelection {
   excavationId: string | null;
 }
 
-const WELL_RADIUS_PX: Record<Well['kind'], number> = { wellpoint: 4, deep: 6.5, ejector: 5 };
 
 export class LeafletMapController {
   readonly map: L.Map;
@@ -292,14 +292,15 @@ export class LeafletMapController {
 
   private wellStyle(w: Well): L.CircleMarkerOptions {
     const selected = this.selection.wellId === w.id;
-    const inactive = w.active === false;
     const injecting = (w.rate_m3_s ?? w.schedule?.[0]?.rate_m3_s ?? 0) < 0;
+    // The one plan symbol set (shared/exports/plan-symbols), as the site view and the report draw it.
+    const sym = wellSymbol(w.kind, { active: w.active !== false, injecting });
     return {
-      radius: WELL_RADIUS_PX[w.kind] + (selected ? 2 : 0),
-      color: selected ? SELECTION_COLOUR : INK,
-      weight: selected ? 3 : w.kind === 'deep' ? 2.2 : 1.5,
-      dashArray: inactive ? '2 2' : w.kind === 'ejector' ? '3 1.5' : undefined,
-      fillColor: inactive ? '#d0d0d0' : injecting ? '#56b4e9' : w.kind === 'deep' ? INK : '#ffffff',
+      radius: sym.radius_px + (selected ? 2 : 0),
+      color: selected ? SELECTION_COLOUR : sym.stroke,
+      weight: selected ? 3 : sym.strokeWidth_px,
+      dashArray: sym.dash_px ?? undefined,
+      fillColor: sym.fill,
       fillOpacity: 1,
       className: `dd-well dd-well-${w.kind}${selected ? ' dd-selected' : ''}`,
       bubblingMouseEvents: false,
@@ -332,7 +333,7 @@ export class LeafletMapController {
       if (tagged.ddKey !== key) {
         tagged.ddKey = key;
         m.setStyle(this.wellStyle(w));
-        m.setRadius(WELL_RADIUS_PX[w.kind] + (this.selection.wellId === w.id ? 2 : 0));
+        m.setRadius(wellSymbol(w.kind).radius_px + (this.selection.wellId === w.id ? 2 : 0));
         const el = m.getElement();
         // className only applies on creation; keep the selection class in step for CSS and tests.
         el?.classList.toggle('dd-selected', this.selection.wellId === w.id);
@@ -363,7 +364,7 @@ export class LeafletMapController {
         m = L.marker([p.y, p.x], {
           icon: L.divIcon({
             className: 'dd-piezometer',
-            html: '<svg viewBox="0 0 18 18" width="18" height="18" aria-hidden="true"><circle class="dd-pz-ring" cx="9" cy="9" r="6.5"/><circle class="dd-pz-dot" cx="9" cy="9" r="2"/></svg><span class="dd-pz-label"></span>',
+            html: `<svg viewBox="0 0 18 18" width="18" height="18" aria-hidden="true">${piezometerSymbolSvg(9, 9)}</svg><span class="dd-pz-label"></span>`,
             iconSize: [18, 18],
           }),
           keyboard: false,
@@ -477,8 +478,8 @@ export class LeafletMapController {
     for (const ex of s.excavations) {
       const selected = this.selection.excavationId === ex.id;
       const poly = L.polygon(ex.outline.map(([x, y]) => [y, x] as L.LatLngTuple), {
-        color: selected ? SELECTION_COLOUR : INK,
-        weight: selected ? 2.5 : 1.8,
+        color: selected ? SELECTION_COLOUR : EXCAVATION_SYMBOL.stroke,
+        weight: selected ? 2.5 : EXCAVATION_SYMBOL.strokeWidth_px,
         fill: true,
         fillOpacity: 0,
         className: `dd-excavation${selected ? ' dd-selected' : ''}`,
@@ -532,8 +533,9 @@ export class LeafletMapController {
       const a: L.LatLngTuple = [b.from[1] - (dy / len) * ext, b.from[0] - (dx / len) * ext];
       const c: L.LatLngTuple = [b.to[1] + (dy / len) * ext, b.to[0] + (dx / len) * ext];
       const constant = b.kind === 'constant-head';
+      const sym = BOUNDARY_SYMBOLS[b.kind];
       L.polyline([a, c], {
-        color: constant ? '#0072b2' : '#6b5b45', weight: constant ? 3 : 2.5, dashArray: constant ? undefined : '10 5',
+        color: sym.stroke, weight: sym.strokeWidth_px, dashArray: sym.dash_px ?? undefined,
         className: `dd-boundary dd-boundary-${b.kind}`, interactive: true,
       }).bindTooltip(`${constant ? 'Constant-head' : 'No-flow'} boundary${b.label ? ` — ${escapeHtml(b.label)}` : ''}`, { sticky: true, className: 'dd-tip' })
         .addTo(this.boundaryLayer);

@@ -5,10 +5,13 @@
 import type { Scenario } from '../../shared/schema';
 import type { MonitoringPlan, SetoutRow } from '../../shared/exports';
 import type { DesignResult } from '../../shared/design';
+import { describeErrorPlainly } from '../../shared/schema/plain-error';
 
 export interface LinkView {
   link: { linkId: string; mode: 'view' | 'edit'; pinnedRevision: number | null; label: string; createdAt: string };
   revision: { revision: number; savedAt: string; savedBy: string; note: string; summary: string; name: string; sha256: string };
+  /** Who recorded this revision as issued for construction, and when; null: only saved. */
+  issued: { by: string; at: string } | null;
   canEdit: boolean;
   canSave: boolean;
   scenario: Scenario;
@@ -42,11 +45,17 @@ export function tokenFromLocation(location: Pick<Location, 'pathname' | 'hash'>)
   return fromHash ?? null;
 }
 
-async function readJson<T>(response: Response): Promise<T> {
+/** The reading form's labels, by the JSON pointer of each field in the request. */
+export const READING_FIELD_LABELS: Readonly<Record<string, string>> = {
+  '/piezometerId': 'Piezometer', '/level_m': 'Level', '/measuredAt': 'Read at', '/time_s': 'Read at', '/enteredBy': 'Your name', '/note': 'Note',
+};
+
+/** The answer's body, or an Error in plain words naming the field by its label. */
+async function readJson<T>(response: Response, labels: Readonly<Record<string, string>> = {}): Promise<T> {
   const body = (await response.json().catch(() => null)) as T | ApiError | null;
   if (!response.ok) {
     const err = body as ApiError | null;
-    throw new Error(err?.error ? `${err.error.message}. ${err.error.fix}` : `The server answered ${response.status}.`);
+    throw new Error(err?.error ? describeErrorPlainly(err.error, labels) : `The server answered ${response.status}.`);
   }
   return body as T;
 }
@@ -72,7 +81,7 @@ export class SiteApi {
       method: 'POST',
       headers: { 'content-type': 'application/json' },
       body: JSON.stringify(reading),
-    }).then((r) => readJson<unknown>(r));
+    }).then((r) => readJson<unknown>(r, READING_FIELD_LABELS));
   }
 
   exportUrl(format: string): string {

@@ -4,9 +4,18 @@
  * design summary and cautions, the monitoring plan with readings, and — only when the user taps
  * "Show my position" and the browser allows it — the device's GPS position on the plan, transformed
  * into the site CRS by proj4. Edit links also get a form to enter piezometer readings.
+ *
+ * One rate set: the set-out table, the summary and the design check (pumps, pit floor) are all the
+ * stored revision's own rates (the server checks them as they stand; it does not re-solve).
+ * On a phone the cautions fold to one line that opens, tables keep the well id in view, and the
+ * plan zooms and pans with labels at a readable size.
  */
 import { LitElement, css, html, nothing } from 'lit';
+import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
 import type { MonitoringPlan } from '../../shared/exports';
+import { excavationShortfalls, planSymbolKeys, planSymbolSwatchSvg, PLAN_SYMBOL_LABELS, type ShortfallAreaKind } from '../../shared/exports/plan-symbols';
+import { describeRevisionStatus, revisionBadge } from '../../shared/exports/revision-status';
+import '../components/floor-check-view';
 import { resolveSiteProjection } from '../crs';
 import { findNearestWell } from './nearest-well';
 import { SiteApi, tokenFromLocation, type LinkView } from './site-api';
@@ -39,6 +48,8 @@ export class SiteView extends LitElement {
   declare readingNote: string;
   declare busy: boolean;
   private watchId: number | null = null;
+  /** A wide screen opens the cautions at first; a phone shows their one-line summary. */
+  private readonly wide = typeof window !== 'undefined' && window.matchMedia?.('(min-width: 46rem)').matches === true;
 
   static override styles = css`
     :host { display: block; font: 16px/1.45 system-ui, -apple-system, 'Segoe UI', sans-serif; color: #111; max-width: 60rem; margin: 0 auto; padding: 0.6rem 0.7rem 3rem; }
@@ -49,8 +60,28 @@ export class SiteView extends LitElement {
     .badge { display: inline-block; border-radius: 0.8rem; padding: 0.05rem 0.55rem; font-size: 0.8rem; font-weight: 600; background: #e6ecf2; color: #124; margin-right: 0.3rem; }
     .badge.edit { background: #fdecc8; color: #6a4200; }
     .caution { border: 2px solid #b60; background: #fff6e8; border-radius: 6px; padding: 0.5rem 0.7rem; margin: 0.7rem 0; font-size: 0.9rem; }
-    .caution ul { margin: 0.2rem 0 0; padding-left: 1.1rem; }
+    .caution summary { cursor: pointer; list-style-position: outside; margin-left: 1rem; }
+    .caution summary .more { color: #6a4200; text-decoration: underline; white-space: nowrap; }
+    .caution ul { margin: 0.4rem 0 0; padding-left: 1.1rem; }
     .scroll { overflow-x: auto; -webkit-overflow-scrolling: touch; }
+    /* The well id stays in view while a wide table scrolls sideways. */
+    .sticky { position: sticky; left: 0; z-index: 1; background: #fff; box-shadow: 1px 0 0 #d5dbe1; }
+    thead th { z-index: 1; }
+    thead th.sticky { background: #eef2f6; z-index: 3; }
+    table.kv th, table.kv td { white-space: normal; }
+    tr.selected .sticky { background: #ffe8c8; }
+    .plan-key { list-style: none; margin: 0.4rem 0; padding: 0; display: flex; flex-wrap: wrap; gap: 0.2rem 0.9rem; font-size: 0.85rem; }
+    .plan-key li { display: flex; align-items: center; gap: 0.3rem; }
+    .plan-key svg { width: 22px; height: 14px; flex: none; }
+    .dd-floor-check { margin: 0.5rem 0 1rem; }
+    .dd-floor-check h4 { margin: 0.6rem 0 0.3rem; font-size: 0.98rem; }
+    .dd-design-kv { display: grid; grid-template-columns: minmax(8rem, 45%) 1fr; gap: 0.2rem 0.6rem; margin: 0.3rem 0; font-size: 0.9rem; }
+    .dd-design-kv dt { font-weight: 600; } .dd-design-kv dd { margin: 0; }
+    .dd-yes { color: #060; font-weight: 600; } .dd-no { color: #a00; font-weight: 600; } .dd-warn { color: #b60; font-weight: 600; }
+    .dd-safe-dig-chart { width: 100%; max-width: 26rem; height: auto; display: block; }
+    .dd-safe-dig-chart .dd-grid { stroke: #e3e6ea; } .dd-safe-dig-chart .dd-tick { font-size: 10px; fill: #444; }
+    .dd-safe-dig-chart .dd-formation-line { stroke: #8a5a00; } .dd-safe-dig-chart .dd-safe-dig-line { stroke: #1f5fa8; stroke-width: 2; }
+    .dd-safe-dig-table { max-width: 26rem; }
     table { border-collapse: collapse; width: 100%; font-size: 0.88rem; font-variant-numeric: tabular-nums; }
     th, td { border-bottom: 1px solid #d5dbe1; padding: 0.35rem 0.4rem; text-align: left; white-space: nowrap; }
     thead th { background: #eef2f6; position: sticky; top: 0; }
@@ -193,18 +224,21 @@ export class SiteView extends LitElement {
     if (!v) return html`<p>Loading the site plan…</p>`;
     const s = v.scenario;
     const pinned = v.link.pinnedRevision !== null;
+    const shortfall = excavationShortfalls(v.design, v.excavationChecks);
     return html`
       <header>
         <h1>${s.name}</h1>
         <div class="meta">
           <span class="badge ${v.canEdit ? 'edit' : ''}">${v.canEdit ? 'edit link — readings allowed' : 'view only'}</span>
-          <span class="badge">revision ${v.revision.revision}${pinned ? ' (agreed, fixed)' : ' (latest)'}</span><br />
+          <span class="badge ${v.issued ? 'issued' : ''}" data-revision-status=${v.issued ? 'issued' : 'saved'}>${revisionBadge({ revision: v.revision.revision, issued: v.issued, pinned })}</span><br />
           Saved ${new Date(v.revision.savedAt).toLocaleString()}${v.revision.savedBy ? ` by ${v.revision.savedBy}` : ''}.
+          ${describeRevisionStatus({ revision: v.revision.revision, issued: v.issued, formatTime: (t) => new Date(t).toLocaleString() })}
           Coordinates: ${v.crs ?? 'local site grid'}; levels m above site datum.
         </div>
       </header>
-      <section class="caution" role="note" aria-label="Cautions"><strong>Cautions</strong>
-        <ul>${v.cautions.map((c) => html`<li>${c}</li>`)}</ul></section>
+      <section class="caution" role="note" aria-label="Cautions"><details ?open=${this.wide}>
+        <summary><strong>Cautions (${v.cautions.length}):</strong> estimates from idealised models; a licensed engineer must review. <span class="more">Read all</span></summary>
+        <ul>${v.cautions.map((c) => html`<li>${c}</li>`)}</ul></details></section>
 
       <h2>Plan</h2>
       <div class="row">
@@ -213,21 +247,23 @@ export class SiteView extends LitElement {
         ${!v.georeferenced ? html`<span class="note">Local grid: the plan has no georeference, so a GPS position cannot be placed.</span>` : nothing}
       </div>
       ${this.positionNote ? html`<p class="note" aria-live="polite">${this.positionNote}</p>` : nothing}
-      <site-plan .scenario=${s} .contours=${v.contours} .position=${this.position} .selected=${this.selected}
+      <site-plan .scenario=${s} .contours=${v.contours} .position=${this.position} .selected=${this.selected} .shortfall=${shortfall}
         @well-picked=${(e: CustomEvent<{ index: number }>) => this.pickWell(e.detail.index)}></site-plan>
-      <p class="note">Dots: wells, numbered as in the set-out table. Red: excavations. Green squares: piezometers.
+      ${this.renderKey(v, shortfall)}
+      <p class="note">Wells are numbered as in the set-out table. Zoom with + / − or two fingers; drag to move a zoomed plan.
         ${v.contours ? html`Blue lines: computed groundwater level at ${days(v.contours.time_s)}.` : nothing}</p>
 
       <h2>Set-out table</h2>
       <div class="scroll"><table aria-label="Set-out table">
-        <thead><tr><th>No.</th><th>Well</th><th>Kind</th><th>Easting m</th><th>Northing m</th>
+        <thead><tr><th class="sticky">No. · well</th><th>Kind</th><th>Easting m</th><th>Northing m</th>
           ${v.georeferenced ? html`<th>Latitude °</th><th>Longitude °</th>` : nothing}<th>Rate L/s</th><th>Screen top / bottom m</th></tr></thead>
         <tbody>${v.setout.map((r, i) => html`<tr class=${i === this.selected ? 'selected' : ''} id="well-row-${i}" @click=${() => this.pickWell(i)}>
-          <td>${r.number}</td><td>${r.id}</td><td>${r.kind}</td><td>${f(r.easting_m, 3)}</td><td>${f(r.northing_m, 3)}</td>
+          <th scope="row" class="sticky" data-well-id=${r.id}>${r.number} · ${r.id}</th><td>${r.kind}${r.active ? '' : ' (not pumped)'}</td><td>${f(r.easting_m, 3)}</td><td>${f(r.northing_m, 3)}</td>
           ${v.georeferenced ? html`<td>${f(r.latitude_deg, 7)}</td><td>${f(r.longitude_deg, 7)}</td>` : nothing}
-          <td>${f(r.rate_m3_s * 1000, 2)}${r.scheduled ? ' *' : ''}</td><td>${f(r.screenTop_m)} / ${f(r.screenBottom_m)}</td></tr>`)}</tbody>
+          <td data-rate>${f(r.active ? r.rate_m3_s * 1000 : 0, 2)}${r.scheduled ? ' *' : ''}</td><td>${f(r.screenTop_m)} / ${f(r.screenBottom_m)}</td></tr>`)}</tbody>
       </table></div>
-      ${v.setout.some((r) => r.scheduled) ? html`<p class="note">* rate changes over time (see the design).</p>` : nothing}
+      <p class="note">Rates are this revision’s own, the same in the summary, the design check and the report.</p>
+      ${v.setout.some((r) => r.scheduled) ? html`<p class="note">* rate changes over time; the first rate is shown and checked.</p>` : nothing}
 
       <h2>Design summary</h2>
       ${this.renderDesign(v)}
@@ -254,34 +290,47 @@ export class SiteView extends LitElement {
 
   private renderDesign(v: LinkView) {
     const s = v.scenario;
-    const total = s.wells.filter((w) => w.active !== false).reduce((sum, w) => sum + (w.rate_m3_s ?? w.schedule?.[0]?.rate_m3_s ?? 0), 0);
+    // The one agreed set: the revision's rates, as in the set-out table.
+    const total = v.setout.filter((r) => r.active).reduce((sum, r) => sum + r.rate_m3_s, 0);
     const d = v.design;
     return html`
-      <table>
+      <table class="kv" aria-label="Design summary">
         <tr><th>Wells</th><td>${s.wells.length} (${s.wells.filter((w) => w.active !== false).length} pumping)</td></tr>
-        <tr><th>Total pumping rate</th><td>${f((d?.totalRate_m3_s ?? total) * 1000, 1)} L/s</td></tr>
+        <tr><th>Total pumping rate</th><td data-total-rate>${f(total * 1000, 1)} L/s (this revision’s rates)</td></tr>
         <tr><th>Design time</th><td>${days(s.design.time_s)}</td></tr>
-        ${d ? html`<tr><th>Design</th><td class=${d.feasible ? 'ok' : 'bad'}>${d.feasible ? 'targets met' : 'targets NOT met'} (${d.mode})</td></tr>
+        ${d ? html`<tr><th>Design check of these rates</th><td class=${d.feasible ? 'ok' : 'bad'}>${d.feasible ? 'targets met' : 'targets NOT met'}</td></tr>
           <tr><th>Pumps</th><td>${d.summary.dutyPumps} duty + ${d.summary.standbyPumps} standby</td></tr>` : nothing}
       </table>
       <h3>Excavations</h3>
       <div class="scroll"><table>
-        <thead><tr><th>Excavation</th><th>Formation m</th><th>Target m</th><th>Highest level inside m</th><th>Check</th></tr></thead>
+        <thead><tr><th class="sticky">Excavation</th><th>Formation m</th><th>Target m</th><th>Highest level inside m</th><th>Check</th></tr></thead>
         <tbody>${s.excavations.map((e) => {
           const designed = d?.excavations.find((x) => x.id === e.id);
           const grid = v.excavationChecks.find((x) => x.id === e.id);
           const over = designed ? designed.worstShortfall_m : grid?.shortfall_m ?? null;
           const highest = designed ? designed.critical.level_m : grid?.highestLevel_m ?? null;
-          return html`<tr><td>${e.id}</td><td>${f(e.formationLevel_m)}</td><td>${f(e.formationLevel_m - e.margin_m)}</td><td>${f(highest)}</td>
+          const target = designed ? designed.targetLevel_m : e.formationLevel_m - e.margin_m;
+          return html`<tr><th scope="row" class="sticky">${e.id}</th><td>${f(e.formationLevel_m)}</td><td>${f(target)}</td><td>${f(highest)}</td>
             <td class=${over === null ? '' : over > 0 ? 'bad' : 'ok'}>${over === null ? '—' : over > 0 ? `${f(over)} m above target` : 'below target'}</td></tr>`;
         })}</tbody></table></div>
       ${d?.reasons.length ? html`<ul class="bad">${d.reasons.map((r) => html`<li>${r.message}</li>`)}</ul>` : nothing}
+      ${d ? html`<floor-check-view .excavations=${d.excavations}></floor-check-view>` : nothing}
       ${v.computeError ? html`<p class="bad">Levels could not be computed: ${v.computeError}</p>` : nothing}
       ${!d ? html`<p class="note">No design check is available${v.designError ? `: ${v.designError}` : ''}; the rates shown are the plan's own.</p>` : nothing}
       ${v.flagCounts && Object.values(v.flagCounts).some((n) => n > 0)
         ? html`<p class="alert">Parts of the plan lie outside a method's comfortable validity (${Object.entries(v.flagCounts).filter(([, n]) => n > 0).map(([k]) => k).join(', ')}); treat levels there with care.</p>`
         : nothing}
       ${v.modelNotes.length ? html`<details><summary>Model assumptions (${v.modelNotes.length})</summary><ul class="note">${v.modelNotes.map((n) => html`<li>${n}</li>`)}</ul></details>` : nothing}`;
+  }
+
+  /** The key: the symbols this plan shows, drawn from the one plan symbol set. */
+  private renderKey(v: LinkView, shortfall: Record<string, ShortfallAreaKind>) {
+    const s = v.scenario;
+    const keys = planSymbolKeys({
+      wells: s.wells, piezometerCount: (s as { monitoring?: { piezometers: unknown[] } }).monitoring?.piezometers.length ?? 0,
+      excavationCount: s.excavations.length, boundaryKinds: (s.boundaries ?? []).map((b) => b.kind), shortfallKinds: Object.values(shortfall),
+    });
+    return html`<ul class="plan-key" aria-label="Key">${keys.map((k) => html`<li data-symbol=${k}>${unsafeSVG(planSymbolSwatchSvg(k))}${PLAN_SYMBOL_LABELS[k]}</li>`)}</ul>`;
   }
 
   private renderMonitoring(v: LinkView) {

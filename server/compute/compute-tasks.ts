@@ -35,7 +35,7 @@ export interface ComputeTaskTable {
 
 export type ComputeTaskName = keyof ComputeTaskTable;
 /** What a design task takes (plain data). */
-export type DesignTaskInput = Pick<RunDesignOptions, 'scenario' | 'mode' | 'options' | 'scenarioPath' | 'optionsPath'>;
+export type DesignTaskInput = Pick<RunDesignOptions, 'scenario' | 'mode' | 'options' | 'scenarioPath' | 'optionsPath' | 'rates'>;
 export type ComputeInput<N extends ComputeTaskName> = Parameters<ComputeTaskTable[N]>[0];
 export type ComputeOutput<N extends ComputeTaskName> = Awaited<ReturnType<ComputeTaskTable[N]>>;
 

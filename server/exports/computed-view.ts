@@ -38,11 +38,31 @@ async function computeLive(record: RevisionRecord): Promise<ComputedView> {
   };
 }
 
+/** Agreement of two rates, m³/s: to 0.5 % or 1e-6 m³/s (a design's rates applied, then saved). */
+const sameRate = (a: number, b: number) => Math.abs(a - b) <= Math.max(1e-6, 5e-3 * Math.max(Math.abs(a), Math.abs(b)));
+
+/**
+ * True when the design's well rates are the revision's own (every active well; others 0): the one
+ * agreed set of rates. A snapshot frozen before designs were checked on the stored rates may hold a
+ * solver's design with other rates.
+ */
+export function designUsesRevisionRates(design: DesignResult, scenario: RevisionRecord['scenario']): boolean {
+  if (design.rateSource === 'scenario') return true;
+  const byId = new Map(design.wells.map((w) => [w.id, w.rate_m3_s]));
+  return scenario.wells.every((w) => sameRate(byId.get(w.id) ?? 0, w.active === false ? 0 : (w.rate_m3_s ?? w.schedule?.[0]?.rate_m3_s ?? 0)));
+}
+
 /** The frozen snapshot of a revision if a link pinned it, else live results. */
 export async function computedViewFor(store: ScenarioStore, record: RevisionRecord): Promise<ComputedView> {
   const snapshot = await store.getSnapshot(record.sha256);
   if (!snapshot) return computeLive(record);
   const body = JSON.parse(snapshot.body) as SnapshotBody;
+  // One rate set: a frozen design for other rates than the revision's is not shown as its check.
+  if (body.design && !designUsesRevisionRates(body.design, record.scenario))
+    return {
+      ...body, design: null, computedBy: snapshot.computedBy, frozenAt: snapshot.computedAt,
+      designError: 'the design frozen with this revision was solved for other rates than the stored ones, so it is not shown; the rates below are the revision’s own',
+    };
   return { ...body, computedBy: snapshot.computedBy, frozenAt: snapshot.computedAt };
 }
 

@@ -1,6 +1,7 @@
 /**
- * The design check shown in the report and the site view: the shared design solver run on the
- * stored revision, in the scenario's own mode and options. A revision never changes, so the result
+ * The design check shown in the report and the site view: the shared design stages run on the
+ * stored revision's own rates (`rates: 'scenario'` — checked, not re-solved), so the set-out
+ * table, the summary and the report show one agreed set of rates. A revision never changes, so the result
  * is cached by the revision's checksum (the promise, so parallel requests share one solve). It runs
  * on the request's compute pool; a refusal for load (busy, past its time budget) is passed on and
  * not cached, since it says nothing about the revision.
@@ -27,7 +28,7 @@ export function designFor(sha256: string, scenario: Scenario): Promise<DesignOut
   const hit = cache.get(sha256);
   if (hit) return hit;
   const pending = currentCompute()
-    .run('design', { scenario })
+    .run('design', { scenario, rates: 'scenario' })
     .then((design): DesignOutcome => ({ design, error: null }))
     .catch((error: unknown): DesignOutcome => {
       if (error instanceof DrydigError && LOAD_REFUSALS.has(error.code)) {

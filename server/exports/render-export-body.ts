@@ -23,6 +23,8 @@ export interface ExportBodyInput {
   readings: readonly ReadingRecord[];
   /** The plan and design to show; present for the formats that show them (see `exportNeedsComputedView`). */
   computed?: ComputedView;
+  /** Who recorded the revision as issued for construction, and when (null: only saved). */
+  issued?: { by: string; at: string } | null;
 }
 
 /** Formats that show the computed plan or design. */
@@ -49,7 +51,7 @@ export function renderExportBody(input: ExportBodyInput): string {
       return writeReportHtml({
         scenario,
         projection,
-        revision: record,
+        revision: { ...record, issued: input.issued ?? null },
         results: computed?.results,
         resultsError: computed?.resultsError ?? null,
         computedBy: computed?.frozenAt ? `${computed.computedBy} (frozen ${computed.frozenAt}, when a link fixed this revision)` : (computed?.computedBy ?? ''),

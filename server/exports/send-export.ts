@@ -14,6 +14,8 @@ export interface ExportSource {
   pinned: boolean;
   /** The computed plan and design to show (frozen snapshot or live); called only by formats that need it. */
   computed: () => Promise<ComputedView>;
+  /** Who recorded the revision as issued for construction, and when (null: only saved). */
+  issued?: { by: string; at: string } | null;
 }
 
 /** A file-name-safe slug of the scenario name (ASCII letters, digits, dashes). */
@@ -34,7 +36,7 @@ const TYPES: Record<ExportFormat, { type: string; ext: string; inline: boolean }
 /** Renders the export body on the request's compute pool (exported for tests and the CLI). */
 export async function renderExport(format: ExportFormat, source: ExportSource): Promise<string> {
   const computed = exportNeedsComputedView(format) ? await source.computed() : undefined;
-  const input = { format, record: source.record, readings: source.readings, ...(computed ? { computed } : {}) };
+  const input = { format, record: source.record, readings: source.readings, issued: source.issued ?? null, ...(computed ? { computed } : {}) };
   // Small writers need no thread; a scenario file or set-out table costs less than the hand-over.
   if (format === 'scenario-json' || format === 'setout-csv') return renderExportBody(input);
   return currentCompute().run('exportBody', input);

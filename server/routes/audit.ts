@@ -13,6 +13,27 @@ import { actorOf } from '../auth';
 
 export const ISSUED_FOR_CONSTRUCTION = 'issued-for-construction';
 
+/** Who recorded a revision as issued for construction, and when (ISO 8601 UTC). */
+export interface RevisionIssue {
+  by: string;
+  at: string;
+}
+
+/**
+ * The latest record of this revision as issued for construction, or null: a revision is called
+ * "issued for construction" only when someone recorded it so (the audit trail says who and when).
+ */
+export function findRevisionIssue(store: ScenarioStore, scenarioId: string, revision: number): RevisionIssue | null {
+  let beforeId: number | undefined;
+  for (;;) {
+    const rows = store.accounts.listAudit({ scenarioId, limit: 500, beforeId });
+    const hit = rows.find((r) => r.action === ISSUED_FOR_CONSTRUCTION && r.revision === revision);
+    if (hit) return { by: hit.actor, at: hit.at };
+    if (rows.length < 500) return null;
+    beforeId = rows[rows.length - 1]!.auditId;
+  }
+}
+
 const AuditQuery = Type.Object(
   { limit: Type.Optional(Type.String({ pattern: '^[1-9][0-9]{0,2}$' })), cursor: Type.Optional(Type.String({ pattern: '^[1-9][0-9]{0,15}$' })) },
   { additionalProperties: false },

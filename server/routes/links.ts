@@ -24,6 +24,7 @@ import {
 import { writeRateLimit } from '../security';
 import { computedViewFor, monitoringPlanFor, sendExport } from '../exports';
 import { saveOn } from './scenarios';
+import { findRevisionIssue } from './audit';
 import { useComputeLane } from '../compute';
 
 interface OpenedLink {
@@ -85,6 +86,7 @@ const routes = async (app: FastifyInstance) => {
     return {
       link: linkInfo(link),
       revision: revisionInfo(record),
+      issued: findRevisionIssue(store, link.scenarioId, record.revision),
       canEdit: link.mode === 'edit',
       canSave: link.mode === 'edit' && link.revision === null,
       scenario: record.scenario,
@@ -112,6 +114,7 @@ const routes = async (app: FastifyInstance) => {
       const { link, record } = await openLink(store, request.params.token);
       return sendExport(reply, request.params.format, {
         record, readings: await readingsForLink(store, link), pinned: link.revision !== null, computed: () => computedViewFor(store, record),
+        issued: findRevisionIssue(store, link.scenarioId, record.revision),
       });
     },
   );

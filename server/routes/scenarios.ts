@@ -34,7 +34,7 @@ import { createShareToken, hashShareToken } from '../storage';
 import { writeRateLimit } from '../security';
 import { buildMonitoringSeries, computedViewFor, freezeComputedView, sendExport } from '../exports';
 import { actorOf, requireAccount } from '../auth';
-import { auditRoutes } from './audit';
+import { auditRoutes, findRevisionIssue } from './audit';
 import { decodeListCursor, encodeListCursor, HistoryQuerySchema, ListQuerySchema, pageSizeOf } from '../storage/http/paging';
 
 declare module 'fastify' {
@@ -167,7 +167,9 @@ const routes = async (app: FastifyInstance, opts: { store: ScenarioStore }) => {
       const revision = request.query.revision === undefined ? undefined : parseRevisionParam(request.query.revision, '/revision');
       const record = await requireRevision(store, request.params.id, revision);
       const readings = await store.listReadings(request.params.id);
-      return sendExport(reply, request.params.format, { record, readings, pinned: revision !== undefined, computed: () => computedViewFor(store, record) });
+      return sendExport(reply, request.params.format, {
+        record, readings, pinned: revision !== undefined, computed: () => computedViewFor(store, record), issued: findRevisionIssue(store, record.scenarioId, record.revision),
+      });
     },
   );
 

@@ -24,6 +24,8 @@ export interface DesignContext {
   floors: Map<string, ExcavationFloor>;
   /** Target level of an excavation: the level its governing floor check sets, m. */
   targetOf: (excavation: Excavation) => number;
+  /** Rates checked as they stand instead of solved (one per design well, m³/s); absent: solve. */
+  fixedRates?: Float64Array;
 }
 
 /** Variable (drawdown or s_c) at points per 1 m³/s of each design well, at time_s, staged starts honoured. nP × nW. */

@@ -204,6 +204,9 @@ export type QuickCheck = Static<typeof QuickCheckSchema>;
 export const DesignResultSchema = Type.Object(
   {
     mode: DesignModeSchema,
+    rateSource: Type.Optional(
+      Type.Union([Type.Literal('solved'), Type.Literal('scenario')], { description: 'solved: the solver chose the rates; scenario: the scenario’s own rates were checked as they stand (no solve).' }),
+    ),
     feasible: Type.Boolean({ description: 'Every target met within every well limit, verified by the field engine.' }),
     totalRate_m3_s: Num('Sum of the design rates, m³/s.'),
     wells: Type.Array(DesignWellResultSchema),

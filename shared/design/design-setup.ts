@@ -2,7 +2,7 @@
  * Stage 1 of a design run: the validated scenario and options, the design wells and the context
  * every later stage shares, and the control and check points.
  */
-import { DrydigError, parseScenario, type DesignMode } from '../schema';
+import { DrydigError, parseScenario, type DesignMode, type Scenario } from '../schema';
 import { generateControlPoints, type ControlPoint } from './control-points';
 import { resolveDesignOptions } from './design-options';
 import { variableConversions, type DesignContext } from './design-context';
@@ -38,6 +38,12 @@ export interface RunDesignOptions {
   monteCarlo?: { runChunk?: RealisationChunkRunner; concurrency?: number; workers?: number; defer?: boolean; signal?: AbortSignal };
   /** Receives the basis of re-solves (plain data) once the ordinary design is known. */
   onBasis?: (basis: DesignBasis) => void;
+  /**
+   * Where the rates come from. 'solve' (default): the solver chooses them. 'scenario': the
+   * scenario's own rates are checked as they stand (first scheduled rate where a well has a
+   * schedule; inactive wells 0) — the design check of an agreed, stored set of rates.
+   */
+  rates?: 'solve' | 'scenario';
 }
 
 /** The context of one design run. */
@@ -77,11 +83,20 @@ export function prepareDesign(input: RunDesignOptions): DesignSetup {
     mode,
     wells,
     matrixScenario: { ...scenario, wells: scenario.wells.map((w) => ({ ...w, active: false })) },
+    ...(input.rates === 'scenario' ? { fixedRates: scenarioRates(scenario, wells) } : {}),
     designTime_s,
     limitTime_s,
     ...variableConversions(scenario),
   };
   return { ctx, endTime_s };
+}
+
+/** The scenario's own rate of each design well, m³/s (first scheduled rate; inactive wells 0). */
+function scenarioRates(scenario: Scenario, wells: DesignContext['wells']): Float64Array {
+  return Float64Array.from(wells, (w) => {
+    const well = scenario.wells[w.scenarioIndex]!;
+    return well.active === false ? 0 : (well.rate_m3_s ?? well.schedule?.[0]?.rate_m3_s ?? 0);
+  });
 }
 
 /** Design points (the LP's first rows) and check points (twice as dense, the verification set). */

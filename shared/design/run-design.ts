@@ -51,7 +51,8 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
 
   const { solution, problem, rows, rounds, solveTime_ms, layoutSearch } = await solveDesignRates({ ctx, designPoints, checkPoints, responses, progress });
   // Practical rates (minimum, step) before verification, so the field engine re-checks the rounded design.
-  const { rates, rounding } = roundDesignRates({ rates: solution.rates, wellIds: wells.map((w) => w.id), options });
+  // Checked rates stand as they are: only a solved design is rounded to practical rates.
+  const { rates, rounding } = ctx.fixedRates ? { rates: solution.rates, rounding: null } : roundDesignRates({ rates: solution.rates, wellIds: wells.map((w) => w.id), options });
   const installed = solution.installed ?? new Uint8Array(wells.length).fill(1);
 
   progress('verifying', 0.55);
@@ -131,6 +132,7 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   progress('done', 1);
   return {
     mode,
+    rateSource: ctx.fixedRates ? 'scenario' : 'solved',
     feasible,
     totalRate_m3_s: total,
     wells: wellResults,

@@ -52,6 +52,7 @@ function createModeSolver(ctx: DesignContext, onLayout: (search: LayoutSearch) =
   const costPerM3 = mode === 'layout' ? layoutCostPerCubicMetre(ctx) : 0;
   return async (p: RateProblem, chosen: Uint8Array | null): Promise<RateSolution> => {
     if (nW === 0) return { status: 'infeasible', rates: new Float64Array(0), objective: 0, detail: 'no wells', criticalRow: -1 };
+    if (ctx.fixedRates) return { status: 'optimal', rates: ctx.fixedRates.slice(), objective: ctx.fixedRates.reduce((a, q) => a + q, 0), detail: 'the scenario’s own rates, checked as they stand', criticalRow: -1 };
     if (p.required.length === 0) return { status: 'optimal', rates: new Float64Array(nW), objective: 0, detail: 'no lowering needed', criticalRow: -1 };
     if (mode === 'uniform') return solveUniformRate(p);
     if (mode === 'layout' && chosen !== null) return { ...(await solveOptimalRates(p)), installed: chosen };

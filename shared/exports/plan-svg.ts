@@ -1,11 +1,12 @@
 /**
  * The plan as an SVG string: excavations, numbered wells, boundaries, piezometers, level contours
  * with labels, a scale bar and a north arrow. Used by the printable report; the site view draws
- * the same picture live. Site y (northing) grows up; SVG y grows down, hence the flip.
+ * the same picture live. Symbols come from `plan-symbols.ts`, the set the designer map uses. Site y (northing) grows up; SVG y grows down, hence the flip.
  */
 import type { Scenario } from '../schema';
 import { planExtent, type PlanResults } from './plan-results';
 import { escapeHtml } from './escape-html';
+import { BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, PLAN_COLOURS, piezometerSymbolSvg, shortfallEdge, shortfallPatternSvg, wellSymbol, wellSymbolSvg, type ShortfallAreaKind } from './plan-symbols';
 
 /** Options for `renderPlanSvg`. */
 export interface PlanSvgOptions {
@@ -13,6 +14,8 @@ export interface PlanSvgOptions {
   results?: PlanResults;
   /** Drawing width, px. Default 720. */
   width_px?: number;
+  /** Excavations whose target is not met, by id, with the kind of shortfall (hatched). */
+  shortfall?: Readonly<Record<string, ShortfallAreaKind>>;
 }
 
 function niceLength(target: number): number {
@@ -43,23 +46,32 @@ export function renderPlanSvg(options: PlanSvgOptions): string {
       if (label) parts.push(`<text x="${sx(label.x)}" y="${sy(label.y)}" font-size="9" fill="#1d5a8a" text-anchor="middle">${escapeHtml(String(Number(line.level.toFixed(2))))}</text>`);
     }
   }
-  for (const b of scenario.boundaries ?? [])
-    parts.push(`<path d="${path([b.from, b.to], false)}" stroke="${b.kind === 'constant-head' ? '#0a8' : '#a50'}" stroke-width="2" stroke-dasharray="6 3"/>`);
+  for (const b of scenario.boundaries ?? []) {
+    const sym = BOUNDARY_SYMBOLS[b.kind];
+    parts.push(`<path d="${path([b.from, b.to], false)}" stroke="${sym.stroke}" stroke-width="${sym.strokeWidth_px}"${sym.dash_px ? ` stroke-dasharray="${sym.dash_px}"` : ''}/>`);
+  }
+  const short = options.shortfall ?? {};
+  const kinds = [...new Set(Object.values(short))];
+  if (kinds.length) parts.push(`<defs>${kinds.map((k) => shortfallPatternSvg(k)).join('')}</defs>`);
   for (const e of scenario.excavations) {
-    parts.push(`<path d="${path(e.outline, true)}" fill="rgba(200,60,40,0.08)" stroke="#c33" stroke-width="1.6"/>`);
+    const kind = short[e.id];
+    const edge = kind ? shortfallEdge(kind) : { stroke: EXCAVATION_SYMBOL.stroke, dash_px: null };
+    parts.push(`<path d="${path(e.outline, true)}" fill="${kind ? `url(#dd-hatch-${kind})` : 'none'}" fill-opacity="0.4" stroke="${edge.stroke}" stroke-width="${EXCAVATION_SYMBOL.strokeWidth_px}"${edge.dash_px ? ` stroke-dasharray="${edge.dash_px}"` : ''}${kind ? ` data-shortfall="${kind}"` : ''}/>`);
     const first = e.outline[0];
-    if (first) parts.push(`<text x="${sx(first[0])}" y="${Number(sy(first[1])) - 4}" font-size="11" fill="#a22">${escapeHtml(e.id)}</text>`);
+    if (first) parts.push(`<text x="${sx(first[0])}" y="${Number(sy(first[1])) - 4}" font-size="11" font-weight="600" fill="${PLAN_COLOURS.ink}">${escapeHtml(e.id)}</text>`);
   }
   const monitoring = (scenario as Scenario & { monitoring?: { piezometers: Array<{ id: string; x: number; y: number }> } }).monitoring;
-  for (const p of monitoring?.piezometers ?? []) {
-    parts.push(`<rect x="${Number(sx(p.x)) - 4}" y="${Number(sy(p.y)) - 4}" width="8" height="8" fill="#2a2" stroke="#050"/>`);
-    parts.push(`<text x="${Number(sx(p.x)) + 6}" y="${Number(sy(p.y)) + 12}" font-size="9" fill="#050">${escapeHtml(p.id)}</text>`);
-  }
   const labelEvery = scenario.wells.length > 60 ? Math.ceil(scenario.wells.length / 60) : 1;
   scenario.wells.forEach((well, i) => {
-    parts.push(`<circle cx="${sx(well.x)}" cy="${sy(well.y)}" r="3.5" fill="${well.active === false ? '#fff' : '#124'}" stroke="#124"/>`);
-    if (i % labelEvery === 0) parts.push(`<text x="${Number(sx(well.x)) + 5}" y="${Number(sy(well.y)) - 4}" font-size="9" fill="#124">${i + 1}</text>`);
+    const injecting = (well.rate_m3_s ?? well.schedule?.[0]?.rate_m3_s ?? 0) < 0;
+    parts.push(wellSymbolSvg(Number(sx(well.x)), Number(sy(well.y)), wellSymbol(well.kind, { active: well.active !== false, injecting })));
+    if (i % labelEvery === 0) parts.push(`<text x="${Number(sx(well.x)) + 7}" y="${Number(sy(well.y)) - 5}" font-size="9" fill="${PLAN_COLOURS.ink}">${i + 1}</text>`);
   });
+  // Piezometers above the wells they sit among, as on the designer map.
+  for (const p of monitoring?.piezometers ?? []) {
+    parts.push(piezometerSymbolSvg(Number(sx(p.x)), Number(sy(p.y))));
+    parts.push(`<text x="${Number(sx(p.x)) + 8}" y="${Number(sy(p.y)) + 12}" font-size="9" fill="${PLAN_COLOURS.ink}">${escapeHtml(p.id)}</text>`);
+  }
   const bar = niceLength(spanX / 4);
   const barPx = bar * scale;
   parts.push(`<g transform="translate(12,${h - 14})"><rect width="${barPx.toFixed(1)}" height="5" fill="#000"/><text y="-3" font-size="10">${bar} m</text></g>`);

@@ -13,14 +13,17 @@ import { METHOD_REFERENCES, SUPPORTING_REFERENCES } from './method-references';
 import type { MonitoringPlan } from './monitoring-plan';
 import type { PlanResults } from './plan-results';
 import { renderPlanSvg } from './plan-svg';
+import { excavationShortfalls, planKeyHtml, planSymbolKeys } from './plan-symbols';
 import { buildSetoutRows } from './setout-csv';
 import type { SiteProjection } from '../crs';
+import { designFloorCautions, writeFloorReportHtml } from './floor-report-html';
+import { describeRevisionStatus, type RevisionIssueRecord } from './revision-status';
 
 /** Options for `writeReportHtml`. */
 export interface ReportOptions {
   scenario: Scenario;
   /** Revision metadata of what is reported. */
-  revision?: { revision: number; savedAt: string; savedBy: string; sha256?: string };
+  revision?: { revision: number; savedAt: string; savedBy: string; sha256?: string; issued?: RevisionIssueRecord | null };
   results?: PlanResults;
   /** Why the field could not be computed, when it could not (shown instead of the plan's levels). */
   resultsError?: string | null;
@@ -66,10 +69,13 @@ function designSection(scenario: Scenario, design: DesignResult | null | undefin
   if (!design)
     return `${html}<p class="note">No design run is attached to this revision${designError ? ` (the solver reported: ${e(designError)})` : ''}: the numbers above are the scenario's own rates. Run the design to size pumps and price the bid.</p>`;
   const s = design.summary;
-  html += `<h3>Design (${e(design.mode)}) — ${design.feasible ? '<span class="ok">feasible</span>' : '<span class="bad">NOT feasible</span>'}</h3>`;
+  const checked = design.rateSource === 'scenario';
+  html += checked
+    ? `<h3>Design check of these rates — ${design.feasible ? '<span class="ok">targets met</span>' : '<span class="bad">targets NOT met</span>'}</h3>`
+    : `<h3>Design (${e(design.mode)}) — ${design.feasible ? '<span class="ok">feasible</span>' : '<span class="bad">NOT feasible</span>'}</h3>`;
   html += '<table class="kv">';
   const kv: Array<[string, string]> = [
-    ['Total design rate', `${ls(design.totalRate_m3_s)} L/s`],
+    [checked ? 'Total pumping rate (the revision’s rates)' : 'Total design rate', `${ls(design.totalRate_m3_s)} L/s`],
     ['Design flow (× safety factor ' + f(s.safetyFactor, 2) + ')', `${ls(s.designFlow_m3_s)} L/s`],
     ['Duty / standby pumps', `${s.dutyPumps} / ${s.standbyPumps}`],
     ['Installed power', `${f(s.installedPower_kW, 1)} kW`],
@@ -87,7 +93,7 @@ function designSection(scenario: Scenario, design: DesignResult | null | undefin
   if (design.reasons.length) html += `<ul class="bad">${design.reasons.map((r) => `<li>${e(r.message)}</li>`).join('')}</ul>`;
   if (design.outOfService)
     html += `<p>One well out of service (${e(design.outOfService.wellId)}): targets ${design.outOfService.met ? 'still met' : '<strong>not met</strong>'}, worst shortfall ${f(design.outOfService.worstShortfall_m)} m.</p>`;
-  return html;
+  return html + writeFloorReportHtml(design);
 }
 
 function checksSection(results: PlanResults | undefined, design: DesignResult | null | undefined, resultsError?: string | null): string {
@@ -117,19 +123,26 @@ function monitoringSection(plan: MonitoringPlan | undefined): string {
   return `${html}</tbody></table>${plan.notes.map((n) => `<p class="note">${e(n)}</p>`).join('')}`;
 }
 
+const piezometerCount = (s: Scenario) => (s as Scenario & { monitoring?: { piezometers: unknown[] } }).monitoring?.piezometers.length ?? 0;
+
 /** The report as one HTML document. */
 export function writeReportHtml(options: ReportOptions): string {
   const { scenario, results, design, projection } = options;
   const a = scenario.aquifer;
   const generatedAt = options.generatedAt ?? new Date().toISOString();
   const setout = buildSetoutRows(scenario, projection);
-  const cautions = DESIGN_CAUTIONS.map((c) => `<li>${e(c)}</li>`).join('');
+  // The floor cautions stand with the general ones wherever the design is shown.
+  const cautions = [...DESIGN_CAUTIONS, ...(design ? designFloorCautions(design) : [])].map((c) => `<li>${e(c)}</li>`).join('');
   const method = results ? METHOD_REFERENCES[results.model.method] : undefined;
-  const designRate = new Map(design?.wells.map((w) => [w.id, w.rate_m3_s]) ?? []);
+  // A check of the revision's own rates has one rate set; only a separately solved design gets its own column.
+  const solvedRates = design && design.rateSource !== 'scenario' ? design : null;
+  const designRate = new Map(solvedRates?.wells.map((w) => [w.id, w.rate_m3_s]) ?? []);
   const wellRows = setout
-    .map((r) => `<tr><td>${r.number}</td><td>${e(r.id)}</td><td>${e(r.kind)}</td><td>${f(r.easting_m, 3)}</td><td>${f(r.northing_m, 3)}</td>${projection ? `<td>${f(r.latitude_deg, 7)}</td><td>${f(r.longitude_deg, 7)}</td>` : ''}<td>${ls(r.rate_m3_s)}${r.scheduled ? ' (sched.)' : ''}</td>${design ? `<td>${ls(designRate.get(r.id))}</td>` : ''}<td>${f(r.screenTop_m)} / ${f(r.screenBottom_m)}</td><td>${r.active ? 'yes' : 'no'}</td></tr>`)
+    .map((r) => `<tr><td>${r.number}</td><td>${e(r.id)}</td><td>${e(r.kind)}</td><td>${f(r.easting_m, 3)}</td><td>${f(r.northing_m, 3)}</td>${projection ? `<td>${f(r.latitude_deg, 7)}</td><td>${f(r.longitude_deg, 7)}</td>` : ''}<td>${ls(r.rate_m3_s)}${r.scheduled ? ' (sched.)' : ''}</td>${solvedRates ? `<td>${ls(designRate.get(r.id))}</td>` : ''}<td>${f(r.screenTop_m)} / ${f(r.screenBottom_m)}</td><td>${r.active ? 'yes' : 'no'}</td></tr>`)
     .join('');
   const rev = options.revision;
+  const shortfall = excavationShortfalls(design, results?.excavations ?? []);
+  const floorWords = new Set(design ? designFloorCautions(design) : []);
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${e(scenario.name)} — dewatering design report</title>
@@ -141,6 +154,7 @@ thead th{background:#e8edf3}table.kv th{width:45%;background:#f4f6f8;font-weight
 .cautions{border:2px solid #b60;background:#fff6e8;padding:8px 12px}.cautions h2{border:0;margin:0 0 4px}
 .ok{color:#060;font-weight:600}.bad{color:#a00;font-weight:600}.note{color:#444;font-size:12px}
 .meta{color:#333}.plan{border:1px solid #999;margin:6px 0}
+.plan-key{list-style:none;padding:0;margin:4px 0;display:flex;flex-wrap:wrap;gap:4px 14px;font-size:12px}.plan-key svg{vertical-align:middle}
 footer.print-caution{display:none}
 @media print{
  @page{size:A4;margin:14mm 12mm 18mm}
@@ -153,7 +167,7 @@ footer.print-caution{display:none}
 </style></head><body>
 <header><h1>${e(scenario.name)}</h1>
 <p class="meta">Dewatering design report${rev ? ` — revision ${rev.revision}, saved ${e(rev.savedAt)}${rev.savedBy ? ` by ${e(rev.savedBy)}` : ''}` : ''} — generated ${e(generatedAt)}${options.computedBy ? ` by ${e(options.computedBy)}` : ''}.<br>
-Coordinates: ${e(scenario.crs ?? 'local site grid (not georeferenced)')}; levels in m above site datum; rates in L/s.${rev?.sha256 ? `<br>Scenario checksum (SHA-256): <code>${e(rev.sha256)}</code>` : ''}</p></header>
+Coordinates: ${e(scenario.crs ?? 'local site grid (not georeferenced)')}; levels in m above site datum; rates in L/s.${rev?.sha256 ? `<br>Scenario checksum (SHA-256): <code>${e(rev.sha256)}</code>` : ''}${rev?.issued !== undefined ? `<br>${e(describeRevisionStatus({ revision: rev.revision, issued: rev.issued }))}` : ''}</p></header>
 <section class="cautions"><h2>Cautions</h2><ul>${cautions}</ul></section>
 <h2>1. The job</h2>
 <table class="kv">
@@ -166,10 +180,11 @@ ${scenario.excavations.map((x) => `<tr><th>Excavation ${e(x.id)}</th><td>formati
 ${(scenario.boundaries ?? []).map((b, i) => `<tr><th>Boundary ${i + 1}</th><td>${e(b.kind)}${b.label ? ` (${e(b.label)})` : ''}, treated as an infinite straight line</td></tr>`).join('')}
 </table>
 <h2>2. Plan</h2>
-<div class="plan">${renderPlanSvg({ scenario, results })}</div>
-<p class="note">Blue lines: computed groundwater level (m) at ${e(days(results?.time_s ?? scenario.design.time_s))}${results ? `, levels ${f(results.range_m[0])} to ${f(results.range_m[1])} m` : ''}. Red: excavations. Dots: wells, numbered as in the schedule. Green squares: piezometers.</p>
+<div class="plan">${renderPlanSvg({ scenario, results, shortfall })}</div>
+${planKeyHtml(planSymbolKeys({ wells: scenario.wells, piezometerCount: piezometerCount(scenario), excavationCount: scenario.excavations.length, boundaryKinds: (scenario.boundaries ?? []).map((b) => b.kind), shortfallKinds: Object.values(shortfall) }))}
+<p class="note">Blue lines: computed groundwater level (m) at ${e(days(results?.time_s ?? scenario.design.time_s))}${results ? `, levels ${f(results.range_m[0])} to ${f(results.range_m[1])} m` : ''}. Wells are numbered as in the schedule.</p>
 <h2>3. Well schedule</h2>
-<table><thead><tr><th>No.</th><th>Id</th><th>Kind</th><th>Easting m</th><th>Northing m</th>${projection ? '<th>Latitude °</th><th>Longitude °</th>' : ''}<th>Scenario rate L/s</th>${design ? '<th>Design rate L/s</th>' : ''}<th>Screen top / bottom m</th><th>Active</th></tr></thead><tbody>${wellRows}</tbody></table>
+<table><thead><tr><th>No.</th><th>Id</th><th>Kind</th><th>Easting m</th><th>Northing m</th>${projection ? '<th>Latitude °</th><th>Longitude °</th>' : ''}<th>${solvedRates ? 'Scenario rate' : 'Rate'} L/s</th>${solvedRates ? '<th>Design rate L/s</th>' : ''}<th>Screen top / bottom m</th><th>Active</th></tr></thead><tbody>${wellRows}</tbody></table>
 <h2>4. Design and bid summary</h2>
 ${designSection(scenario, design, options.designError)}
 <h2>5. Checks</h2>
@@ -185,7 +200,7 @@ ${(design?.modelNotes ?? []).map((n) => `<li>${e(n)}</li>`).join('')}
 ${SUPPORTING_REFERENCES.map((r) => `<li>${e(r)}.</li>`).join('')}
 </ul>
 <h2>8. Cautions</h2>
-<ul>${cautions}${(design?.cautions ?? []).map((c) => `<li>${e(c)}</li>`).join('')}</ul>
+<ul>${cautions}${(design?.cautions ?? []).filter((c) => !floorWords.has(c)).map((c) => `<li>${e(c)}</li>`).join('')}</ul>
 <footer class="print-caution">${e(scenario.name)}${rev ? `, rev. ${rev.revision}` : ''} — idealised-model estimate; verify against site investigation and local codes; a licensed engineer must review before use.</footer>
 </body></html>
 `;

@@ -21,8 +21,13 @@ export const FLOOR_SHORTFALL_LABELS = {
 export const FLOOR_ASSUMPTIONS =
   'Pit-floor checks: one-dimensional vertical equilibrium of the ground under the floor against the piezometric head of the plan model, no side friction, no slab or cut-off wall; partial factors are the EN 1997-1 recommended values unless set (national annexes differ). Confirm the ground profile and heads by site investigation and piezometers, and have the base stability checked by a licensed engineer.';
 
-/** Formats a duration for the cautions: seconds, minutes, hours or days. */
-export function formatFloorDuration(t_s: number): string {
+/** How a steady design's one safe-dig step is named. */
+export const STEADY_STATE_WORD = 'steady state';
+
+/** Formats a duration for the cautions: seconds, minutes, hours or days (null: the steady state). */
+export function formatFloorDuration(t_s: number | null): string {
+  // A steady design's safe-dig step has no time: it is the steady state.
+  if (t_s === null) return STEADY_STATE_WORD;
   if (t_s < 120) return `${Math.round(t_s)} s`;
   if (t_s < 7200) return `${Math.round(t_s / 60)} min`;
   if (t_s < 172800) return `${(t_s / 3600).toFixed(1)} h`;

@@ -21,3 +21,6 @@ export function describeRounding(r: RateRounding): string {
   ].filter((p) => p !== '');
   return `Practical rates: ${parts.join('; ')}; total ${formatLitres(r.totalBefore_m3_s)} → ${formatLitres(r.totalAfter_m3_s)}. The levels, well limits, times and bid shown are the field engine's re-check with the rounded rates.`;
 }
+
+/** Per-well note for an injection (recharge) well the design uses. */
+export const INJECTION_WELL_NOTE = 'injection — puts water back (rate below zero)';

@@ -24,3 +24,5 @@ export * from './design-run-cautions';
 export * from './run-design';
 export * from './round-design-rates';
 export * from './csv-column-units';
+export * from './receptor-ceilings';
+export * from './receptor-stage';

@@ -11,3 +11,4 @@ export * from './ground-schema';
 export * from './scenario-warnings';
 export * from './structural-issues';
 export * from './physical-ranges';
+export * from './receptor-schema';

@@ -19,6 +19,7 @@ import { designResultToCsv } from '../../shared/design/design-csv';
 import { linearScale, niceTicks } from './chart-axes';
 import { formatDuration } from './time-format';
 import './floor-check-view';
+import './receptor-table';
 import { CAUTION_TEXT } from './caution-note';
 import { defaultDisplayUnits, formatQuantity, fromSi, toSi, type DisplayUnits, type FormatQuantityOptions, type UnitId } from '../../shared/units';
 
@@ -340,6 +341,7 @@ export class DesignPanel extends LightElement {
         )}
       </div>
       <floor-check-view .excavations=${r.excavations} .formatLength=${(v: number) => this.length(v, 2)}></floor-check-view>
+      <receptor-table .receptors=${r.receptors} .units=${this.units}></receptor-table>
       ${r.reasons.length > 0 ? html`<h3>Why not</h3><ul class="dd-flags">${r.reasons.map((x) => html`<li class="dd-flag" data-code=${x.code}><strong>${x.code}</strong> ${x.message}</li>`)}</ul>` : nothing}
       <h3>Flow and pumps</h3>
       <dl class="dd-design-kv">

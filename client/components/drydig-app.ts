@@ -8,6 +8,7 @@ import { html, nothing } from 'lit';
 import { LightElement } from './light-element';
 import demoWellpoints from '../../fixtures/demo-wellpoints-unconfined.json';
 import demoDeepwells from '../../fixtures/demo-deepwells-confined.json';
+import demoNeighbours from '../../fixtures/demo-neighbours-confined.json';
 import demoClayPlug from '../../fixtures/demo-clay-plug-confined.json';
 import { validateMonitoring, validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
 import { logSpacedTimes } from '../../shared/field';
@@ -62,6 +63,7 @@ const TABS: ReadonlyArray<readonly [Tab, string]> = [
 const DEMOS: Record<string, { label: string; scenario: Scenario }> = {
   wellpoints: { label: 'Demo: well points, unconfined (Quarry Lane)', scenario: demoWellpoints as unknown as Scenario },
   deepwells: { label: 'Demo: deep wells, confined, river (Ferry Road)', scenario: demoDeepwells as unknown as Scenario },
+  neighbours: { label: 'Demo: deep wells with neighbours and a recharge well (Ferry Road)', scenario: demoNeighbours as unknown as Scenario },
   clayplug: { label: 'Demo: clay plug over a confined sand, uplift governs (Mill Lane)', scenario: demoClayPlug as unknown as Scenario },
 };
 

@@ -31,6 +31,9 @@ export class ReceptorEditor extends LightElement {
     this.error = '';
   }
 
+  /** Layer values given before the layer is complete (thickness without m_v, or m_v without thickness). */
+  private pendingLayer: { id: string; thickness_m?: number; mv_m2_kN?: number } | null = null;
+
   private get index(): number {
     return this.scenario ? getReceptors(this.scenario).findIndex((r) => r.id === this.receptorId) : -1;
   }
@@ -76,11 +79,21 @@ export class ReceptorEditor extends LightElement {
     const r = i >= 0 ? list[i]! : null;
     const u = this.units.length;
     const at = `/receptors/${i}`;
+    // A layer needs both its thickness and m_v: the first one given waits here for the other.
+    const pending = this.pendingLayer?.id === r?.id ? this.pendingLayer : null;
     const setLayer = (field: LayerField) => (rec: Receptor, v: number | undefined) => {
-      const layer = { thickness_m: rec.compressibleLayer?.thickness_m ?? 1, ...rec.compressibleLayer };
+      const { id: _id, ...waiting } = pending ?? { id: '' };
+      const layer: { thickness_m?: number; mv_m2_kN?: number; oedometerModulus_kPa?: number; headChange?: 'uniform' | 'linear' } = { ...waiting, ...rec.compressibleLayer };
       if (v === undefined) delete layer[field];
       else layer[field] = v;
       if (field === 'mv_m2_kN') delete layer.oedometerModulus_kPa;
+      if (layer.thickness_m === undefined || (layer.mv_m2_kN === undefined && layer.oedometerModulus_kPa === undefined)) {
+        this.pendingLayer = { id: rec.id, ...(layer.thickness_m !== undefined ? { thickness_m: layer.thickness_m } : {}), ...(layer.mv_m2_kN !== undefined ? { mv_m2_kN: layer.mv_m2_kN } : {}) };
+        delete rec.compressibleLayer;
+        this.requestUpdate();
+        return;
+      }
+      this.pendingLayer = null;
       rec.compressibleLayer = layer as Receptor['compressibleLayer'];
     };
     const setLimit = (field: LimitField) => (rec: Receptor, v: number | undefined) => {
@@ -102,13 +115,14 @@ export class ReceptorEditor extends LightElement {
             })} /></label>
         </div>
         <div class="dd-form-row">
-          ${this.numberInput('Layer thickness', 'receptor-thickness_m', r.compressibleLayer?.thickness_m, u, `${at}/compressibleLayer/thickness_m`, setLayer('thickness_m'))}
-          ${this.numberInput('m_v', 'receptor-mv_m2_kN', r.compressibleLayer?.mv_m2_kN, null, `${at}/compressibleLayer/mv_m2_kN`, setLayer('mv_m2_kN'))}
+          ${this.numberInput('Layer thickness', 'receptor-thickness_m', r.compressibleLayer?.thickness_m ?? pending?.thickness_m, u, `${at}/compressibleLayer/thickness_m`, setLayer('thickness_m'))}
+          ${this.numberInput('m_v', 'receptor-mv_m2_kN', r.compressibleLayer?.mv_m2_kN ?? pending?.mv_m2_kN, null, `${at}/compressibleLayer/mv_m2_kN`, setLayer('mv_m2_kN'))}
         </div>
         <div class="dd-form-row">
           ${this.numberInput('Allowable settlement', 'receptor-allowableSettlement_m', r.allowableSettlement_m, u, `${at}/allowableSettlement_m`, setLimit('allowableSettlement_m'))}
           ${this.numberInput('Drawdown limit', 'receptor-maxDrawdown_m', r.maxDrawdown_m, u, `${at}/maxDrawdown_m`, setLimit('maxDrawdown_m'))}
         </div>
+        ${pending ? html`<p class="dd-hint" role="status">Give both the layer thickness and m_v: the layer is kept once both are in.</p>` : nothing}
         <small class="dd-hint">m_v: coefficient of volume compressibility (1/E_oed), from an oedometer test. Blank drawdown limit: the design is not held to one. Angular distortion is checked against 1/500 (Bjerrum 1963) unless the scenario sets another.</small>
         <div class="dd-actions">
           <button type="button" class="dd-small" name="extend-receptor" @click=${() => this.store?.apply(`extend ${r.id}`, (d) => extendReceptor(d, r.id))}>Add a point</button>

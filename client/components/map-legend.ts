@@ -57,6 +57,7 @@ export class MapLegend extends LightElement {
         <li><span class="dd-sym dd-sym-deep"></span>Deep well</li>
         <li><span class="dd-sym dd-sym-ejector"></span>Ejector</li>
         <li><span class="dd-sym dd-sym-piezometer"></span>Piezometer (monitoring)</li>
+        <li><span class="dd-sym dd-sym-receptor"></span>Neighbour (receptor; green within limits, red over)</li>
         <li><span class="dd-sym dd-sym-pit"></span>Excavation</li>
         <li><span class="dd-sym dd-sym-short"></span>Above target (shortfall)</li>
         <li><span class="dd-sym dd-sym-ch"></span>Constant-head boundary</li>

@@ -61,6 +61,8 @@ describe('runDesign with receptor drawdown limits (optimal mode)', () => {
       expect(w.rate_m3_s).toBeLessThan(0);
       expect(-w.rate_m3_s).toBeLessThanOrEqual(w.capacity_m3_s * (1 + 1e-9));
     }
+    // The objective is Σ|Q|: the optimum injects only what the limit needs, not all the wells take.
+    expect(injectors.some((w) => -w.rate_m3_s < w.capacity_m3_s * (1 - 1e-3))).toBe(true);
     expect(result.injectionRate_m3_s).toBeCloseTo(-injectors.reduce((t, w) => t + w.rate_m3_s, 0), 12);
     expect(result.totalRate_m3_s).toBeCloseTo(result.wells.reduce((t, w) => t + Math.max(0, w.rate_m3_s), 0), 12);
     const { receptorMax_m, pitHighest_m } = evaluate(s, result);

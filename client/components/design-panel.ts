@@ -22,6 +22,7 @@ import { formatDuration } from './time-format';
 import { describeRecovery, RECOVERY_STANDBY_NOTE } from '../../shared/design/design-wording';
 import './floor-check-view';
 import './uncertainty-view';
+import './receptor-table';
 import { CAUTION_TEXT } from './caution-note';
 import { defaultDisplayUnits, formatQuantity, fromSi, toSi, type DisplayUnits, type FormatQuantityOptions, type UnitId } from '../../shared/units';
 
@@ -507,6 +508,7 @@ export class DesignPanel extends LightElement {
         )}
       </div>
       <floor-check-view .excavations=${r.excavations} .formatLength=${(v: number) => this.length(v, 2)}></floor-check-view>
+      <receptor-table .receptors=${r.receptors} .units=${this.units}></receptor-table>
       ${r.reasons.length > 0 ? html`<h3>Why not</h3><ul class="dd-flags">${r.reasons.map((x) => html`<li class="dd-flag" data-code=${x.code}><strong>${x.code}</strong> ${x.message}</li>`)}</ul>` : nothing}
       <h3>Flow and pumps</h3>
       <dl class="dd-design-kv">

@@ -8,6 +8,7 @@ import { html, nothing } from 'lit';
 import { LightElement } from './light-element';
 import demoWellpoints from '../../fixtures/demo-wellpoints-unconfined.json';
 import demoDeepwells from '../../fixtures/demo-deepwells-confined.json';
+import demoNeighbours from '../../fixtures/demo-neighbours-confined.json';
 import demoClayPlug from '../../fixtures/demo-clay-plug-confined.json';
 import { validateMonitoring, validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
 import { logSpacedTimes } from '../../shared/field';
@@ -15,6 +16,10 @@ import { signedDistanceToRing } from '../../shared/contours';
 import { coordinateUnit, formatQuantity, fromSi, resolveDisplayUnits, toSi, type DisplayUnits, type UnitSystem } from '../../shared/units';
 import { ScenarioStore, designInputsKey, checkViewSettings, getViewSettings, setViewSettings, type ChangeKind, type ContourQuantity, type SectionLine } from '../state';
 import { MAX_PIEZOMETERS, deletePiezometer, getPiezometers, placePiezometer } from '../state';
+import { MAX_RECEPTORS, deleteReceptor, moveReceptor, placeReceptor } from '../state';
+import { getReceptors } from '../../shared/schema/receptor-schema';
+import type { ReceptorVerdict } from '../map/receptor-layer';
+import './receptor-editor';
 import { EngineClient, EngineError, type FieldResult, type InspectResult, type SectionResult } from '../worker';
 import { resolveSiteProjection, formatLonLat, type ProjectionProblem, type SiteProjection } from '../crs';
 import type { LeafletMapController, MapTool } from '../map';
@@ -62,6 +67,7 @@ const TABS: ReadonlyArray<readonly [Tab, string]> = [
 const DEMOS: Record<string, { label: string; scenario: Scenario }> = {
   wellpoints: { label: 'Demo: well points, unconfined (Quarry Lane)', scenario: demoWellpoints as unknown as Scenario },
   deepwells: { label: 'Demo: deep wells, confined, river (Ferry Road)', scenario: demoDeepwells as unknown as Scenario },
+  neighbours: { label: 'Demo: deep wells with neighbours and a recharge well (Ferry Road)', scenario: demoNeighbours as unknown as Scenario },
   clayplug: { label: 'Demo: clay plug over a confined sand, uplift governs (Mill Lane)', scenario: demoClayPlug as unknown as Scenario },
 };
 
@@ -69,6 +75,7 @@ const TOOLS: Array<[MapTool, string, string]> = [
   ['select', 'Select', 'Select, drag and inspect (Esc)'],
   ['add-well', 'Well', 'Click to place wells (W)'],
   ['add-piezometer', 'Piezometer', 'Click to place piezometers for the monitoring plan (P)'],
+  ['add-receptor', 'Neighbour', 'Click to place receptors — buildings, walls, services the drawdown may harm (N)'],
   ['draw-excavation', 'Outline', 'Click the corners of an excavation; double-click or Enter to finish (O)'],
   ['section', 'Section', 'Click A then B to draw a cross-section (X)'],
   ['boundary', 'Boundary', 'Click two points on a straight boundary line (B)'],
@@ -101,6 +108,7 @@ export class DrydigApp extends LightElement {
     timeIndex: { state: true }, cursor: { state: true }, notice: { state: true }, inspect: { state: true },
     section: { state: true }, drawer: { state: true }, demo: { state: true }, newWell: { state: true },
     piezometerId: { state: true }, designFloors: { state: true },
+    receptorId: { state: true },
   };
   declare scenario: Scenario;
   declare tab: Tab;
@@ -123,6 +131,10 @@ export class DrydigApp extends LightElement {
   declare piezometerId: string | null;
   /** The last design's floor checks by excavation, with the key of the inputs it was made for. */
   declare designFloors: { key: string; byExcavation: Map<string, DesignFloorResult> } | null;
+  /** Selected receptor (neighbour). */
+  declare receptorId: string | null;
+  /** The last design's verdict per receptor id (colours the map symbols). */
+  private receptorVerdicts: ReadonlyMap<string, ReceptorVerdict> = new Map();
 
   private readonly store: ScenarioStore;
   private engine: EngineClient | null = null;
@@ -153,6 +165,7 @@ export class DrydigApp extends LightElement {
     this.excavationId = null;
     this.piezometerId = null;
     this.designFloors = null;
+    this.receptorId = null;
     this.result = null;
     this.computing = -1;
     this.engineError = '';
@@ -289,6 +302,8 @@ export class DrydigApp extends LightElement {
     const s = this.scenario;
     const view = getViewSettings(s);
     c.setSelectedPiezometer(this.piezometerId);
+    if (this.receptorId && !getReceptors(s).some((r) => r.id === this.receptorId)) this.receptorId = null;
+    c.setReceptorState(this.receptorId, this.receptorVerdicts);
     c.setScenario(s, { wellId: this.wellId, excavationId: this.excavationId });
     c.setImperialScale(this.unitSystem === 'us');
     const u = this.units;
@@ -420,6 +435,7 @@ export class DrydigApp extends LightElement {
         const [tool, x, y] = a as [MapTool, number, number];
         if (tool === 'add-well') this.addWell(x, y);
         else if (tool === 'add-piezometer') this.addPiezometer(x, y);
+        else if (tool === 'add-receptor') this.addReceptor(x, y);
         else if (tool === 'pick-point') this.pickUnderlayPoint(x, y);
         else if (tool === 'select') {
           this.drawer = 'inspect';
@@ -469,6 +485,18 @@ export class DrydigApp extends LightElement {
             p.y = y;
           }
         });
+        if (phase === 'end') this.store.commit(`move ${id}`);
+        return;
+      }
+      case 'map-selectReceptor': {
+        const [id] = a as [string | null];
+        this.selectReceptor(id);
+        return;
+      }
+      case 'map-dragReceptor': {
+        const [id, vertex, x, y, phase] = a as [string, number, number, number, 'move' | 'end' | 'cancel'];
+        if (phase === 'cancel') return this.store.cancelGesture();
+        this.store.preview((d) => moveReceptor(d, id, vertex, x, y));
         if (phase === 'end') this.store.commit(`move ${id}`);
         return;
       }
@@ -553,6 +581,29 @@ export class DrydigApp extends LightElement {
     this.say(`Placed ${id}. Set its alert offset and action level under Layout → Monitoring.`);
   }
 
+  private addReceptor(x: number, y: number): void {
+    if (getReceptors(this.scenario).length >= MAX_RECEPTORS) return this.say(`A scenario holds at most ${MAX_RECEPTORS} receptors.`);
+    let id = '';
+    this.store.apply('place receptor', (d) => void (id = placeReceptor(d, x, y)));
+    this.selectReceptor(id);
+    this.say(`Placed receptor ${id}. Give the layer beneath it and its limits under Layout → Neighbours.`);
+  }
+
+  private selectReceptor(id: string | null): void {
+    this.receptorId = id;
+    if (id) {
+      this.wellId = null;
+      this.piezometerId = null;
+      this.tab = 'layout';
+    }
+    this.controller?.setReceptorState(id, this.receptorVerdicts);
+  }
+
+  private removeReceptor(id: string): void {
+    this.store.apply(`delete ${id}`, (d) => deleteReceptor(d, id));
+    this.receptorId = null;
+  }
+
   /** Selects a piezometer (null clears); a selected piezometer takes the Delete key from a well. */
   private selectPiezometer(id: string | null): void {
     this.piezometerId = id;
@@ -623,6 +674,8 @@ export class DrydigApp extends LightElement {
     } else if (e.key === 'Enter' && this.tool === 'draw-excavation') this.controller?.finishOutline();
     else if ((e.key === 'Delete' || e.key === 'Backspace') && this.wellId) this.deleteWell(this.wellId);
     else if ((e.key === 'Delete' || e.key === 'Backspace') && this.piezometerId) this.removePiezometer(this.piezometerId);
+    else if ((e.key === 'Delete' || e.key === 'Backspace') && this.receptorId) this.removeReceptor(this.receptorId);
+    else if (e.key === 'n' || e.key === 'N') this.setTool('add-receptor');
     else if (e.key === 'w' || e.key === 'W') this.setTool('add-well');
     else if (e.key === 'p' || e.key === 'P') this.setTool('add-piezometer');
     else if (e.key === 'o' || e.key === 'O') this.setTool('draw-excavation');
@@ -676,6 +729,9 @@ export class DrydigApp extends LightElement {
 
   private onDesignResult(e: CustomEvent<{ apply?: boolean; wells?: Array<{ id: string; rate_m3_s: number }>; excavations?: Array<{ id: string; critical?: { x: number; y: number; level_m: number } }> }>): void {
     const d = e.detail ?? {};
+    const receptors = (d as { receptors?: Array<{ id: string; status: ReceptorVerdict }> }).receptors;
+    this.receptorVerdicts = new Map((receptors ?? []).map((r) => [r.id, r.status] as const));
+    this.controller?.setReceptorState(this.receptorId, this.receptorVerdicts);
     const total = (d as { totalRate_m3_s?: unknown }).totalRate_m3_s;
     this.designTotal_m3_s = typeof total === 'number' && Number.isFinite(total) ? total : null;
     const u = this.units;
@@ -753,7 +809,7 @@ export class DrydigApp extends LightElement {
         <section class="dd-map-area" aria-label="Plan">
           <plan-map @map-ready=${(e: CustomEvent<LeafletMapController>) => this.onMapReady(e.detail)}
             @map-cursor=${this.onMapEvent} @map-click=${this.onMapEvent} @map-selectWell=${this.onMapEvent} @map-selectExcavation=${this.onMapEvent}
-            @map-dragWell=${this.onMapEvent} @map-selectPiezometer=${this.onMapEvent} @map-dragPiezometer=${this.onMapEvent} @map-dragVertex=${this.onMapEvent} @map-insertVertex=${this.onMapEvent} @map-drawnOutline=${this.onMapEvent}
+            @map-dragWell=${this.onMapEvent} @map-selectPiezometer=${this.onMapEvent} @map-dragPiezometer=${this.onMapEvent} @map-selectReceptor=${this.onMapEvent} @map-dragReceptor=${this.onMapEvent} @map-dragVertex=${this.onMapEvent} @map-insertVertex=${this.onMapEvent} @map-drawnOutline=${this.onMapEvent}
             @map-drawnLine=${this.onMapEvent} @map-viewChanged=${this.onMapEvent} @map-focusExcavation=${this.onMapEvent}></plan-map>
           <div class="dd-map-top">
             ${this.result ? html`<shortfall-badges .shortfall=${this.result.shortfall} .units=${u} ?stale=${this.computing >= 0}
@@ -884,6 +940,10 @@ export class DrydigApp extends LightElement {
         <monitoring-editor .store=${this.store} .scenario=${s} .units=${u} .piezometerId=${this.piezometerId} .engine=${this.engine} ?paused=${this.issues.length > 0}
           @select-piezometer=${(e: CustomEvent<string>) => this.selectPiezometer(e.detail)} @delete-piezometer=${(e: CustomEvent<string>) => this.removePiezometer(e.detail)}
           @choose-tool=${(e: CustomEvent<MapTool>) => this.setTool(e.detail)}></monitoring-editor>
+      </details>
+      <details open class="dd-section-block dd-receptor-block"><summary><h3>Neighbours <small>${getReceptors(s).length} receptors</small></h3></summary>
+        <receptor-editor .store=${this.store} .scenario=${s} .units=${u} .receptorId=${this.receptorId}
+          @select-receptor=${(e: CustomEvent<string>) => this.selectReceptor(e.detail)} @delete-receptor=${(e: CustomEvent<string>) => this.removeReceptor(e.detail)}></receptor-editor>
       </details>
       <details open class="dd-section-block"><summary><h3>Ring of wells</h3></summary>
         <ring-generator .store=${this.store} .scenario=${s} .units=${u}

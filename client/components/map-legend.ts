@@ -62,6 +62,7 @@ export class MapLegend extends LightElement {
         : html`<p class="dd-hint">${r ? 'Flat field: no contours at this time.' : 'No results yet.'}</p>`}
       <ul class="dd-symbols">
         ${KEY_SYMBOLS.map(([key, cls]) => html`<li><span class="dd-sym dd-sym-svg ${cls}">${unsafeSVG(planSymbolSwatchSvg(key))}</span>${PLAN_SYMBOL_LABELS[key]}</li>`)}
+        <li><span class="dd-sym dd-sym-receptor"></span>Neighbour (receptor; green within limits, red over)</li>
         ${(r?.flagAreas ?? []).map((f) => html`<li class="dd-legend-flag"><span class="dd-sym dd-sym-flag-${f.flag}"></span>${FLAG_LABELS[f.flag]?.title ?? f.flag}</li>`)}
       </ul>
       <p class="dd-legend-caution">Idealised model — estimates only; see Results for limits.</p>

@@ -19,7 +19,7 @@ import './piezometer-chart';
 /** Wait after the last change before the expected levels are recomputed, ms. */
 const PLAN_DELAY_MS = 200;
 
-type NumberField = 'x' | 'y' | 'alertOffset_m' | 'actionLevel_m';
+type NumberField = 'x' | 'y' | 'alertOffset_m' | 'actionLevel_m' | 'lowAlertOffset_m' | 'lowActionLevel_m';
 
 export class MonitoringEditor extends LightElement {
   static override properties = {
@@ -139,6 +139,7 @@ export class MonitoringEditor extends LightElement {
           if (!parsed.ok) return this.refuse(parsed.message, input, stored);
           const v = parsed.value_si;
           if (field === 'alertOffset_m' && (v < 0 || v > 20)) return this.refuse(`${pointer}: alert offset must lie between 0 and ${formatQuantity(20, unit, { decimals: 1 })}`, input, stored);
+          if (field === 'lowAlertOffset_m' && (v < 0 || v > 20)) return this.refuse(`${pointer}: low alert offset must lie between 0 and ${formatQuantity(20, unit, { decimals: 1 })}`, input, stored);
           if (!this.editPiezometer(`set ${label.toLowerCase()} of ${p.id}`, (d) => void (d[field] = v))) input.value = stored;
         }} /><em>${unit}</em></span>${opts.hint ? html`<small>${opts.hint}</small>` : nothing}</label>`;
   }
@@ -203,8 +204,10 @@ export class MonitoringEditor extends LightElement {
     const i = this.index;
     const plan = this.plan?.piezometer?.id === p.id ? this.plan.piezometer : null;
     const actionHint = plan?.actionSource === 'excavation-target'
-      ? `Blank: the target level (formation − margin) of ${plan.excavationId}, the excavation containing or nearest it — ${formatQuantity(plan.actionLevel_m ?? 0, u.length, { decimals: 2 })}.`
-      : plan?.actionSource === 'none' ? 'Blank: no action level (the scenario has no excavation).' : 'Blank: the target level (formation − margin) of the excavation containing or nearest it.';
+      ? `Blank: the target level (formation − margin) of ${plan.excavationId}, the excavation containing it — ${formatQuantity(plan.actionLevel_m ?? 0, u.length, { decimals: 2 })}.`
+      : plan?.actionSource === 'none' ? 'Blank: no action level (the scenario has no excavation).'
+      : plan?.actionSource === 'outside' ? 'Blank: none — outside every excavation the designed level stands above the pit’s target, so set one for this place if it needs one.'
+      : 'Blank: the target level (formation − margin) of the excavation containing it; none outside every excavation.';
     return html`<form class="dd-form dd-pz-editor" aria-label="Piezometer ${p.id}" @submit=${(e: Event) => e.preventDefault()}>
       <div class="dd-form-row">
         <label class="dd-field"><span>Id</span><input type="text" name="pz-id" maxlength="64" .value=${p.id}
@@ -235,6 +238,13 @@ export class MonitoringEditor extends LightElement {
           hint: `Alert when a reading stands this far above the expected level. Blank: ${formatQuantity(DEFAULT_ALERT_OFFSET_M, u.length, { decimals: 2 })} (common practice, no single source).`,
         })}
         ${this.numberField('Action level', 'actionLevel_m', p, { optional: true, placeholder: plan?.actionLevel_m != null && plan.actionSource !== 'designer' ? displayValue(plan.actionLevel_m, u.length) : '', hint: actionHint })}
+      </div>
+      <div class="dd-form-row">
+        ${this.numberField('Low alert offset', 'lowAlertOffset_m', p, {
+          optional: true, placeholder: displayValue(DEFAULT_ALERT_OFFSET_M, u.length),
+          hint: `Alert when a reading stands this far below the expected level (more drawdown than designed). Blank: ${formatQuantity(DEFAULT_ALERT_OFFSET_M, u.length, { decimals: 2 })} (common practice).`,
+        })}
+        ${this.numberField('Low action level', 'lowActionLevel_m', p, { optional: true, hint: 'Act (reduce pumping, recharge) when a reading stands below this level — too much drawdown for a neighbour. Blank: none.' })}
       </div>
       <div class="dd-actions">
         <button type="button" class="dd-danger" name="delete-piezometer" @click=${() => this.emit('delete-piezometer', p.id)}>Delete piezometer</button>

@@ -31,6 +31,8 @@ export class PlanMap extends LightElement {
       dragVertex: forward('dragVertex'),
       selectPiezometer: forward('selectPiezometer'),
       dragPiezometer: forward('dragPiezometer'),
+      selectReceptor: forward('selectReceptor'),
+      dragReceptor: forward('dragReceptor'),
       insertVertex: forward('insertVertex'),
       drawnOutline: forward('drawnOutline'),
       drawnLine: forward('drawnLine'),

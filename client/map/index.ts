@@ -4,3 +4,4 @@ export * from './colour-scale';
 export * from './affine-image';
 export * from './plan-grid-layer';
 export * from './site-import-layer';
+export * from './receptor-layer';

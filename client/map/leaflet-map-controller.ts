@@ -16,9 +16,11 @@ import { UnderlayLayer } from './underlay-layer';
 import { ProjectedTileLayer } from './projected-tile-layer';
 import { CRITICAL_COLOUR, MET_COLOUR, SELECTION_COLOUR, SHORTFALL_COLOUR } from './colour-scale';
 import { BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, piezometerSymbolSvg, wellSymbol } from '../../shared/exports/plan-symbols';
+import { ReceptorLayer, type ReceptorVerdict } from './receptor-layer';
+import { getReceptors } from '../../shared/schema/receptor-schema';
 
 /** The pointer tool in use. */
-export type MapTool = 'select' | 'add-well' | 'add-piezometer' | 'draw-excavation' | 'section' | 'boundary' | 'pick-point';
+export type MapTool = 'select' | 'add-well' | 'add-piezometer' | 'add-receptor' | 'draw-excavation' | 'section' | 'boundary' | 'pick-point';
 
 /** What the map reports back to its owner. Positions are site metres. */
 export interface MapCallbacks {
@@ -34,6 +36,10 @@ export interface MapCallbacks {
   selectPiezometer(id: string | null): void;
   /** Drag of a piezometer, as for wells. */
   dragPiezometer(id: string, x: number, y: number, phase: 'move' | 'end' | 'cancel'): void;
+  /** A click on a receptor symbol (null: cleared by a click on empty map). */
+  selectReceptor(id: string | null): void;
+  /** Drag of a receptor point (`vertex` −1) or of one vertex of a polyline receptor. */
+  dragReceptor(id: string, vertex: number, x: number, y: number, phase: 'move' | 'end' | 'cancel'): void;
   insertVertex(excavationId: string, afterIndex: number, x: number, y: number): void;
   drawnOutline(points: Array<[number, number]>): void;
   drawnLine(tool: 'section' | 'boundary', from: [number, number], to: [number, number]): void;
@@ -61,6 +67,8 @@ export class LeafletMapController {
   private readonly piezometers = new Map<string, L.Marker>();
   private readonly piezometerLayer = L.layerGroup();
   private piezometerId: string | null = null;
+  private readonly receptorLayer: ReceptorLayer;
+  private receptorVerdicts: ReadonlyMap<string, ReceptorVerdict> = new Map();
   private readonly excavationLayer = L.layerGroup();
   private readonly boundaryLayer = L.layerGroup();
   private readonly handleLayer = L.layerGroup();
@@ -98,7 +106,20 @@ export class LeafletMapController {
     this.tiles.addTo(this.map);
     this.underlay.addTo(this.map);
     this.field.addTo(this.map);
-    for (const layer of [this.excavationLayer, this.boundaryLayer, this.sectionLayer, this.ringPreview, this.markLayer, this.wellLayer, this.piezometerLayer, this.handleLayer, this.draftLayer]) layer.addTo(this.map);
+    this.receptorLayer = new ReceptorLayer({
+      onPointerDown: (layer, start) => this.onPointerDown(layer, start),
+      dragGesture: (start, report) => this.dragGesture(start, report),
+      passClick: (e) => {
+        if (this.tool !== 'select') {
+          this.onMapClick(e);
+          return true;
+        }
+        return Date.now() < this.suppressClickUntil;
+      },
+      select: (id) => this.cb.selectReceptor(id),
+      drag: (id, vertex, x, y, phase) => this.cb.dragReceptor(id, vertex, x, y, phase),
+    });
+    for (const layer of [this.excavationLayer, this.boundaryLayer, this.sectionLayer, this.ringPreview, this.markLayer, this.receptorLayer, this.wellLayer, this.piezometerLayer, this.handleLayer, this.draftLayer]) layer.addTo(this.map);
     this.setImperialScale(false);
     L.control.zoom({ position: 'topleft' }).addTo(this.map);
     this.map.removeControl(this.map.zoomControl);
@@ -150,8 +171,16 @@ export class LeafletMapController {
     this.selection = selection;
     this.syncWells(scenario.wells);
     this.syncPiezometers((scenario as Scenario & { monitoring?: { piezometers?: Piezometer[] } }).monitoring?.piezometers ?? []);
+    this.receptorLayer.sync(getReceptors(scenario), this.receptorVerdicts);
     if (outlinesChanged) this.drawExcavations(scenario);
     if (boundariesChanged) this.drawBoundaries(scenario);
+  }
+
+  /** Highlights one receptor, and colours each by the last design's verdict (id → status). */
+  setReceptorState(selectedId: string | null, verdicts: ReadonlyMap<string, ReceptorVerdict>): void {
+    this.receptorVerdicts = verdicts;
+    if (this.scenario) this.receptorLayer.sync(getReceptors(this.scenario), verdicts);
+    this.receptorLayer.setSelected(selectedId);
   }
 
   /** Highlights one piezometer (kept apart from `MapSelection`: wells and pits select on their own). */
@@ -575,10 +604,12 @@ export class LeafletMapController {
         this.cb.selectWell(null);
         this.cb.selectExcavation(null);
         this.cb.selectPiezometer(null);
+        this.cb.selectReceptor(null);
         this.cb.click('select', x, y);
         break;
       case 'add-well':
       case 'add-piezometer':
+      case 'add-receptor':
       case 'pick-point':
         this.cb.click(this.tool, x, y);
         break;

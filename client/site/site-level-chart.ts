@@ -50,7 +50,7 @@ export class SiteLevelChart extends LitElement {
     const levelStep = [0.1, 0.2, 0.25, 0.5, 1, 2, 5].find((s) => (hi - lo) / s <= 7) ?? 10;
     const levelTicks: number[] = [];
     for (let v = Math.ceil(lo / levelStep) * levelStep; v <= hi; v += levelStep) levelTicks.push(Number(v.toFixed(3)));
-    const colour = { ok: '#111', alert: '#d80', action: '#c00' } as const;
+    const colour = { ok: '#111', alert: '#d80', action: '#c00', 'low-alert': '#0072b2', 'low-action': '#5a2d82' } as const;
     return html`<svg viewBox="0 0 ${W} ${H}" role="img" aria-label="Expected, alert and action levels at ${p.id}, with readings">
         ${levelTicks.map((v) => svg`<line x1=${L} x2=${W - R} y1=${Y(v)} y2=${Y(v)} stroke="#e3e7eb"/><text x=${L - 6} y=${Y(v) + 4} text-anchor="end">${v}</text>`)}
         ${dayTicks.map((d) => svg`<text x=${X(d * 86400)} y=${H - B + 16} text-anchor="middle">${d}</text>`)}

@@ -3,3 +3,4 @@ export * from './view-settings';
 export * from './monitoring-section';
 export * from './ground-profile-edits';
 export * from './design-inputs-key';
+export * from './receptor-section';

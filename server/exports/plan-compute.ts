@@ -29,7 +29,7 @@ export function computeMonitoringPlan(scenario: Scenario, readings: readonly Pla
     return buildMonitoringPlan({ scenario, engine: fieldEngine, readings });
   } catch (error) {
     return {
-      present: false, pumpingStart: null, interval_s: null, staticLevel_m: scenario.aquifer.staticLevel_m, piezometers: [],
+      present: false, pumpingStart: null, interval_s: null, staticLevel_m: scenario.aquifer.staticLevel_m, piezometers: [], receptors: [],
       notes: [], error: describeComputeFailure(error),
     };
   }

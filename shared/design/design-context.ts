@@ -57,7 +57,8 @@ export function applyDesignRates(scenario: Scenario, wells: DesignWell[], rates:
       const { rate_m3_s: _r, schedule: _s, ...rest } = w;
       const j = byIndex.get(i);
       const q = j === undefined ? 0 : rates[j]!;
-      if (j === undefined || !(q > 0)) return { ...rest, active: false };
+      // Injection wells carry negative rates; only a zero (or no) rate leaves a well off.
+      if (j === undefined || !(Math.abs(q) > 0)) return { ...rest, active: false };
       const start = wells[j]!.start_s;
       if (stopAt_s !== null) {
         return { ...rest, active: true, schedule: [{ from_s: start, rate_m3_s: q }, { from_s: Math.max(stopAt_s, start + 1e-6), rate_m3_s: 0 }] };

@@ -8,6 +8,7 @@ import { Type, type Static } from '@sinclair/typebox';
 import { DesignModeSchema, ScenarioWarningSchema } from '../schema';
 import { RateRoundingSchema } from './round-design-rates';
 import { RobustDesignSchema, SensitivityResultSchema, UncertaintyResultSchema } from './uncertainty-result';
+import { ReceptorResultSchema } from '../receptors/receptor-result';
 
 const Num = (description: string) => Type.Number({ description });
 const NullableNum = (description: string) => Type.Union([Type.Number(), Type.Null()], { description });
@@ -23,6 +24,7 @@ export const DesignReasonCodeSchema = Type.Union(
     Type.Literal('no-well-influence'),
     Type.Literal('no-active-wells'),
     Type.Literal('solver'),
+    Type.Literal('receptor-drawdown-limit'),
   ],
   { description: 'Why a target cannot be met (stable codes; the message says it in words).' },
 );
@@ -33,6 +35,7 @@ export const DesignReasonSchema = Type.Object({
   message: Type.String(),
   wellIds: Type.Optional(Type.Array(Type.String(), { description: 'Wells whose limit binds.' })),
   excavationId: Type.Optional(Type.String()),
+  receptorId: Type.Optional(Type.String({ description: 'Receptor whose drawdown limit keeps the target from being met.' })),
 });
 export type DesignReason = Static<typeof DesignReasonSchema>;
 
@@ -62,6 +65,7 @@ export const DesignWellResultSchema = Type.Object({
   flags: Type.Array(Type.String()),
   idle: Type.Boolean({ description: 'The design leaves this well at zero rate: it may be omitted, and it is not in the quantities or the cost.' }),
   note: Type.Optional(Type.String({ description: 'In words, e.g. "idle — may be omitted".' })),
+  injection: Type.Optional(Type.Boolean({ description: 'An injection (recharge) well: its rate is ≤ 0 and its capacity the injection capacity.' })),
 });
 export type DesignWellResult = Static<typeof DesignWellResultSchema>;
 
@@ -208,7 +212,9 @@ export const DesignResultSchema = Type.Object(
       Type.Union([Type.Literal('solved'), Type.Literal('scenario')], { description: 'solved: the solver chose the rates; scenario: the scenario’s own rates were checked as they stand (no solve).' }),
     ),
     feasible: Type.Boolean({ description: 'Every target met within every well limit, verified by the field engine.' }),
-    totalRate_m3_s: Num('Sum of the design rates, m³/s.'),
+    totalRate_m3_s: Num('Sum of the design rates, m³/s (abstraction; injection wells are in injectionRate_m3_s).'),
+    injectionRate_m3_s: Type.Optional(Num('Water put back by injection wells, m³/s (positive; present when the scenario has injection wells).')),
+    receptors: Type.Optional(Type.Array(ReceptorResultSchema, { description: 'Receptors (neighbours) under the design: drawdown, settlement, angular distortion (present when the scenario has receptors).' })),
     wells: Type.Array(DesignWellResultSchema),
     excavations: Type.Array(DesignExcavationResultSchema),
     reasons: Type.Array(DesignReasonSchema, { description: 'Why targets cannot be met (empty when feasible).' }),

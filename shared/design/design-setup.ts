@@ -6,7 +6,7 @@ import { DrydigError, parseScenario, type DesignMode, type Scenario } from '../s
 import { generateControlPoints, type ControlPoint } from './control-points';
 import { resolveDesignOptions } from './design-options';
 import { variableConversions, type DesignContext } from './design-context';
-import { buildDesignWells } from './well-limits';
+import { buildDesignWells, isInjectionWell } from './well-limits';
 import { excavationFloor } from '../floor';
 import type { RealisationChunkRunner } from './monte-carlo';
 import type { DesignBasis } from './scaled-design';
@@ -61,7 +61,12 @@ export function prepareDesign(input: RunDesignOptions): DesignSetup {
 
   const startOf = new Map<string, number>();
   for (const stage of options.stages) for (const id of stage.wellIds) startOf.set(id, stage.start_s);
-  const indices = scenario.wells.map((w, i) => ({ w, i })).filter(({ w }) => mode === 'layout' || w.active !== false).map(({ i }) => i);
+  // Injection (recharge) wells are solved as such in optimal mode only (the uniform closed form
+  // and the layout search take abstraction wells); elsewhere they are left off, with a note.
+  const indices = scenario.wells
+    .map((w, i) => ({ w, i }))
+    .filter(({ w }) => (mode === 'layout' || w.active !== false) && (mode === 'optimal' || !isInjectionWell(w)))
+    .map(({ i }) => i);
   const wells = buildDesignWells({ scenario, indices, startOf, headerLevel_m: options.headerLevel_m, suctionLiftLimit_m: options.suctionLiftLimit_m, capacityFactor: options.capacityUtilisationFactor, airEntryCheck: options.airEntryCheck });
   if (options.outOfServiceWell !== null && !wells.some((w) => w.id === options.outOfServiceWell)) {
     const path = `${input.options !== undefined && (input.options as Record<string, unknown>).outOfServiceWell !== undefined ? (input.optionsPath ?? '/options') : '/designOptions'}/outOfServiceWell`;

@@ -50,3 +50,5 @@ export const RECOVERY_STANDBY_NOTE = 'standby pumps and power must take over wit
 export const STEADY_RECOVERY_CAUTION =
   'Power failure in a steady design: the pumps stop at the steady state and the recovery is the steady cone minus the transient cone of an injection of the same rates from the stop (Theis 1935 superposition). Where the steady state uses a radius of influence, this recovers sooner than stopping after a long pumping period (Cooper–Jacob: ln(t_p/t′) against ln((t_p + t′)/t′), t_p = R²S/(2.25T)), so the time back at formation is on the short, safe side; late in the recovery curve (near t_p) levels can rise above the static level, which means nothing. Confirm storage and the radius of influence by a pumping test.';
 
+/** Per-well note for an injection (recharge) well the design uses. */
+export const INJECTION_WELL_NOTE = 'injection — puts water back (rate below zero)';

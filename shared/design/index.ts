@@ -31,3 +31,5 @@ export * from './uncertainty-result';
 export * from './sensitivity-stage';
 export * from './monte-carlo';
 export * from './robust-design';
+export * from './receptor-ceilings';
+export * from './receptor-stage';

@@ -18,7 +18,7 @@
 import { solveLinearProgram, type LinearRow } from './linear-program';
 
 /** What a well-limit row stands for (the binding reason when it is tight). */
-export type LimitKind = 'wetted-screen' | 'suction-lift' | 'air-entry' | 'interval';
+export type LimitKind = 'wetted-screen' | 'suction-lift' | 'air-entry' | 'interval' | 'mound';
 
 export interface LimitRow {
   /** The well whose limit this is. */
@@ -43,6 +43,25 @@ export interface RateProblem {
   lower?: Float64Array;
   /** Why each upper bound is what it is. */
   upperKind: Array<'capacity' | 'suction-lift' | 'air-entry' | 'wetted-screen'>;
+  /** 1 for an injection (recharge) well: its rate lies in [lower, 0] and costs |Q|. Default none. */
+  injection?: Uint8Array;
+  /** Upper limits on the variable at receptor points (drawdown limits). Default none. */
+  ceilings?: CeilingRows;
+}
+
+/**
+ * Drawdown limits as rows: Σ_j a_cj·Q_j ≤ max_c (variable at receptor point c, per m³/s), with
+ * the receptor each row belongs to, so an infeasible design can name it.
+ */
+export interface CeilingRows {
+  /** Row-major nRows × nWells. */
+  response: Float64Array;
+  /** Largest variable allowed per row (drawdown or s_c, m). */
+  max: Float64Array;
+  /** Index of the receptor of each row (into `names`). */
+  owner: Int32Array;
+  /** Receptor ids. */
+  names: string[];
 }
 
 export type RateStatus = 'optimal' | 'infeasible' | 'time-limit' | 'error';
@@ -108,6 +127,40 @@ function limitRows(p: RateProblem): LinearRow[] {
   return rows;
 }
 
+/** The ceiling rows (drawdown limits), scaled like the control rows; `slackBase` adds one slack column per receptor. */
+function ceilingRows(p: RateProblem, slackBase: number | null = null): LinearRow[] {
+  const c = p.ceilings;
+  if (!c) return [];
+  const n = p.nWells;
+  const rows: LinearRow[] = [];
+  for (let i = 0; i < c.max.length; i++) {
+    let max = 0;
+    for (let j = 0; j < n; j++) max = Math.max(max, Math.abs(c.response[i * n + j]!));
+    if (!(max > 0)) continue;
+    const scale = max / L_PER_M3;
+    const columns: number[] = [];
+    const coefficients: number[] = [];
+    for (let j = 0; j < n; j++) {
+      const a = c.response[i * n + j]! / L_PER_M3;
+      if (Math.abs(a) > 1e-12 * scale) {
+        columns.push(j);
+        coefficients.push(a / scale);
+      }
+    }
+    if (slackBase !== null) {
+      columns.push(slackBase + c.owner[i]!);
+      coefficients.push(-1 / scale);
+    }
+    rows.push({ columns, coefficients, lower: -Infinity, upper: c.max[i]! / scale });
+  }
+  return rows;
+}
+
+/** Objective weight of each rate: +1 for abstraction, −1 for injection (rate ≤ 0), so the sum is Σ|Q|. */
+const rateCosts = (p: RateProblem) => Array.from({ length: p.nWells }, (_, j) => (p.injection?.[j] ? -1 : 1));
+/** A solved column back to a rate in m³/s, with the sign its well allows. */
+const toRate = (p: RateProblem, j: number, v: number) => (p.injection?.[j] ? Math.min(0, v) : Math.max(0, v)) / L_PER_M3;
+
 /** Index of the control row with the largest shortfall (variable units) for the given rates. */
 export function findCriticalRow(p: RateProblem, rates: Float64Array): number {
   let worst = -Infinity;
@@ -135,15 +188,15 @@ const allRows = (p: RateProblem) => Array.from({ length: p.required.length }, (_
  */
 export async function solveOptimalRates(p: RateProblem): Promise<RateSolution> {
   const n = p.nWells;
-  const rows = [...controlRows(p, allRows(p), null), ...limitRows(p)];
+  const rows = [...controlRows(p, allRows(p), null), ...limitRows(p), ...ceilingRows(p)];
   const lp = await solveLinearProgram({
-    cost: new Array<number>(n).fill(1),
+    cost: rateCosts(p),
     lower: lowerBounds(p),
     upper: Array.from(p.upper, (u) => u * L_PER_M3),
     rows,
   });
   if (lp.status === 'optimal') {
-    const rates = Float64Array.from(lp.x, (v) => Math.max(0, v) / L_PER_M3);
+    const rates = Float64Array.from(lp.x, (v, j) => toRate(p, j, v));
     return { status: 'optimal', rates, objective: lp.objective / L_PER_M3, detail: lp.detail, criticalRow: findCriticalRow(p, rates) };
   }
   if (lp.status === 'infeasible') return solveBestAchievableRates(p);
@@ -157,20 +210,20 @@ export async function solveOptimalRates(p: RateProblem): Promise<RateSolution> {
 export async function solveBestAchievableRates(p: RateProblem): Promise<RateSolution> {
   const n = p.nWells;
   const z = n;
-  const rows = [...controlRows(p, allRows(p), z), ...limitRows(p)];
+  const rows = [...controlRows(p, allRows(p), z), ...limitRows(p), ...ceilingRows(p)];
   const upper = [...Array.from(p.upper, (u) => u * L_PER_M3), Infinity];
   const lower = [...lowerBounds(p), 0];
   const first = await solveLinearProgram({ cost: [...new Array<number>(n).fill(0), 1], lower, upper, rows });
   if (first.status !== 'optimal') return { status: 'error', rates: new Float64Array(n), objective: null, detail: first.detail, criticalRow: -1 };
   const zStar = Math.max(0, first.x[z]!);
   upper[z] = zStar * (1 + 1e-7) + 1e-9;
-  const second = await solveLinearProgram({ cost: [...new Array<number>(n).fill(1), 0], lower, upper, rows });
+  const second = await solveLinearProgram({ cost: [...rateCosts(p), 0], lower, upper, rows });
   const x = second.status === 'optimal' ? second.x : first.x;
-  const rates = Float64Array.from({ length: n }, (_, j) => Math.max(0, x[j]!) / L_PER_M3);
+  const rates = Float64Array.from({ length: n }, (_, j) => toRate(p, j, x[j]!));
   return {
     status: zStar > 1e-7 ? 'infeasible' : 'optimal',
     rates,
-    objective: rates.reduce((s, q) => s + q, 0),
+    objective: rates.reduce((s, q) => s + Math.abs(q), 0),
     detail: zStar > 1e-7 ? `largest shortfall ${zStar.toPrecision(3)} m (in the solved variable)` : second.detail,
     criticalRow: findCriticalRow(p, rates),
   };
@@ -296,7 +349,7 @@ export async function solveLayout(p: RateProblem, costs: LayoutCosts, timeLimit_
     }
   }
 
-  const rows = [...controlRows(p, allRows(p), null), ...limitRows(p)];
+  const rows = [...controlRows(p, allRows(p), null), ...limitRows(p), ...ceilingRows(p)];
   for (let j = 0; j < n; j++) rows.push({ columns: [j, n + j], coefficients: [1, -Math.max(upper_L_s[j]!, 0)], lower: -Infinity, upper: 0 });
   const start = [...Array.from(best, (q) => q * L_PER_M3), ...Array.from(best, (q) => (q > 0 ? 1 : 0))];
   const remaining = Math.max(1, timeLimit_s - (Date.now() - started) / 1000);
@@ -337,12 +390,34 @@ export async function solveLayout(p: RateProblem, costs: LayoutCosts, timeLimit_
   return greedy(`greedy layout (search: ${mip.detail})`);
 }
 
+/**
+ * Which receptors' drawdown limits keep the targets from being met: the control rows and well
+ * limits held, each receptor's rows given a slack t_r ≥ 0 (variable metres), Σ t_r minimised.
+ * Returns the slack per receptor (0: not in the way), or null when the targets cannot be met even
+ * with every receptor limit lifted (then the wells, not the receptors, are the reason).
+ */
+export async function findBlockingCeilings(p: RateProblem): Promise<Float64Array | null> {
+  const c = p.ceilings;
+  if (!c || c.max.length === 0) return null;
+  const n = p.nWells;
+  const nR = c.names.length;
+  const rows = [...controlRows(p, allRows(p), null), ...limitRows(p), ...ceilingRows(p, n)];
+  const lp = await solveLinearProgram({
+    cost: [...new Array<number>(n).fill(0), ...new Array<number>(nR).fill(1)],
+    lower: [...lowerBounds(p), ...new Array<number>(nR).fill(0)],
+    upper: [...Array.from(p.upper, (u) => u * L_PER_M3), ...new Array<number>(nR).fill(Infinity)],
+    rows,
+  });
+  if (lp.status !== 'optimal') return null;
+  return Float64Array.from({ length: nR }, (_, r) => Math.max(0, lp.x[n + r]!));
+}
+
 /** Which limits are tight for the given rates: per well, the binding kind (null: none). */
 export function findBindingLimits(p: RateProblem, rates: Float64Array): Array<'capacity' | 'suction-lift' | 'air-entry' | 'wetted-screen' | null> {
   const out: Array<'capacity' | 'suction-lift' | 'air-entry' | 'wetted-screen' | null> = new Array(p.nWells).fill(null);
   for (let j = 0; j < p.nWells; j++) if (rates[j]! >= p.upper[j]! * (1 - TIGHT) && p.upper[j]! >= 0 && rates[j]! > 0) out[j] = p.upperKind[j]!;
   for (const lim of p.limits) {
-    if (lim.kind === 'interval') continue;
+    if (lim.kind === 'interval' || lim.kind === 'mound') continue;
     let act = 0;
     lim.coefficients.forEach((c, j) => (act += c * rates[j]!));
     const tol = TIGHT * Math.max(Math.abs(lim.rhs), 1e-3);

@@ -32,6 +32,7 @@ import { createDesignBasis } from './scaled-design';
 import { buildSensitivityTable } from './sensitivity-stage';
 import { buildRobustDesigns } from './robust-design';
 import { planMonteCarlo, runMonteCarlo, summariseMonteCarlo } from './monte-carlo';
+import { checkReceptors } from './receptor-stage';
 
 /**
  * Runs a design. Throws `DrydigError` naming the field for bad input; never returns NaN
@@ -88,10 +89,15 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   progress('floor checks', 0.8);
   const floors = checkFloors({ ctx, rates, checkPoints, pointLevels_m: pointResults.map((r) => r.level_m) });
 
+  progress('receptors', 0.82);
+  const receptorStage = await checkReceptors({ ctx, solved: verified.solved, problem, solution });
+  reasons.push(...receptorStage.reasons);
+
   progress('standby check', 0.85);
   const outOfService = checkOneWellOut(ctx, checkPoints, responses.check, rates);
 
-  const total = rates.reduce((s, q) => s + q, 0);
+  const total = rates.reduce((s, q) => s + Math.max(0, q), 0);
+  const injected = -rates.reduce((s, q) => s + Math.min(0, q), 0);
   const quickCheck = buildQuickChecks(ctx, total);
   const summary = summariseDesign({ scenario, options, wells, wellResults, rates, installed });
   const cautions = collectDesignCautions({
@@ -105,6 +111,7 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     solvedOptimally: solution.status === 'optimal',
     designPointCount: designPoints.length,
   });
+  cautions.push(...receptorStage.cautions);
   cautions.push(...floorCautions([...floors].map(([excavationId, f]) => ({ excavationId, ...f }))));
   if (ctx.designTime_s === null && rates.some((q) => q > 0)) cautions.push(STEADY_RECOVERY_CAUTION);
 
@@ -133,8 +140,10 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
   return {
     mode,
     rateSource: ctx.fixedRates ? 'scenario' : 'solved',
-    feasible,
+    feasible: feasible && receptorStage.limitsMet,
     totalRate_m3_s: total,
+    ...(wells.some((w) => w.injection) ? { injectionRate_m3_s: injected } : {}),
+    ...(receptorStage.results !== null ? { receptors: receptorStage.results } : {}),
     wells: wellResults,
     excavations: excavations.map((e) => ({ ...e, ...(times.excavations.get(e.id) ?? {}), ...(floors.has(e.id) ? { floor: floors.get(e.id)! } : {}) })),
     reasons,

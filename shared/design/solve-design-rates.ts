@@ -9,6 +9,7 @@ import type { DesignResponses } from './design-responses';
 import { findBindingLimits, solveLayout, solveOptimalRates, solveUniformRate, type RateProblem, type RateSolution } from './rate-problem';
 import { RequirementRows } from './requirement-rows';
 import { buildLimitRows, narrowIntervals, type BuildLimitRowsOptions } from './well-limits';
+import { buildReceptorCeilings } from './receptor-ceilings';
 
 /** Most refinement rounds (each adds the check points still above target). */
 export const MAX_REFINEMENT_ROUNDS = 10;
@@ -90,8 +91,13 @@ export async function solveDesignRates({ ctx, designPoints, checkPoints, respons
     faceResponse: responses.face,
     variableForLevel: ctx.variableForLevel,
     levelForVariable: ctx.levelForVariable,
+    groundLevel_m: ctx.scenario.groundLevel_m,
   };
   let limitSet = buildLimitRows(limitInput);
+  // Receptor drawdown limits and injection wells ride along with every problem of the run.
+  const ceilings = buildReceptorCeilings(ctx);
+  const injection = wells.some((w) => w.injection) ? Uint8Array.from(wells, (w) => (w.injection ? 1 : 0)) : null;
+  const toProblem = (): RateProblem => ({ ...rows.toProblem(limitSet, chosen), ...(ceilings ? { ceilings } : {}), ...(injection ? { injection } : {}) });
   // Layout: the set chosen by the first MIP; later rounds refine its rates by LP.
   let chosen: Uint8Array | null = null;
   const rows = new RequirementRows(ctx);
@@ -104,7 +110,7 @@ export async function solveDesignRates({ ctx, designPoints, checkPoints, respons
 
   let layoutSearch: LayoutSearch | null = null;
   const solve = createModeSolver(ctx, (search) => (layoutSearch = search));
-  let problem = rows.toProblem(limitSet, chosen);
+  let problem = toProblem();
   let solution: RateSolution;
   let rounds = 0;
   let tighteningRounds = 0;
@@ -129,7 +135,7 @@ export async function solveDesignRates({ ctx, designPoints, checkPoints, respons
       tighteningRounds = MAX_TIGHTENING_ROUNDS;
       limitSet = buildLimitRows(limitInput);
       chosen = null;
-      problem = rows.toProblem(limitSet, chosen);
+      problem = toProblem();
       continue;
     }
     let changed = false;
@@ -144,7 +150,7 @@ export async function solveDesignRates({ ctx, designPoints, checkPoints, respons
       changed = true;
     }
     if (!changed) break;
-    problem = rows.toProblem(limitSet, chosen);
+    problem = toProblem();
   }
   return { solution, problem, rows, rounds, solveTime_ms, layoutSearch };
 }

@@ -55,6 +55,24 @@ export interface DesignWell {
   floorKind: 'suction-lift' | 'air-entry' | 'wetted-screen';
   /** Share of the Sichardt capacity the design may use (utilisation factor, −; 1 = all of it). */
   capacityFactor?: number;
+  /** Injection (recharge) well: the design rate lies in [−injectionCapacity_m3_s, 0]. */
+  injection?: boolean;
+  /** Most an injection well may inject, m³/s (positive). */
+  injectionCapacity_m3_s?: number;
+}
+
+/**
+ * Share of the Sichardt full-screen capacity an injection well is allowed by default: recharge
+ * wells clog and take markedly less than they yield (common practice, from memory; Powers et al.
+ * (2007) and CIRIA C750 discuss recharge wells — a pumping or injection test should set it).
+ */
+export const DEFAULT_INJECTION_SHARE = 0.5;
+
+/** True when the scenario marks the well as injecting: a negative rate, or a negative first non-zero schedule step. */
+export function isInjectionWell(w: Well): boolean {
+  if (w.rate_m3_s !== undefined) return w.rate_m3_s < 0;
+  const first = w.schedule?.find((s) => s.rate_m3_s !== 0);
+  return first !== undefined && first.rate_m3_s < 0;
 }
 
 /** Largest rate the scenario format allows for one well, m³/s. */
@@ -91,7 +109,10 @@ export function buildDesignWells({ scenario, indices, startOf, headerLevel_m, su
     const floorKind: DesignWell['floorKind'] =
       isWellpoint && Math.max(suctionFloor, airFloor) > screenBottom_m ? (airFloor > suctionFloor ? 'air-entry' : 'suction-lift') : 'wetted-screen';
     const floor = floorKind === 'air-entry' ? airFloor : floorKind === 'suction-lift' ? suctionFloor : screenBottom_m;
+    const fullScreen = alpha * Math.max(0, screenTop_m - screenBottom_m);
+    const injection = isInjectionWell(w);
     return {
+      ...(injection ? { injection, injectionCapacity_m3_s: Math.min(w.injectionCapacity_m3_s ?? DEFAULT_INJECTION_SHARE * fullScreen, MAX_WELL_RATE_M3_S) } : {}),
       id: w.id,
       scenarioIndex: index,
       x: w.x,
@@ -103,7 +124,7 @@ export function buildDesignWells({ scenario, indices, startOf, headerLevel_m, su
       screenBottom_m,
       wellLoss_s2_m5: w.wellLoss_s2_m5 ?? 0,
       capacityPerMetre_m2_s: alpha,
-      fullScreenCapacity_m3_s: alpha * Math.max(0, screenTop_m - screenBottom_m),
+      fullScreenCapacity_m3_s: fullScreen,
       minimumLevel_m: floor,
       floorKind,
       capacityFactor,
@@ -136,6 +157,22 @@ export interface BuildLimitRowsOptions {
   levelForVariable: (v: number) => number;
   /** Linearisation intervals per well; absent: from no drawdown to the limit, and 0 to the capacity. */
   intervals?: Array<LimitInterval | null>;
+  /** Ground level, m: the mound in an injection well stays below it. Default no limit. */
+  groundLevel_m?: number;
+}
+
+/**
+ * The level in an injection well stays at or below ground: level = static − v + C·Q², with
+ * level(v) ≤ static − v (confined/leaky exactly; unconfined: the concave level(v) lies under its
+ * tangent at v = 0, whose slope is −1) and C·Q² ≤ C·Q̄·|Q| = −C·Q̄·Q on [−Q̄, 0] (the secant).
+ * So −Σ b_k·Q_k − C·Q̄·Q_j ≤ ground − static is conservative.
+ */
+function moundRow(j: number, w: DesignWell, face: Float64Array, aquifer: Aquifer, groundLevel_m: number): LimitRow {
+  const coefficients = Float64Array.from(face, (b) => -b);
+  coefficients[j] = coefficients[j]! - w.wellLoss_s2_m5 * (w.injectionCapacity_m3_s ?? 0);
+  // Ground at or below the static level (artesian): no rise is allowed, so the row asks for none.
+  const rhs = Number.isFinite(groundLevel_m) ? Math.max(0, groundLevel_m - aquifer.staticLevel_m) : 1e6;
+  return { wellIndex: j, kind: 'mound', coefficients, rhs };
 }
 
 export interface WellLimitRows {
@@ -149,7 +186,7 @@ export interface WellLimitRows {
 }
 
 /** Linear, conservative rows for every well's floor and Sichardt limit (see the file comment). */
-export function buildLimitRows({ aquifer, wells, faceResponse, variableForLevel, levelForVariable, intervals }: BuildLimitRowsOptions): WellLimitRows {
+export function buildLimitRows({ aquifer, wells, faceResponse, variableForLevel, levelForVariable, intervals, groundLevel_m = Infinity }: BuildLimitRowsOptions): WellLimitRows {
   const n = wells.length;
   const staticLevel = aquifer.staticLevel_m;
   const limits: LimitRow[] = [];
@@ -158,6 +195,15 @@ export function buildLimitRows({ aquifer, wells, faceResponse, variableForLevel,
   const used: LimitInterval[] = [];
   const upperKind: WellLimitRows['upperKind'] = [];
   wells.forEach((w, j) => {
+    if (w.injection) {
+      // Injection: Q in [−capacity, 0], no floor or Sichardt row of its own; the mound row below.
+      upper[j] = 0;
+      lower[j] = -(w.injectionCapacity_m3_s ?? 0);
+      upperKind.push('capacity');
+      used.push(intervals?.[j] ?? { vLo: 0, vHi: 0, qLo_m3_s: 0, qHi_m3_s: 0 });
+      limits.push(moundRow(j, w, faceResponse.subarray(j * n, (j + 1) * n), aquifer, groundLevel_m));
+      return;
+    }
     let cap = Math.min(w.fullScreenCapacity_m3_s * (w.capacityFactor ?? 1), MAX_WELL_RATE_M3_S);
     let kind: WellLimitRows['upperKind'][number] = 'capacity';
     const C = w.wellLoss_s2_m5;

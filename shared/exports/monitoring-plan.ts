@@ -6,10 +6,18 @@
  *
  * Alert level = expected + alertOffset_m (default 0.3 m, the issue's example; common practice,
  * no single source). Action level = actionLevel_m, or by default the target level (formation −
- * margin) of the excavation containing, or else nearest to, the piezometer; it applies from the
- * design time on, when the dig reaches formation (before then the level is still being drawn down).
+ * margin) of the excavation containing the piezometer; it applies from the design time on, when
+ * the dig reaches formation (before then the level is still being drawn down). A piezometer
+ * outside every excavation gets no default action level: the design leaves the water there above
+ * the pit's target, so that target would call a reading exactly as designed "action".
+ *
+ * Low-level triggers (too much drawdown, the neighbours' side): low alert = expected −
+ * lowAlertOffset_m (default 0.3 m, common practice), low action = lowActionLevel_m (none by
+ * default). Receptors get the same low-level rows at their most drawn-down point, with the low
+ * action level from their drawdown limit or the drawdown that gives their allowable settlement.
  */
-import { DEFAULT_ALERT_OFFSET_M, type Monitoring, type Piezometer, type Scenario } from '../schema';
+import { DEFAULT_ALERT_OFFSET_M, getReceptors, type Monitoring, type Piezometer, type Receptor, type Scenario } from '../schema';
+import { drawdownForSettlement, receptorSamplePoints } from '../receptors';
 import type { PointFlag } from '../field/types';
 import { signedDistanceToRing } from '../contours';
 import type { FieldEngine } from './field-engine';
@@ -28,6 +36,10 @@ export interface ExpectedLevelRow {
   alertLevel_m: number;
   /** Null before the action level applies, or when none is set. */
   actionLevel_m: number | null;
+  /** Expected − low alert offset, m (a reading below: more drawdown than designed). */
+  lowAlertLevel_m: number;
+  /** Low action level, m (null when none is set). */
+  lowActionLevel_m: number | null;
   flags: PointFlag[];
 }
 
@@ -43,8 +55,14 @@ export interface AssessedReading {
   actionLevel_m: number | null;
   /** Reading − expected, m (positive: water higher than designed). */
   departure_m: number;
-  /** ok: at or below alert; alert: above the alert level; action: above the action level. */
-  status: 'ok' | 'alert' | 'action';
+  lowAlertLevel_m: number;
+  lowActionLevel_m: number | null;
+  /**
+   * ok: between the low alert and the alert level; alert / action: above the alert / action
+   * level (water too high for the dig); low-alert / low-action: below the low alert / low action
+   * level (too much drawdown). Action outranks low-action, which outranks either alert.
+   */
+  status: 'ok' | 'alert' | 'action' | 'low-alert' | 'low-action';
   enteredBy: string;
   note: string;
 }
@@ -58,8 +76,11 @@ export interface PiezometerPlan {
   alertOffset_m: number;
   /** Action level, m, or null when none is set and no excavation gives one. */
   actionLevel_m: number | null;
-  /** Where the action level came from. */
-  actionSource: 'designer' | 'excavation-target' | 'none';
+  /** Where the action level came from ('outside': outside every excavation, so none by default). */
+  actionSource: 'designer' | 'excavation-target' | 'outside' | 'none';
+  lowAlertOffset_m: number;
+  /** Low action level, m (designer's), or null. */
+  lowActionLevel_m: number | null;
   /** Excavation whose target gave the default action level. */
   excavationId: string | null;
   /** The action level applies from this time on, s (design time; 0 for steady runs). */
@@ -76,8 +97,26 @@ export interface MonitoringPlan {
   interval_s: number | null;
   staticLevel_m: number;
   piezometers: PiezometerPlan[];
+  /** Low-level rows for each receptor (empty when the scenario has none). */
+  receptors: ReceptorMonitorPlan[];
   /** Plain-language notes on how the plan was made. */
   notes: string[];
+}
+
+/** The low-level triggers of one receptor, at its most drawn-down point at the design time. */
+export interface ReceptorMonitorPlan {
+  id: string;
+  label: string;
+  kind: string;
+  x: number;
+  y: number;
+  lowAlertOffset_m: number;
+  /** static − the receptor's limit drawdown, m, or null. */
+  lowActionLevel_m: number | null;
+  /** What set the low action level: the drawdown limit, the drawdown giving the allowable settlement (the smaller), or none. */
+  lowActionSource: 'drawdown-limit' | 'allowable-settlement' | 'none';
+  /** Expected level and the low-level triggers over time (receptors have no high-level trigger). */
+  series: Array<Omit<ExpectedLevelRow, 'alertLevel_m' | 'actionLevel_m'>>;
 }
 
 /** A site reading as the plan needs it (the store's ReadingRecord extends it). */
@@ -130,14 +169,46 @@ export function monitoringTimes(scenario: Scenario): { times_s: number[]; interv
 
 function defaultAction(scenario: Scenario, p: Piezometer): { level: number | null; source: PiezometerPlan['actionSource']; excavationId: string | null } {
   if (p.actionLevel_m !== undefined) return { level: p.actionLevel_m, source: 'designer', excavationId: null };
+  if (scenario.excavations.length === 0) return { level: null, source: 'none', excavationId: null };
+  // Only a piezometer inside (or on the edge of) an excavation takes its target: outside, the
+  // designed level stands above the target, so a reading as designed would be classed "action".
   let best: { d: number; id: string; target: number } | null = null;
   for (const e of scenario.excavations) {
     const d = signedDistanceToRing(p.x, p.y, e.outline);
-    // Inside (d > 0) beats any outside one; among outside ones, the nearest.
-    const score = d > 0 ? -Infinity : -d;
-    if (!best || score < best.d) best = { d: score, id: e.id, target: e.formationLevel_m - e.margin_m };
+    if (d >= 0 && (!best || d > best.d)) best = { d, id: e.id, target: e.formationLevel_m - e.margin_m };
   }
-  return best ? { level: best.target, source: 'excavation-target', excavationId: best.id } : { level: null, source: 'none', excavationId: null };
+  return best ? { level: best.target, source: 'excavation-target', excavationId: best.id } : { level: null, source: 'outside', excavationId: null };
+}
+
+/** A reading's class (see AssessedReading.status). */
+export function classifyReading(level_m: number, levels: { alert_m: number; action_m: number | null; lowAlert_m: number; lowAction_m: number | null }): AssessedReading['status'] {
+  if (levels.action_m !== null && level_m > levels.action_m) return 'action';
+  if (levels.lowAction_m !== null && level_m < levels.lowAction_m) return 'low-action';
+  if (level_m > levels.alert_m) return 'alert';
+  if (level_m < levels.lowAlert_m) return 'low-alert';
+  return 'ok';
+}
+
+/** The receptor's low action level: static − the smaller of its drawdown limit and the drawdown giving its allowable settlement. */
+function receptorLowAction(scenario: Scenario, r: Receptor): { level: number | null; source: ReceptorMonitorPlan['lowActionSource'] } {
+  const bySettlement = r.compressibleLayer && r.allowableSettlement_m !== undefined ? drawdownForSettlement(r.allowableSettlement_m, r.compressibleLayer) : Infinity;
+  const byLimit = r.maxDrawdown_m ?? Infinity;
+  const limit = Math.min(bySettlement, byLimit);
+  if (!Number.isFinite(limit)) return { level: null, source: 'none' };
+  return { level: scenario.aquifer.staticLevel_m - limit, source: byLimit <= bySettlement ? 'drawdown-limit' : 'allowable-settlement' };
+}
+
+/** Each receptor's most drawn-down sample point at the design time. */
+function receptorMonitorPoints(scenario: Scenario, engine: MonitoringPlanOptions['engine'], receptors: Receptor[]): Array<readonly [number, number]> {
+  return receptors.map((r) => {
+    const samples = receptorSamplePoints(r);
+    const result = engine.evaluatePoints({ scenario, points: samples, time_s: scenario.design.time_s }).points;
+    let best = 0;
+    result.forEach((p, i) => {
+      if (p.drawdown_m > result[best]!.drawdown_m) best = i;
+    });
+    return samples[best]!;
+  });
 }
 
 function isoAt(start: string | undefined, time_s: number | null): string | null {
@@ -155,9 +226,12 @@ export function buildMonitoringPlan(options: MonitoringPlanOptions): MonitoringP
   const actionFrom_s = scenario.design.time_s ?? 0;
   if (schedule === null) notes.push('Steady-state design: one expected level per piezometer (no time history).');
   else notes.push(`Expected levels every ${schedule.interval_s / 3600} h from the start of pumping to ${(schedule.times_s.at(-1) ?? 0) / DAY_S} d.`);
-  notes.push(`Alert level: expected level + the alert offset (default ${DEFAULT_ALERT_OFFSET_M} m, common practice). Action level: as set by the designer, or the target level (formation − margin) of the excavation containing or nearest the piezometer, from the design time on.`);
+  notes.push(`Alert level: expected level + the alert offset (default ${DEFAULT_ALERT_OFFSET_M} m, common practice). Action level: as set by the designer, or the target level (formation − margin) of the excavation containing the piezometer, from the design time on; outside every excavation none unless set.`);
+  notes.push(`Low alert level (too much drawdown): expected level − the low alert offset (default ${DEFAULT_ALERT_OFFSET_M} m, common practice). Low action level: as set by the designer; for a receptor, static level − its drawdown limit or the drawdown that gives its allowable settlement, whichever is smaller.`);
 
-  const points = piezometers.map((p) => [p.x, p.y] as const);
+  const receptors = getReceptors(scenario);
+  const receptorPoints = receptorMonitorPoints(scenario, engine, receptors);
+  const points = [...piezometers.map((p) => [p.x, p.y] as const), ...receptorPoints];
   const levelsByTime: Array<{ time_s: number | null; levels: number[]; flags: PointFlag[][] }> = [];
   if (points.length > 0) {
     for (const t of schedule ? schedule.times_s : [null]) {
@@ -178,21 +252,28 @@ export function buildMonitoringPlan(options: MonitoringPlanOptions): MonitoringP
     readingsByPiezometer.set(r.piezometerId, list);
   }
 
-  const plans = piezometers.map((p, i): PiezometerPlan => {
-    const alertOffset = p.alertOffset_m ?? DEFAULT_ALERT_OFFSET_M;
-    const action = defaultAction(scenario, p);
-    const actionAt = (t: number | null) => (action.level === null ? null : t === null || t >= actionFrom_s ? action.level : null);
-    const series = levelsByTime.map((row): ExpectedLevelRow => {
+  const rowsAt = (i: number, offsets: { alert_m: number; lowAlert_m: number }, actionAt: (t: number | null) => number | null, lowAction: number | null) =>
+    levelsByTime.map((row): ExpectedLevelRow => {
       const expected = row.levels[i] ?? Number.NaN;
       return {
         time_s: row.time_s,
         at: isoAt(monitoring?.pumpingStart, row.time_s),
         expectedLevel_m: expected,
-        alertLevel_m: expected + alertOffset,
+        alertLevel_m: expected + offsets.alert_m,
         actionLevel_m: actionAt(row.time_s),
+        lowAlertLevel_m: expected - offsets.lowAlert_m,
+        lowActionLevel_m: lowAction,
         flags: row.flags[i] ?? [],
       };
     });
+
+  const plans = piezometers.map((p, i): PiezometerPlan => {
+    const alertOffset = p.alertOffset_m ?? DEFAULT_ALERT_OFFSET_M;
+    const lowAlertOffset = p.lowAlertOffset_m ?? DEFAULT_ALERT_OFFSET_M;
+    const lowAction = p.lowActionLevel_m ?? null;
+    const action = defaultAction(scenario, p);
+    const actionAt = (t: number | null) => (action.level === null ? null : t === null || t >= actionFrom_s ? action.level : null);
+    const series = rowsAt(i, { alert_m: alertOffset, lowAlert_m: lowAlertOffset }, actionAt, lowAction);
     const own = [...(readingsByPiezometer.get(p.id) ?? [])].sort((a, b) => a.time_s - b.time_s || a.readingId - b.readingId);
     let expectedAtReadings: number[] = [];
     if (own.length > 0) {
@@ -204,17 +285,30 @@ export function buildMonitoringPlan(options: MonitoringPlanOptions): MonitoringP
     const readings = own.map((r, k): AssessedReading => {
       const expected = expectedAtReadings[k] ?? Number.NaN;
       const alert = expected + alertOffset;
+      const lowAlert = expected - lowAlertOffset;
       const actionLevel = actionAt(scenario.design.time_s === null ? null : r.time_s);
-      const status = actionLevel !== null && r.level_m > actionLevel ? 'action' : r.level_m > alert ? 'alert' : 'ok';
+      const status = classifyReading(r.level_m, { alert_m: alert, action_m: actionLevel, lowAlert_m: lowAlert, lowAction_m: lowAction });
       return {
         readingId: r.readingId, piezometerId: r.piezometerId, measuredAt: r.measuredAt, time_s: r.time_s, level_m: r.level_m,
-        expectedLevel_m: expected, alertLevel_m: alert, actionLevel_m: actionLevel, departure_m: r.level_m - expected, status,
-        enteredBy: r.enteredBy, note: r.note,
+        expectedLevel_m: expected, alertLevel_m: alert, actionLevel_m: actionLevel, lowAlertLevel_m: lowAlert, lowActionLevel_m: lowAction,
+        departure_m: r.level_m - expected, status, enteredBy: r.enteredBy, note: r.note,
       };
     });
     return {
       id: p.id, label: p.label ?? '', x: p.x, y: p.y, alertOffset_m: alertOffset, actionLevel_m: action.level,
-      actionSource: action.source, excavationId: action.excavationId, actionFrom_s, series, readings,
+      actionSource: action.source, excavationId: action.excavationId, actionFrom_s, lowAlertOffset_m: lowAlertOffset, lowActionLevel_m: lowAction,
+      series, readings,
+    };
+  });
+
+  const receptorPlans = receptors.map((r, k): ReceptorMonitorPlan => {
+    const lowAlertOffset = r.lowAlertOffset_m ?? DEFAULT_ALERT_OFFSET_M;
+    const low = receptorLowAction(scenario, r);
+    const [x, y] = receptorPoints[k]!;
+    return {
+      id: r.id, label: r.label ?? '', kind: r.kind, x, y, lowAlertOffset_m: lowAlertOffset, lowActionLevel_m: low.level, lowActionSource: low.source,
+      // Receptors have no high-level trigger: they worry about too much drawdown, not too little.
+      series: rowsAt(piezometers.length + k, { alert_m: 0, lowAlert_m: lowAlertOffset }, () => null, low.level).map(({ alertLevel_m: _a, actionLevel_m: _b, ...row }) => row),
     };
   });
 
@@ -224,6 +318,7 @@ export function buildMonitoringPlan(options: MonitoringPlanOptions): MonitoringP
     interval_s: schedule?.interval_s ?? null,
     staticLevel_m: scenario.aquifer.staticLevel_m,
     piezometers: plans,
+    receptors: receptorPlans,
     notes,
   };
 }

@@ -14,3 +14,4 @@ export * from './scenario-warnings';
 export * from './structural-issues';
 export * from './physical-ranges';
 export * from './plain-error';
+export * from './receptor-schema';

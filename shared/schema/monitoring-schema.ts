@@ -24,7 +24,17 @@ export const PiezometerSchema = Type.Object(
         minimum: -LEVEL_LIMIT_M,
         maximum: LEVEL_LIMIT_M,
         description:
-          'Act (stop digging, add pumping) when a reading stands above this level, m. Default: target level (formation − margin) of the excavation containing or nearest the piezometer.',
+          'Act (stop digging, add pumping) when a reading stands above this level, m. Default: the target level (formation − margin) of the excavation containing the piezometer; none outside every excavation (there the designed level stands above the pit target).',
+      }),
+    ),
+    lowAlertOffset_m: Type.Optional(
+      Type.Number({ minimum: 0, maximum: 20, description: 'Low-level alert when a reading stands this far below the expected level (more drawdown than designed), m. Default 0.3.' }),
+    ),
+    lowActionLevel_m: Type.Optional(
+      Type.Number({
+        minimum: -LEVEL_LIMIT_M,
+        maximum: LEVEL_LIMIT_M,
+        description: 'Act (reduce pumping, recharge) when a reading stands below this level — too much drawdown, e.g. for a neighbour, m. Default none.',
       }),
     ),
     label: Type.Optional(Type.String({ maxLength: 200 })),

@@ -27,3 +27,10 @@ export const TimeSpan = (options: Doc & { exclusiveMinimum?: number } = {}) =>
   Type.Number(options.exclusiveMinimum !== undefined ? { maximum: TIME_LIMIT_S, ...options } : { minimum: 0, maximum: TIME_LIMIT_S, ...options });
 /** A positive length, m. */
 export const Length = (options: Doc = {}) => Type.Number({ exclusiveMinimum: 0, maximum: LENGTH_LIMIT_M, ...options });
+/**
+ * Coefficient of volume compressibility m_v, m²/kN: from a very stiff clay or dense sand
+ * (about 10⁻⁵) to a peat (about 10⁻²), with room either side (generous on purpose).
+ */
+export const COMPRESSIBILITY_RANGE_M2_KN = [1e-7, 0.1] as const;
+/** Oedometer (constrained) modulus E_oed = 1/m_v, kPa: the same range inverted. */
+export const OEDOMETER_MODULUS_RANGE_KPA = [10, 1e7] as const;

@@ -7,6 +7,7 @@
  */
 import { Type, type Static } from '@sinclair/typebox';
 import { GroundProfileSchema } from './ground-schema';
+import { ReceptorsSchema } from './receptor-schema';
 import { CONDUCTIVITY_RANGE_M_S, COORDINATE_LIMIT_M, LENGTH_LIMIT_M, LEVEL_LIMIT_M, TIME_LIMIT_S } from './physical-ranges';
 
 /** A finite number (JSON cannot carry NaN or Infinity; this also rejects them from JS callers). */
@@ -101,6 +102,14 @@ export const WellSchema = Type.Object(
     screenTop_m: Type.Optional(LevelNum('Screen top elevation, m (default: aquifer top or static level).')),
     screenBottom_m: Type.Optional(LevelNum('Screen bottom elevation, m (default: aquifer base).')),
     active: Type.Optional(Type.Boolean({ description: 'False: candidate or out of service; not pumped. Default true.' })),
+    injectionCapacity_m3_s: Type.Optional(
+      Finite({
+        exclusiveMinimum: 0,
+        maximum: 10,
+        description:
+          'Injection (recharge) well — one whose rate or first non-zero schedule step is negative: the most it may inject, m³/s. Default half its Sichardt full-screen capacity.',
+      }),
+    ),
   },
   { additionalProperties: false },
 );
@@ -130,6 +139,7 @@ export const ScenarioSchema = Type.Object(
     wells: Type.Array(WellSchema, { maxItems: 5000 }),
     design: DesignSchema,
     ground: Type.Optional(GroundProfileSchema),
+    receptors: Type.Optional(ReceptorsSchema),
   },
   {
     // Later issues add optional top-level sections (underlay, monitoring, design options, …).

@@ -9,6 +9,7 @@ import { findSelfIntersection, getPolygonArea } from '../geometry/polygon';
 import { validatePumpingTestRecord } from './pumping-test-record-schema';
 import { validateImportRecords } from './import-record-schema';
 import { groundProfileIssues } from './ground-schema';
+import { receptorIssues } from './receptor-schema';
 import { describeStructuralError, structuralIssuesOf } from './structural-issues';
 
 export type ScenarioValidation = { ok: true; scenario: Scenario } | { ok: false; issues: FieldIssue[] };
@@ -77,6 +78,8 @@ function semanticIssues(s: Scenario): FieldIssue[] {
     if (w.screenBottom_m !== undefined && w.screenBottom_m < a.base_m - 1e-9)
       add(`/wells/${i}/screenBottom_m`, `screen bottom (${w.screenBottom_m} m) is below the aquifer base (${a.base_m} m)`);
   });
+
+  if (s.receptors) issues.push(...receptorIssues(s.receptors));
 
   if (s.design.time_s === null && a.kind !== 'leaky' && a.influenceRadius_m === undefined) {
     const drawdowns = s.excavations.map((e) => a.staticLevel_m - (e.formationLevel_m - e.margin_m));

@@ -130,7 +130,7 @@ export function usePlanMap(onOpen: (session: BrowserSession) => void): void {
 }
 
 /** Selects a demo in the header and waits until its field has settled. */
-export async function loadDemo(page: Page, key: 'wellpoints' | 'deepwells' | 'clayplug'): Promise<void> {
+export async function loadDemo(page: Page, key: 'wellpoints' | 'deepwells' | 'clayplug' | 'neighbours'): Promise<void> {
   const before = await fieldsDrawn(page);
   await page.selectOption('select[name="demo"]', key);
   await settle(page, before);

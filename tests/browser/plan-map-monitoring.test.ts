@@ -80,23 +80,32 @@ describe('piezometers on the plan map', () => {
     await expect.poll(async () => (await piezometers(page))[2]?.alertOffset_m, WAIT).toBe(0.5);
 
     // The chart the site team will be given: expected curve, alert line, action level. PZ3 is
-    // outside pit-A, the only excavation, so the action level is pit-A's target (formation − margin).
+    // outside pit-A, the only excavation: it gets no default action level (issue 11.6 — the pit's
+    // target would call a reading exactly as designed "action"), and the hint says so.
     const chart = page.locator('monitoring-editor piezometer-chart');
     await expect.poll(() => chart.locator('path.dd-pz-expected').count(), WAIT).toBe(1);
     expect(await chart.locator('path.dd-pz-alert').count()).toBe(1);
-    // The action level applies from the design time (the end of this table): faint before, drawn from then on.
-    expect(await chart.locator('line.dd-pz-action:not(.dd-pz-action-before)').count()).toBe(1);
-    expect(await chart.locator('line.dd-pz-action-before').count()).toBe(1);
-    const target = demo.excavations[0]!.formationLevel_m - demo.excavations[0]!.margin_m;
-    const key = (await chart.locator('.dd-pz-key').innerText()).replace(/\s+/g, ' ');
+    expect(await chart.locator('line.dd-pz-action').count()).toBe(0);
+    expect(await page.locator('monitoring-editor .dd-field small').allInnerTexts()).toContainEqual(expect.stringContaining('outside every excavation'));
+    expect(await page.locator('monitoring-editor .dd-pz-clash').count()).toBe(0);
+    let key = (await chart.locator('.dd-pz-key').innerText()).replace(/\s+/g, ' ');
     expect(key).toContain('alert: expected + 0.50 m');
-    expect(key).toContain(`action ${target.toFixed(2)} m`);
+    expect(key).not.toContain('action');
     // The alert line runs 0.5 m above the expected curve: the same shape, shifted up on screen.
     const firstY = async (cls: string) => Number(/^M[\d.]+,([\d.]+)/.exec((await chart.locator(`path.${cls}`).getAttribute('d'))!)![1]);
     expect(await firstY('dd-pz-alert')).toBeLessThan(await firstY('dd-pz-expected'));
-    expect(await page.locator('monitoring-editor .dd-field small').allInnerTexts()).toContainEqual(expect.stringContaining('pit-A'));
-    // Outside the pit the design expects a level above the pit's target: the editor warns that the
-    // default action level would call for action on a reading that matches the design.
+    // The designer sets the pit's target as PZ3's action level: it applies from the design time
+    // (the end of this table), faint before, drawn from then on; and since the design expects a
+    // level above it outside the pit, the editor warns that a reading as designed calls for action.
+    const target = demo.excavations[0]!.formationLevel_m - demo.excavations[0]!.margin_m;
+    await page.fill('monitoring-editor input[name="pz-actionLevel_m"]', String(target));
+    await page.locator('monitoring-editor input[name="pz-actionLevel_m"]').blur();
+    await expect.poll(async () => (await piezometers(page))[2]?.actionLevel_m, WAIT).toBe(target);
+    await expect.poll(() => chart.locator('line.dd-pz-action:not(.dd-pz-action-before)').count(), WAIT).toBe(1);
+    expect(await chart.locator('line.dd-pz-action-before').count()).toBe(1);
+    key = (await chart.locator('.dd-pz-key').innerText()).replace(/\s+/g, ' ');
+    expect(key).toContain(`action ${target.toFixed(2)} m`);
+    await expect.poll(() => page.locator('monitoring-editor .dd-pz-clash').count(), WAIT).toBe(1);
     expect(await page.locator('monitoring-editor .dd-pz-clash').innerText()).toMatch(/above the action level\s+6\.50\sm: a reading that matches the design would already call for action/);
     await chart.scrollIntoViewIfNeeded();
     await s.screenshot('30-monitoring-piezometer');
@@ -105,7 +114,7 @@ describe('piezometers on the plan map', () => {
     await page.fill('monitoring-editor input[name="pz-x"]', 'east');
     await page.locator('monitoring-editor input[name="pz-x"]').blur();
     expect(await page.locator('monitoring-editor .dd-pz-input-error').innerText()).toBe('/monitoring/piezometers/2/x: easting "east" is not a number');
-    expect((await piezometers(page))[2]).toEqual({ ...placed, alertOffset_m: 0.5 });
+    expect((await piezometers(page))[2]).toEqual({ ...placed, alertOffset_m: 0.5, actionLevel_m: target });
     // The input shows what the scenario holds again, not the refused text.
     await expect.poll(async () => Math.abs(Number(await page.locator('monitoring-editor input[name="pz-x"]').inputValue()) - placed.x), WAIT).toBeLessThan(0.01);
     // A duplicate id is refused by validateMonitoring with its pointer.
@@ -133,9 +142,11 @@ describe('piezometers on the plan map', () => {
     await page.mouse.up();
     await expect.poll(async () => Math.abs(((await piezometers(page))[2]?.x ?? 0) - (placed.x - 5)), WAIT).toBeLessThan(0.2);
 
-    // Undo: the drag, the alert offset, the placement — then PZ3 is gone from the plan and the list.
+    // Undo: the drag, the action level, the alert offset, the placement — then PZ3 is gone from the plan and the list.
     await page.click('button[name="undo"]');
     await expect.poll(async () => (await piezometers(page))[2]?.x, WAIT).toBe(placed.x);
+    await page.click('button[name="undo"]');
+    await expect.poll(async () => (await piezometers(page))[2]?.actionLevel_m, WAIT).toBeUndefined();
     await page.click('button[name="undo"]');
     await expect.poll(async () => (await piezometers(page))[2]?.alertOffset_m, WAIT).toBeUndefined();
     await page.click('button[name="undo"]');

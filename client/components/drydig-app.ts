@@ -88,6 +88,8 @@ export interface DrydigTestHook {
   computes: Array<{ mode: 'coarse' | 'fine'; compute_ms: number; at: number }>;
   fieldsDrawn: number;
   busy(): boolean;
+  /** True while the plan shows a result that does not belong to the current inputs (greyed). */
+  fieldStale(): boolean;
 }
 
 export class DrydigApp extends LightElement {
@@ -169,6 +171,7 @@ export class DrydigApp extends LightElement {
       computes: [],
       fieldsDrawn: 0,
       busy: () => this.computing >= 0 || this.fineTimer !== 0,
+      fieldStale: () => this.controller?.field.stale ?? false,
     };
     (window as unknown as { __drydig: DrydigTestHook }).__drydig = this.hook;
   }
@@ -245,7 +248,7 @@ export class DrydigApp extends LightElement {
     this.scenario = s;
     this.cursor = '';
     if (kind === 'load') {
-      this.notice = '';
+      this.demo = Object.entries(DEMOS).find(([, d]) => d.scenario.name === s.name)?.[0] ?? '';
       this.wellId = null;
       this.excavationId = null;
       this.inspect = null;
@@ -271,6 +274,8 @@ export class DrydigApp extends LightElement {
     const v = validateScenario(this.scenario);
     // The monitoring plan is checked too: the server refuses to store a scenario whose plan is bad.
     this.issues = v.ok ? validateMonitoring(this.scenario) : v.issues;
+    // Results paused by a bad field: the last picture stays, greyed, so it is not read as current.
+    this.controller?.setFieldStale(this.issues.length > 0);
   }
 
   private syncMap(): void {
@@ -316,7 +321,7 @@ export class DrydigApp extends LightElement {
     return {
       formatLevel: (v: number) => formatQuantity(v, u.length, { decimals, withUnit: false }),
       staticLevel_m: this.scenario.aquifer.staticLevel_m,
-      maxDrawdown_m: r?.drawdownRange.max ?? 1,
+      maxDrawdown_m: r?.colourMax_m ?? r?.drawdownRange.max ?? 1,
     };
   }
 
@@ -337,6 +342,8 @@ export class DrydigApp extends LightElement {
           scenario: this.store.scenario, grid, time_s: this.time_s, quantity: this.quantity, step_m: view.contour?.step_m,
           levelUnit_m: toSi(1, this.units.length),
           pitNodes: mode === 'coarse' ? 17 : 41, strips: mode === 'coarse' ? 1 : 6,
+          // One colour scale along the time slider: the design time's drawdown range.
+          ...(this.times.length > 1 ? { scaleTime_s: this.scenario.design.time_s } : {}),
         },
         mode === 'fine' ? (f) => (this.computing = f < 1 ? f : -1) : undefined,
       );
@@ -643,12 +650,22 @@ export class DrydigApp extends LightElement {
     const viewIssues = checkViewSettings(v.scenario);
     const scenario = v.scenario as Scenario & { view?: unknown };
     if (viewIssues.length > 0) delete scenario.view;
-    this.demo = '';
-    this.storePanel()?.detach();
-    this.store.load(scenario);
-    this.say(viewIssues.length > 0
+    this.replaceScenario(scenario, `open ${file.name}`, viewIssues.length > 0
       ? `Opened ${file.name}; its view settings were ignored (${viewIssues[0]!.path} ${viewIssues[0]!.message}) — the design data is intact.`
       : `Opened ${file.name}.`);
+  }
+
+  /**
+   * Swaps in another scenario as one undo step: the one it replaces, unsaved edits and all,
+   * comes back with Undo (the notice says so). `detach` unlinks the Store tab from the stored
+   * scenario it was editing (not for a revision opened from the Store tab itself).
+   */
+  private replaceScenario(next: Scenario, label: string, said: string, detach = true): void {
+    const previous = this.store.scenario.name || 'the previous scenario';
+    const edited = this.store.canUndo;
+    if (detach) this.storePanel()?.detach();
+    this.store.replace(next, label);
+    this.say(`${said} ${edited ? `Your edits to “${previous}” are kept one step back` : `“${previous}” is one step back`}: Undo (Ctrl+Z) brings it back.`);
   }
 
   private saveFile(): void {
@@ -706,9 +723,7 @@ export class DrydigApp extends LightElement {
             const key = (e.target as HTMLSelectElement).value;
             const demo = DEMOS[key];
             if (!demo) return;
-            this.demo = key;
-            this.storePanel()?.detach();
-            this.store.load(demo.scenario);
+            this.replaceScenario(demo.scenario, `open ${demo.label}`, `Opened ${demo.label.replace(/^Demo: /, 'the demo ')}.`);
           }}>
             <option value="" ?selected=${this.demo === ''} disabled>Own scenario</option>
             ${Object.entries(DEMOS).map(([k, d]) => html`<option value=${k} ?selected=${this.demo === k}>${d.label}</option>`)}
@@ -739,14 +754,15 @@ export class DrydigApp extends LightElement {
             @map-dragWell=${this.onMapEvent} @map-selectPiezometer=${this.onMapEvent} @map-dragPiezometer=${this.onMapEvent} @map-dragVertex=${this.onMapEvent} @map-insertVertex=${this.onMapEvent} @map-drawnOutline=${this.onMapEvent}
             @map-drawnLine=${this.onMapEvent} @map-viewChanged=${this.onMapEvent} @map-focusExcavation=${this.onMapEvent}></plan-map>
           <div class="dd-map-top">
-            ${this.result ? html`<shortfall-badges .shortfall=${this.result.shortfall} .units=${u} ?stale=${this.computing >= 0}
+            ${this.result ? html`<shortfall-badges .shortfall=${this.result.shortfall} .units=${u} ?stale=${this.computing >= 0} ?paused=${this.issues.length > 0}
+              .designTime_s=${s.design.time_s}
               @focus-excavation=${(e: CustomEvent<string>) => this.focusExcavation(e.detail)}></shortfall-badges>` : nothing}
             ${this.issues.length > 0 ? html`<div class="dd-issues" role="alert"><strong>Results paused — the scenario needs fixing:</strong>
               <ul>${this.issues.slice(0, 5).map((i) => html`<li><code>${i.path || '/'}</code> ${i.message}</li>`)}</ul></div>` : nothing}
             ${this.engineError ? html`<div class="dd-issues" role="alert"><strong>Not computed:</strong> ${this.engineError}</div>` : nothing}
             ${this.tool !== 'select' ? html`<div class="dd-tool-hint" role="status">${TOOLS.find((t) => t[0] === this.tool)?.[2] ?? 'Click the map to pick the site point'} — Esc to stop</div>` : nothing}
           </div>
-          <map-legend .result=${this.result} .units=${u} .staticLevel_m=${s.aquifer.staticLevel_m} .computing=${this.computing}></map-legend>
+          <map-legend .result=${this.result} .units=${u} .staticLevel_m=${s.aquifer.staticLevel_m} .computing=${this.computing} ?paused=${this.issues.length > 0}></map-legend>
           <div class="dd-cursor" aria-live="off">${this.cursor || (this.projection && !this.projection.ok && s.crs ? this.projection.message : coordinateUnit({ crs: s.crs, proj4: s.proj4, units: u }).caption)}</div>
           ${this.notice ? html`<div class="dd-notice" role="status">${this.notice}</div>` : nothing}
           ${this.drawer ? this.renderDrawer(pitAtInspect ? pitAtInspect.formationLevel_m - pitAtInspect.margin_m : null) : nothing}
@@ -779,9 +795,7 @@ export class DrydigApp extends LightElement {
   private openStored(scenario: Scenario): void {
     const v = validateScenario(scenario);
     if (!v.ok) return this.say(`The stored scenario could not be opened — ${v.issues[0]?.path} ${v.issues[0]?.message}. Your current scenario is unchanged.`);
-    this.demo = '';
-    this.store.load(v.scenario);
-    this.say(`Opened the stored scenario “${v.scenario.name}”.`);
+    this.replaceScenario(v.scenario, `open stored “${v.scenario.name}”`, `Opened the stored scenario “${v.scenario.name}”.`, false);
   }
 
   private renderTab(times: Array<number | null>, ti: number, step: number | undefined) {
@@ -789,7 +803,7 @@ export class DrydigApp extends LightElement {
     const u = this.units;
     switch (this.tab) {
       case 'results':
-        return html`<results-panel .result=${this.result} .units=${u} .times=${times} .timeIndex=${ti} .quantity=${this.quantity} .step_m=${step}
+        return html`<results-panel .result=${this.result} .units=${u} .times=${times} .timeIndex=${ti} .quantity=${this.quantity} .step_m=${step} ?paused=${this.issues.length > 0}
           .error=${this.engineError}
           @quantity-change=${(e: CustomEvent<ContourQuantity>) => this.store.apply('contour quantity', (d) => setViewSettings(d, { contour: { ...getViewSettings(d).contour, quantity: e.detail } }))}
           @step-change=${(e: CustomEvent<number | undefined>) => this.store.apply('contour interval', (d) => setViewSettings(d, { contour: { ...getViewSettings(d).contour, step_m: e.detail } }))}

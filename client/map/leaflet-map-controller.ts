@@ -14,7 +14,8 @@ import { FieldCanvasLayer, type FieldStyle } from './field-canvas-layer';
 import { PlanGridLayer } from './plan-grid-layer';
 import { UnderlayLayer } from './underlay-layer';
 import { ProjectedTileLayer } from './projected-tile-layer';
-import { CRITICAL_COLOUR, INK, MET_COLOUR, SELECTION_COLOUR, SHORTFALL_COLOUR } from './colour-scale';
+import { CRITICAL_COLOUR, INK, SELECTION_COLOUR } from './colour-scale';
+import { SHORTFALL_SYMBOLS, type ShortfallKind } from './shortfall-symbols';
 
 /** The pointer tool in use. */
 export type MapTool = 'select' | 'add-well' | 'add-piezometer' | 'draw-excavation' | 'section' | 'boundary' | 'pick-point';
@@ -163,6 +164,13 @@ export class LeafletMapController {
   setField(result: FieldResult | null, style: FieldStyle): void {
     this.field.setResult(result, style);
     this.drawShortfallMarks(result);
+  }
+
+  /** Greys the field and the pit marks: the result shown is not for the current inputs. */
+  setFieldStale(stale: boolean): void {
+    if (this.field.stale === stale) return;
+    this.field.setStale(stale);
+    this.drawShortfallMarks(this.field.current);
   }
 
   setSection(line: SectionLine | null): void {
@@ -546,16 +554,17 @@ export class LeafletMapController {
     });
     if (!result) return;
     for (const s of result.shortfall) {
-      const met = s.met;
+      const kind: ShortfallKind = this.field.stale ? 'stale' : s.kind;
+      const sym = SHORTFALL_SYMBOLS[kind];
       const m = L.marker([s.worst.y, s.worst.x], {
         icon: L.divIcon({
-          className: `dd-worst ${met ? 'dd-worst-met' : 'dd-worst-short'}`,
-          html: `<span style="border-color:${met ? MET_COLOUR : SHORTFALL_COLOUR}">${met ? '▼' : '▲'}</span>`,
+          className: `dd-worst dd-worst-${kind} ${sym.pass ? 'dd-worst-met' : 'dd-worst-short'}`,
+          html: `<span style="border-color:${sym.colour};color:${sym.colour}">${sym.glyph}</span>`,
           iconSize: [16, 16],
         }),
         keyboard: false,
         bubblingMouseEvents: false,
-      }).bindTooltip(`${escapeHtml(s.id)}: highest level in the pit`, { direction: 'right', className: 'dd-tip' });
+      }).bindTooltip(`${escapeHtml(s.id)}: highest level in the pit — ${escapeHtml(sym.label)}`, { direction: 'right', className: 'dd-tip' });
       m.on('click', () => this.cb.focusExcavation(s.id));
       (m as L.Layer & { ddKind?: string }).ddKind = 'worst';
       m.addTo(this.markLayer);

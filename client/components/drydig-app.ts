@@ -18,7 +18,9 @@ import { MAX_PIEZOMETERS, deletePiezometer, getPiezometers, placePiezometer } fr
 import { EngineClient, EngineError, type FieldResult, type InspectResult, type SectionResult } from '../worker';
 import { resolveSiteProjection, formatLonLat, type ProjectionProblem, type SiteProjection } from '../crs';
 import type { LeafletMapController, MapTool } from '../map';
-import { nextWellIds } from '../layout';
+import type { TileStatus } from '../map/projected-tile-layer';
+import { nextWellIds, screenFields, screenOfKind, type WellScreen } from '../layout';
+import { displayValue, parseDisplayNumber } from './unit-context';
 import { formatDuration } from './time-format';
 import { stepDecimals } from './step-decimals';
 import { methodName } from './results-panel';
@@ -81,7 +83,10 @@ const COARSE_TARGET_MS = 20;
 /** The read-only test hook (`window.__drydig`): counts and state, never a way to edit. */
 export interface DrydigTestHook {
   scenario(): Scenario;
-  result(): { id: number; levels: number; shortfall: Array<{ id: string; met: boolean; worstShortfall_m: number }>; time_s: number | null } | null;
+  result(): {
+    id: number; levels: number; time_s: number | null; colourMax_m: number; drawdownMax_m: number;
+    shortfall: Array<{ id: string; met: boolean; kind: string; worstShortfall_m: number; area_m2: number; time_s: number | null }>;
+  } | null;
   pagePoint(x: number, y: number): { x: number; y: number } | null;
   latencies_ms: number[];
   /** Worker compute time of each result drawn, ms, with its kind. */
@@ -98,7 +103,7 @@ export class DrydigApp extends LightElement {
     result: { state: true }, computing: { state: true }, engineError: { state: true }, issues: { state: true },
     timeIndex: { state: true }, cursor: { state: true }, notice: { state: true }, inspect: { state: true },
     section: { state: true }, drawer: { state: true }, demo: { state: true }, newWell: { state: true },
-    piezometerId: { state: true },
+    piezometerId: { state: true }, newWellScreen: { state: true }, tileStatus: { state: true },
   };
   declare scenario: Scenario;
   declare tab: Tab;
@@ -117,6 +122,10 @@ export class DrydigApp extends LightElement {
   declare drawer: 'inspect' | 'section' | null;
   declare demo: string;
   declare newWell: { kind: WellKind; radius_m: number; rate_m3_s: number };
+  /** Screen of new wells as the user set it; null: like the wells of that kind already placed. */
+  declare newWellScreen: WellScreen | null;
+  /** How the background map tiles load (the Backdrop tab explains failures). */
+  declare tileStatus: TileStatus | null;
   /** Selected piezometer of the monitoring plan. */
   declare piezometerId: string | null;
 
@@ -159,12 +168,15 @@ export class DrydigApp extends LightElement {
     this.section = null;
     this.drawer = null;
     this.newWell = { kind: 'wellpoint', radius_m: 0.05, rate_m3_s: 0.0006 };
+    this.newWellScreen = null;
+    this.tileStatus = null;
     this.store.subscribe((s, kind) => this.onStoreChange(s, kind));
     this.hook = {
       scenario: () => structuredClone(this.store.scenario),
       result: () => this.result && {
         id: this.result.id, levels: this.result.levels.length, time_s: this.result.time_s,
-        shortfall: this.result.shortfall.map((s) => ({ id: s.id, met: s.met, worstShortfall_m: s.worstShortfall_m })),
+        colourMax_m: this.result.colourMax_m, drawdownMax_m: this.result.drawdownRange.max,
+        shortfall: this.result.shortfall.map((s) => ({ id: s.id, met: s.met, kind: s.kind, worstShortfall_m: s.worstShortfall_m, area_m2: s.area_m2, time_s: s.time_s })),
       },
       pagePoint: (x, y) => this.controller?.pagePoint(x, y) ?? null,
       latencies_ms: [],
@@ -229,6 +241,11 @@ export class DrydigApp extends LightElement {
 
   private onMapReady(controller: LeafletMapController): void {
     this.controller = controller;
+    this.controller.onTileStatus((st) => {
+      const first = st.failed === 1 && st.loaded === 0;
+      this.tileStatus = st;
+      if (first) this.say('Map tiles could not be loaded: see the Backdrop tab for how to allow the tile origin.');
+    });
     this.controller.fitScenario(this.scenario);
     this.syncMap();
     this.validate();
@@ -248,6 +265,7 @@ export class DrydigApp extends LightElement {
     this.scenario = s;
     this.cursor = '';
     if (kind === 'load') {
+      this.newWellScreen = null;
       this.demo = Object.entries(DEMOS).find(([, d]) => d.scenario.name === s.name)?.[0] ?? '';
       this.wellId = null;
       this.excavationId = null;
@@ -531,10 +549,30 @@ export class DrydigApp extends LightElement {
     if (s.wells.length >= 5000) return this.say('The scenario holds at most 5000 wells.');
     const prefix = this.newWell.kind === 'deep' ? 'DW' : this.newWell.kind === 'ejector' ? 'EJ' : 'WP';
     const [id] = nextWellIds(prefix, 1, new Set(s.wells.map((w) => w.id)));
-    const well: Well = { id: id!, x, y, radius_m: this.newWell.radius_m, kind: this.newWell.kind, rate_m3_s: this.newWell.rate_m3_s };
+    const well: Well = { id: id!, x, y, radius_m: this.newWell.radius_m, kind: this.newWell.kind, rate_m3_s: this.newWell.rate_m3_s, ...screenFields(this.newScreen) };
     this.store.apply(`place ${id}`, (d) => void d.wells.push(well));
     this.wellId = id!;
     this.controller?.setScenario(this.scenario, { wellId: this.wellId, excavationId: this.excavationId });
+  }
+
+  /** The screen new wells get: the user's, else that of the wells of the same kind already placed. */
+  private get newScreen(): WellScreen {
+    return this.newWellScreen ?? screenOfKind(this.scenario, this.newWell.kind);
+  }
+
+  private setNewScreen(key: keyof WellScreen, text: string): void {
+    const next = { ...this.newScreen };
+    if (text.trim() === '') delete next[key];
+    else {
+      const label = key === 'screenTop_m' ? 'screen top of new wells' : 'screen bottom of new wells';
+      const p = parseDisplayNumber(text, this.units.length, label, label);
+      if (!p.ok) return this.say(`The ${label} must be a number (an elevation); it was not changed.`);
+      next[key] = p.value_si;
+    }
+    if (next.screenTop_m !== undefined && next.screenBottom_m !== undefined && next.screenTop_m <= next.screenBottom_m) {
+      return this.say('The screen top of new wells must lie above their screen bottom; it was not changed.');
+    }
+    this.newWellScreen = next;
   }
 
   private deleteWell(id: string): void {
@@ -729,7 +767,7 @@ export class DrydigApp extends LightElement {
             ${Object.entries(DEMOS).map(([k, d]) => html`<option value=${k} ?selected=${this.demo === k}>${d.label}</option>`)}
           </select>
           <label class="dd-button-like">Open…<input type="file" name="open-scenario" accept=".json,application/json" hidden @change=${(e: Event) => void this.openFile(e)} /></label>
-          <button type="button" name="save" @click=${() => this.saveFile()}>Save</button>
+          <button type="button" name="save" title="Download the scenario as a .drydig.json file to this computer (the Store tab keeps revisions on the server)" @click=${() => this.saveFile()}>Download file</button>
         </div>
         <div class="dd-group">
           <button type="button" name="undo" ?disabled=${!this.store.canUndo} title=${this.store.undoLabel ? `Undo ${this.store.undoLabel} (Ctrl+Z)` : 'Nothing to undo'} @click=${() => this.store.undo()}>↶ Undo</button>
@@ -822,7 +860,7 @@ export class DrydigApp extends LightElement {
       case 'section':
         return html`<seepage-panel .scenario=${s} .engine=${this.engine} .planTotal_m3_s=${this.designTotal_m3_s}></seepage-panel>`;
       case 'backdrop':
-        return html`<backdrop-panel .store=${this.store} .scenario=${s} .units=${u} .projection=${this.projection}
+        return html`<backdrop-panel .store=${this.store} .scenario=${s} .units=${u} .projection=${this.projection} .tileStatus=${this.tileStatus}
           @pick-underlay-ref=${(e: CustomEvent<0 | 1>) => {
             this.pickingRef = e.detail;
             this.setTool('pick-point');
@@ -845,12 +883,20 @@ export class DrydigApp extends LightElement {
           <select aria-label="Kind of new wells" @change=${(e: Event) => {
             const kind = (e.target as HTMLSelectElement).value as WellKind;
             this.newWell = { ...this.newWell, kind, radius_m: kind === 'deep' ? 0.15 : kind === 'ejector' ? 0.05 : 0.05, rate_m3_s: kind === 'deep' ? 0.01 : 0.0006 };
+            this.newWellScreen = null;
           }}>
             <option value="wellpoint" ?selected=${this.newWell.kind === 'wellpoint'}>Well point</option>
             <option value="deep" ?selected=${this.newWell.kind === 'deep'}>Deep well</option>
             <option value="ejector" ?selected=${this.newWell.kind === 'ejector'}>Ejector</option></select>
           <small>${formatQuantity(this.newWell.rate_m3_s, u.rate)} each, r = ${formatQuantity(this.newWell.radius_m, u.length, { significant: 2 })}</small>
-          <button type="button" class="dd-small" @click=${() => this.setTool('add-well')}>Place…</button></div>
+          <button type="button" class="dd-small" @click=${() => this.setTool('add-well')}>Place…</button>
+          <div class="dd-form-row dd-new-well-screen">
+            <label class="dd-field"><span>Screen top</span><span class="dd-input-unit"><input type="text" inputmode="decimal" name="new-screen-top" placeholder="full" aria-label="Screen top of new wells"
+              .value=${displayValue(this.newScreen.screenTop_m, u.length)} @change=${(e: Event) => this.setNewScreen('screenTop_m', (e.target as HTMLInputElement).value)} /><em>${u.length}</em></span></label>
+            <label class="dd-field"><span>Screen bottom</span><span class="dd-input-unit"><input type="text" inputmode="decimal" name="new-screen-bottom" placeholder="full" aria-label="Screen bottom of new wells"
+              .value=${displayValue(this.newScreen.screenBottom_m, u.length)} @change=${(e: Event) => this.setNewScreen('screenBottom_m', (e.target as HTMLInputElement).value)} /><em>${u.length}</em></span></label>
+          </div>
+          <small class="dd-hint">${this.newWellScreen ? 'Screen as set here.' : Object.keys(this.newScreen).length ? 'Screen as the wells of this kind already placed (edit to change).' : 'No screen given: full thickness.'}</small></div>
         <ul class="dd-list dd-well-list" aria-label="Wells">${s.wells.slice(0, 400).map((w) => html`<li>
           <button type="button" class=${w.id === this.wellId ? 'dd-on' : ''} data-well=${w.id} @click=${() => {
             this.wellId = w.id;
@@ -866,7 +912,7 @@ export class DrydigApp extends LightElement {
       <details open class="dd-section-block"><summary><h3>Ring of wells</h3></summary>
         <ring-generator .store=${this.store} .scenario=${s} .units=${u}
           @ring-preview=${(e: CustomEvent<{ positions: Array<[number, number]>; path: Array<[number, number]> } | null>) => this.controller?.setRingPreview(e.detail?.positions ?? null, e.detail?.path)}
-          @ring-placed=${(e: CustomEvent<{ count: number; first: string; last: string }>) => this.say(`Placed ${e.detail.count} wells, ${e.detail.first} to ${e.detail.last}.`)}></ring-generator>
+          @ring-placed=${(e: CustomEvent<{ count: number; first: string; last: string; skipped: number }>) => this.say(`Placed ${e.detail.count} wells, ${e.detail.first} to ${e.detail.last}${e.detail.skipped ? `; skipped ${e.detail.skipped} positions next to existing wells` : ''}.`)}></ring-generator>
       </details>
       <details open class="dd-section-block"><summary><h3>Excavations <small>${s.excavations.length}</small></h3></summary>
         <excavation-editor .store=${this.store} .scenario=${s} .units=${u} .excavationId=${this.excavationId} .projection=${this.projection?.ok ? this.projection : null}

@@ -13,7 +13,7 @@ import type { SiteProjection } from '../crs';
 import { FieldCanvasLayer, type FieldStyle } from './field-canvas-layer';
 import { PlanGridLayer } from './plan-grid-layer';
 import { UnderlayLayer } from './underlay-layer';
-import { ProjectedTileLayer } from './projected-tile-layer';
+import { ProjectedTileLayer, type TileStatus } from './projected-tile-layer';
 import { CRITICAL_COLOUR, INK, SELECTION_COLOUR } from './colour-scale';
 import { SHORTFALL_SYMBOLS, type ShortfallKind } from './shortfall-symbols';
 
@@ -229,6 +229,11 @@ export class LeafletMapController {
 
   setTiles(template: string | null, projection: SiteProjection | null): void {
     this.tiles.setSource(template, projection);
+  }
+
+  /** Listens to how the background tiles load (a blocked tile origin only shows as failures). */
+  onTileStatus(listener: ((status: TileStatus) => void) | null): void {
+    this.tiles.onStatus = listener;
   }
 
   /** Frames the excavations and wells (or the whole scenario) with a margin. */

@@ -139,6 +139,8 @@ export class DrydigApp extends LightElement {
   /** Times of drag inputs not yet reflected on screen (for the input-to-contours measure). */
   private unshownInputs: number[] = [];
   private lastDrawnId = 0;
+  /** Counts whole-scenario swaps: a result computed for the scenario before a swap is never drawn. */
+  private loadGeneration = 0;
   /** Current coarse-grid size, adapted to the measured worker time (machine speed, well count). */
   private coarseNodes = COARSE_NODES_START;
   private engineKey = '';
@@ -265,6 +267,7 @@ export class DrydigApp extends LightElement {
     this.scenario = s;
     this.cursor = '';
     if (kind === 'load') {
+      this.loadGeneration++;
       this.newWellScreen = null;
       this.demo = Object.entries(DEMOS).find(([, d]) => d.scenario.name === s.name)?.[0] ?? '';
       this.wellId = null;
@@ -352,6 +355,7 @@ export class DrydigApp extends LightElement {
       return;
     }
     const issuedAt = performance.now();
+    const generation = this.loadGeneration;
     const grid = c.viewGrid(mode === 'coarse' ? this.coarseNodes : FINE_NODES);
     const view = getViewSettings(this.scenario);
     try {
@@ -372,7 +376,7 @@ export class DrydigApp extends LightElement {
         const next = this.coarseNodes * Math.min(1.25, Math.max(0.7, factor));
         this.coarseNodes = Math.round(Math.min(COARSE_NODES_MAX, Math.max(COARSE_NODES_MIN, next)));
       }
-      if (!res || res.id < this.lastDrawnId) return;
+      if (!res || res.id < this.lastDrawnId || generation !== this.loadGeneration) return;
       this.lastDrawnId = res.id;
       this.engineError = '';
       this.result = res;
@@ -450,9 +454,10 @@ export class DrydigApp extends LightElement {
         return;
       }
       case 'map-selectExcavation': {
+        // A click inside a pit selects it (outline handles) and inspects the point; the side
+        // panel stays where the user is (the pit's editor is one tab away, Layout).
         const [id] = a as [string | null];
         this.excavationId = id;
-        if (id) this.tab = 'layout';
         this.controller?.setScenario(this.scenario, { wellId: this.wellId, excavationId: this.excavationId });
         return;
       }
@@ -924,6 +929,24 @@ export class DrydigApp extends LightElement {
           }}></excavation-editor>
       </details>
     </div>`;
+  }
+
+  /** After the drawer opens or changes: keep the inspected point or the section's ends in view above it. */
+  private drawerKey = '';
+  private drawerFrame = 0;
+  protected override updated(): void {
+    // Measured on the next frame, once the drawer's charts have rendered (they change its height).
+    if (this.drawerFrame) return;
+    this.drawerFrame = requestAnimationFrame(() => {
+      this.drawerFrame = 0;
+      const drawer = this.drawer ? this.querySelector<HTMLElement>('.dd-drawer') : null;
+      const sec = getViewSettings(this.scenario).sections?.[0];
+      const pts: Array<[number, number]> = this.drawer === 'inspect' && this.inspect ? [this.inspect.point] : this.drawer === 'section' && sec ? [sec.from, sec.to] : [];
+      const key = drawer ? `${this.drawer}:${JSON.stringify(pts)}:${drawer.offsetHeight}` : '';
+      if (key === this.drawerKey) return;
+      this.drawerKey = key;
+      if (drawer && pts.length > 0) this.controller?.keepClearOf(pts, drawer.offsetHeight + 82);
+    });
   }
 
   private renderDrawer(target_m: number | null) {

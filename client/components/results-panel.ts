@@ -76,6 +76,8 @@ export class ResultsPanel extends LightElement {
           ${r.levels.length} contours at ${r.levels.length > 1 ? formatQuantity(r.levels[1]! - r.levels[0]!, u.length, { significant: 2 }) : '—'}.
           Method: ${methodName(r.model.method)}${r.model.influenceRadius_m ? `, R = ${formatQuantity(r.model.influenceRadius_m, u.length, { significant: 3 })} (${r.model.influenceRadiusSource})` : ''};
           T = ${formatQuantity(r.model.transmissivity_m2_s, u.transmissivity)}.</p>
+        ${r.levelsWanted ? html`<p class="dd-warn" data-note="levels-capped" role="status">That contour interval would need ${r.levelsWanted} contours over this range; they are drawn every
+          ${formatQuantity(r.levels.length > 1 ? Math.abs(r.levels[1]! - r.levels[0]!) : 0, u.length, { significant: 3 })} instead (at most 60). Choose a larger interval, or leave it blank for automatic.</p>` : nothing}
         ${this.renderFlags(r)}
         <caution-note .notes=${r.model.notes}></caution-note>` : html`<caution-note></caution-note>`}
     </div>`;

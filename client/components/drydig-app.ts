@@ -931,21 +931,34 @@ export class DrydigApp extends LightElement {
     </div>`;
   }
 
-  /** After the drawer opens or changes: keep the inspected point or the section's ends in view above it. */
-  private drawerKey = '';
   private drawerFrame = 0;
+  /**
+   * After a render: the Point/Section drawer sits at the foot of the map unless that would hide
+   * the inspected point or a section end while the top would not; then it moves up, under the
+   * badges. The map itself never moves under the user. Measured on the next frame, once the
+   * drawer's charts have rendered (they set its height).
+   */
   protected override updated(): void {
-    // Measured on the next frame, once the drawer's charts have rendered (they change its height).
     if (this.drawerFrame) return;
     this.drawerFrame = requestAnimationFrame(() => {
       this.drawerFrame = 0;
       const drawer = this.drawer ? this.querySelector<HTMLElement>('.dd-drawer') : null;
+      const area = this.querySelector<HTMLElement>('.dd-map-area');
+      const c = this.controller;
+      if (!drawer || !area || !c) return;
       const sec = getViewSettings(this.scenario).sections?.[0];
-      const pts: Array<[number, number]> = this.drawer === 'inspect' && this.inspect ? [this.inspect.point] : this.drawer === 'section' && sec ? [sec.from, sec.to] : [];
-      const key = drawer ? `${this.drawer}:${JSON.stringify(pts)}:${drawer.offsetHeight}` : '';
-      if (key === this.drawerKey) return;
-      this.drawerKey = key;
-      if (drawer && pts.length > 0) this.controller?.keepClearOf(pts, drawer.offsetHeight + 82);
+      const pts = this.drawer === 'inspect' && this.inspect ? [this.inspect.point] : this.drawer === 'section' && sec ? [sec.from, sec.to] : [];
+      const h = drawer.offsetHeight;
+      const w = drawer.offsetWidth + 10;
+      const topStart = (this.querySelector<HTMLElement>('.dd-map-top')?.offsetHeight ?? 0) + 20;
+      const bottomStart = area.clientHeight - 82 - h;
+      const hidden = (y0: number) => pts.some(([x, y]) => {
+        const p = c.containerPoint(x, y);
+        return p.x >= 0 && p.x <= w + 12 && p.y >= y0 - 12 && p.y <= y0 + h + 12;
+      });
+      const atTop = hidden(bottomStart) && !hidden(topStart);
+      drawer.classList.toggle('dd-drawer-top', atTop);
+      drawer.style.top = atTop ? `${topStart}px` : '';
     });
   }
 

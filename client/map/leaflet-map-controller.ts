@@ -260,28 +260,10 @@ export class LeafletMapController {
     this.map.fitBounds(b, { animate: false, padding: [30, 30] });
   }
 
-  /**
-   * Pans (or zooms out) so the points stay in view above a panel covering the bottom `coveredPx`
-   * of the map (the Point/Section drawer), so it never hides what it describes.
-   */
-  keepClearOf(points: ReadonlyArray<readonly [number, number]>, coveredPx: number): void {
-    if (points.length === 0) return;
-    const size = this.map.getSize();
-    const ys = points.map(([x, y]) => this.map.latLngToContainerPoint([y, x]).y);
-    const xs = points.map(([x, y]) => this.map.latLngToContainerPoint([y, x]).x);
-    const top = 70;
-    const limit = size.y - coveredPx - 24;
-    const lowest = Math.max(...ys);
-    const highest = Math.min(...ys);
-    const inX = Math.min(...xs) >= 10 && Math.max(...xs) <= size.x - 10;
-    if (lowest <= limit && highest >= top && inX) return;
-    if (lowest - highest <= limit - top && inX) {
-      this.map.panBy([0, lowest > limit ? lowest - limit : highest - top], { animate: false });
-      return;
-    }
-    this.map.fitBounds(L.latLngBounds(points.map(([x, y]) => L.latLng(y, x))), {
-      animate: false, paddingTopLeft: [40, top], paddingBottomRight: [60, coveredPx + 30],
-    });
+  /** Map-container position of a site point, px (for placing panels clear of what they describe). */
+  containerPoint(x: number, y: number): { x: number; y: number } {
+    const p = this.map.latLngToContainerPoint([y, x]);
+    return { x: p.x, y: p.y };
   }
 
   panTo(x: number, y: number): void {

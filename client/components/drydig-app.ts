@@ -704,11 +704,12 @@ export class DrydigApp extends LightElement {
    * scenario it was editing (not for a revision opened from the Store tab itself).
    */
   private replaceScenario(next: Scenario, label: string, said: string, detach = true): void {
-    const previous = this.store.scenario.name || 'the previous scenario';
-    const edited = this.store.canUndo;
+    const name = this.store.scenario.name || 'the previous scenario';
+    const previous = name.length > 40 ? `${name.slice(0, 38)}…` : name;
+    const edited = this.store.canUndo && !this.store.undoIsReplace;
     if (detach) this.storePanel()?.detach();
     this.store.replace(next, label);
-    this.say(`${said} ${edited ? `Your edits to “${previous}” are kept one step back` : `“${previous}” is one step back`}: Undo (Ctrl+Z) brings it back.`);
+    this.say(`${said} Undo (Ctrl+Z) brings back “${previous}”${edited ? ' with your edits' : ''}.`);
   }
 
   private saveFile(): void {
@@ -766,7 +767,7 @@ export class DrydigApp extends LightElement {
             const key = (e.target as HTMLSelectElement).value;
             const demo = DEMOS[key];
             if (!demo) return;
-            this.replaceScenario(demo.scenario, `open ${demo.label}`, `Opened ${demo.label.replace(/^Demo: /, 'the demo ')}.`);
+            this.replaceScenario(demo.scenario, `open ${demo.label}`, `Opened the ${/\(([^)]+)\)$/.exec(demo.label)?.[1] ?? ''} demo.`);
           }}>
             <option value="" ?selected=${this.demo === ''} disabled>Own scenario</option>
             ${Object.entries(DEMOS).map(([k, d]) => html`<option value=${k} ?selected=${this.demo === k}>${d.label}</option>`)}

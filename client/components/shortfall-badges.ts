@@ -52,7 +52,7 @@ export class ShortfallBadges extends LightElement {
             title="Go to the highest computed level in ${s.id}" @click=${() => this.emit('focus-excavation', s.id)}>
           <span class="dd-badge-icon" data-kind=${kind} aria-hidden="true" style="color:${sym.colour}">${sym.glyph}</span>
           <span class="dd-badge-text"><strong>${s.id}</strong> ${this.renderState(kind, s)}
-          <small>${kind === 'stale' ? 'Results paused: fix the field named above; this is the last result, for older inputs' : html`worst at ${where} · ${this.when(s.time_s)}${s.kind === 'above-target' || s.kind === 'floor-unsafe' ? ` · ${Math.round(s.areaFraction * 100)} % of the pit above target` : ''}${this.floorWords(s)}${s.flags.length ? ` · flags: ${s.flags.join(', ')}` : ''}`}</small></span>
+          <small>${kind === 'stale' ? 'Results paused: fix the field named above; this is the last result, for older inputs' : html`worst at ${where} · ${this.when(s.time_s)}${s.kind === 'above-target' ? ` · ${Math.round(s.areaFraction * 100)} % of the pit above target` : s.kind === 'floor-unsafe' ? ` · ${Math.round(s.areaFraction * 100)} % of the pit over the ${s.governing === 'heave' ? 'heave' : 'uplift'} limit` : ''}${this.floorWords(s)}${s.flags.length ? ` · flags: ${s.flags.join(', ')}` : ''}`}</small></span>
         </button>`;
       })}
     </div>`;

@@ -56,6 +56,11 @@ export class ScenarioStore {
     return this.past[this.past.length - 1]?.label;
   }
 
+  /** True when the step `undo` would revert swapped the whole scenario (`replace`). */
+  get undoIsReplace(): boolean {
+    return this.past[this.past.length - 1]?.whole === true;
+  }
+
   get redoLabel(): string | undefined {
     return this.future[this.future.length - 1]?.label;
   }

@@ -285,8 +285,9 @@ describe('issue 13: the confusing parts', () => {
     await page.fill('input[name="contour-step"]', '0.0001');
     await page.locator('input[name="contour-step"]').blur();
     await settle(page, before);
-    const r = await page.evaluate(() => (window as unknown as { __drydig: { result(): { levels: number } } }).__drydig.result());
-    expect(r.levels).toBeGreaterThan(20);
+    const levels = () => page.evaluate(() => (window as unknown as { __drydig: { result(): { levels: number } } }).__drydig.result().levels);
+    await expect.poll(levels, { timeout: 30_000 }).toBeGreaterThan(20);
+    const r = { levels: await levels() };
     expect(r.levels).toBeLessThanOrEqual(61);
     expect(await page.locator('map-legend [data-note="levels-capped"]').innerText()).toMatch(/needs \d+ contours; drawn every/);
     expect(await page.locator('results-panel [data-note="levels-capped"]').innerText()).toMatch(/at most 60/);

@@ -11,23 +11,27 @@ import type { DisplayUnits } from '../../shared/units';
 import { getViewSettings, setViewSettings, type ScenarioStore, type UnderlaySettings } from '../state';
 import type { ProjectionProblem, SiteProjection } from '../crs';
 import { similarityFromRefs } from '../map/affine-image';
+import type { TileStatus } from '../map/projected-tile-layer';
 import { displayValue, parseDisplayNumber } from './unit-context';
 
 export class BackdropPanel extends LightElement {
   static override properties = {
     store: { attribute: false }, scenario: { attribute: false }, units: { attribute: false },
-    projection: { attribute: false }, error: { state: true },
+    projection: { attribute: false }, error: { state: true }, tileStatus: { attribute: false },
   };
   declare store: ScenarioStore | undefined;
   declare scenario: Scenario | undefined;
   declare units: DisplayUnits;
   declare projection: SiteProjection | ProjectionProblem | null;
   declare error: string;
+  /** How the web-map tiles are loading (null: no tile source). */
+  declare tileStatus: TileStatus | null;
 
   constructor() {
     super();
     this.projection = null;
     this.error = '';
+    this.tileStatus = null;
   }
 
   private setCrs(text: string): void {
@@ -139,8 +143,21 @@ export class BackdropPanel extends LightElement {
           this.store?.apply(v ? 'set tile URL' : 'clear tile URL', (d) => setViewSettings(d, { tileUrl: v || undefined }));
         }} /></label>
       <p class="dd-hint">${proj?.ok ? 'Web Mercator tiles are reprojected into the site grid tile by tile. Respect the tile provider’s terms and show its attribution on exports.' : 'Needs a georeferenced scenario (a known CRS or a proj4 definition).'}</p>
+      ${this.renderTileStatus(view.tileUrl)}
       ${this.error ? html`<p class="dd-error" role="alert">${this.error}</p>` : nothing}
     </div>`;
+  }
+
+  /** Tiles that all fail are nearly always an origin the page may not load from: say how to allow it. */
+  private renderTileStatus(tileUrl: string | undefined) {
+    const st = this.tileStatus;
+    if (!tileUrl || !st || st.failed === 0) return nothing;
+    const origin = st.origin || 'the tile server';
+    return html`<div class="dd-warn dd-tile-problem" role="alert" data-tiles-failed=${st.failed}>
+      <strong>${st.loaded === 0 ? 'No map tiles could be loaded' : `${st.failed} map tiles could not be loaded`} from ${origin}.</strong>
+      This page only loads images from origins its server allows. Ask whoever runs drydig to allow this one
+      (<code>drydig serve --tile-origin ${origin}</code>, or the <code>DRYDIG_TILE_ORIGIN</code> setting), and check that the URL
+      is right, this computer is online and the provider's terms permit the use. The plan grid works without tiles.</div>`;
   }
 }
 if (!customElements.get('backdrop-panel')) customElements.define('backdrop-panel', BackdropPanel);

@@ -119,18 +119,21 @@ function inUnit(value_si: number | null | undefined, unit: UnitId, options: Pick
 }
 
 /**
- * Whether two scenarios pose the same design problem: identical but for `view` (display units,
- * contour settings), compared by reference so any doubt counts as a change and marks the result stale.
+ * Whether `now` poses the same design problem as `designed` (the scenario the design ran on):
+ * identical but for `view` (display units, contour settings) and for well rates that are either
+ * unchanged or the design's own (its "Apply rates"). Compared by value (edits copy the scenario).
  */
-function sameDesignInput(a: Scenario | undefined, b: Scenario | undefined): boolean {
-  if (a === b) return true;
-  if (!a || !b) return false;
-  const ra = a as Record<string, unknown>;
-  const rb = b as Record<string, unknown>;
-  const keys = new Set([...Object.keys(ra), ...Object.keys(rb)]);
-  keys.delete('view');
-  for (const k of keys) if (ra[k] !== rb[k]) return false;
-  return true;
+export function sameDesignInput(now: Scenario | undefined, designed: Scenario | undefined, designRates: ReadonlyMap<string, number> = new Map()): boolean {
+  if (now === designed) return true;
+  if (!now || !designed) return false;
+  const withoutRates = (s: Scenario) => JSON.stringify({ ...s, view: undefined, wells: s.wells.map(({ rate_m3_s: _r, schedule: _s, ...w }) => w) });
+  if (withoutRates(now) !== withoutRates(designed)) return false;
+  return now.wells.every((w, i) => {
+    const o = designed.wells[i]!;
+    const unchanged = w.rate_m3_s === o.rate_m3_s && JSON.stringify(w.schedule) === JSON.stringify(o.schedule);
+    const applied = w.schedule === undefined && w.rate_m3_s !== undefined && designRates.get(w.id) === w.rate_m3_s;
+    return unchanged || applied;
+  });
 }
 
 /** True when the display rate unit is metric: the panel then gives L/s with m³/h, the two units pumps are sized in. */
@@ -220,7 +223,10 @@ export class DesignPanel extends LightElement {
   }
 
   protected override willUpdate(changed: Map<string, unknown>): void {
-    if (changed.has('scenario') && this.result !== null) this.stale = !sameDesignInput(this.scenario, this.resultFor);
+    if (changed.has('scenario') && this.result !== null) {
+      const rates = new Map((this.result.wells ?? []).map((w) => [w.id, w.rate_m3_s] as const));
+      this.stale = !sameDesignInput(this.scenario, this.resultFor, rates);
+    }
   }
 
   /** Options to send: only the fields the user filled in, converted to SI; a bad entry is reported, not guessed. */
@@ -345,8 +351,8 @@ export class DesignPanel extends LightElement {
     const text = await res.text();
     const parsed = text ? (JSON.parse(text) as unknown) : null;
     if (!res.ok) {
-      const e = (parsed as { error?: { message?: string; fix?: string } } | null)?.error;
-      return { ok: false, message: e?.message ? `${e.message}${e.fix ? `. ${e.fix}` : ''}` : `The design service answered ${res.status}.` };
+      const e = (parsed as { error?: ErrorBodyLike } | null)?.error;
+      return { ok: false, message: e?.message ? describeErrorPlainly(e) : `The design service answered ${res.status}.` };
     }
     return { ok: true, body: parsed };
   }

@@ -23,7 +23,9 @@ import './receptor-editor';
 import { EngineClient, EngineError, type FieldResult, type InspectResult, type SectionResult } from '../worker';
 import { resolveSiteProjection, formatLonLat, type ProjectionProblem, type SiteProjection } from '../crs';
 import type { LeafletMapController, MapTool } from '../map';
-import { nextWellIds } from '../layout';
+import type { TileStatus } from '../map/projected-tile-layer';
+import { nextWellIds, screenFields, screenOfKind, type WellScreen } from '../layout';
+import { displayValue, parseDisplayNumber } from './unit-context';
 import { formatDuration } from './time-format';
 import { stepDecimals } from './step-decimals';
 import { methodName } from './results-panel';
@@ -92,13 +94,18 @@ const COARSE_TARGET_MS = 20;
 /** The read-only test hook (`window.__drydig`): counts and state, never a way to edit. */
 export interface DrydigTestHook {
   scenario(): Scenario;
-  result(): { id: number; levels: number; shortfall: Array<{ id: string; met: boolean; worstShortfall_m: number }>; time_s: number | null } | null;
+  result(): {
+    id: number; levels: number; time_s: number | null; colourMax_m: number; drawdownMax_m: number;
+    shortfall: Array<{ id: string; met: boolean; kind: string; worstShortfall_m: number; area_m2: number; time_s: number | null }>;
+  } | null;
   pagePoint(x: number, y: number): { x: number; y: number } | null;
   latencies_ms: number[];
   /** Worker compute time of each result drawn, ms, with its kind. */
   computes: Array<{ mode: 'coarse' | 'fine'; compute_ms: number; at: number }>;
   fieldsDrawn: number;
   busy(): boolean;
+  /** True while the plan shows a result that does not belong to the current inputs (greyed). */
+  fieldStale(): boolean;
 }
 
 export class DrydigApp extends LightElement {
@@ -107,7 +114,7 @@ export class DrydigApp extends LightElement {
     result: { state: true }, computing: { state: true }, engineError: { state: true }, issues: { state: true },
     timeIndex: { state: true }, cursor: { state: true }, notice: { state: true }, inspect: { state: true },
     section: { state: true }, drawer: { state: true }, demo: { state: true }, newWell: { state: true },
-    piezometerId: { state: true }, designFloors: { state: true },
+    piezometerId: { state: true }, designFloors: { state: true }, newWellScreen: { state: true }, tileStatus: { state: true },
     receptorId: { state: true },
   };
   declare scenario: Scenario;
@@ -127,6 +134,10 @@ export class DrydigApp extends LightElement {
   declare drawer: 'inspect' | 'section' | null;
   declare demo: string;
   declare newWell: { kind: WellKind; radius_m: number; rate_m3_s: number };
+  /** Screen of new wells as the user set it; null: like the wells of that kind already placed. */
+  declare newWellScreen: WellScreen | null;
+  /** How the background map tiles load (the Backdrop tab explains failures). */
+  declare tileStatus: TileStatus | null;
   /** Selected piezometer of the monitoring plan. */
   declare piezometerId: string | null;
   /** The last design's floor checks by excavation, with the key of the inputs it was made for. */
@@ -146,6 +157,8 @@ export class DrydigApp extends LightElement {
   /** Times of drag inputs not yet reflected on screen (for the input-to-contours measure). */
   private unshownInputs: number[] = [];
   private lastDrawnId = 0;
+  /** Counts whole-scenario swaps: a result computed for the scenario before a swap is never drawn. */
+  private loadGeneration = 0;
   /** Current coarse-grid size, adapted to the measured worker time (machine speed, well count). */
   private coarseNodes = COARSE_NODES_START;
   private engineKey = '';
@@ -177,18 +190,22 @@ export class DrydigApp extends LightElement {
     this.section = null;
     this.drawer = null;
     this.newWell = { kind: 'wellpoint', radius_m: 0.05, rate_m3_s: 0.0006 };
+    this.newWellScreen = null;
+    this.tileStatus = null;
     this.store.subscribe((s, kind) => this.onStoreChange(s, kind));
     this.hook = {
       scenario: () => structuredClone(this.store.scenario),
       result: () => this.result && {
         id: this.result.id, levels: this.result.levels.length, time_s: this.result.time_s,
-        shortfall: this.result.shortfall.map((s) => ({ id: s.id, met: s.met, worstShortfall_m: s.worstShortfall_m })),
+        colourMax_m: this.result.colourMax_m, drawdownMax_m: this.result.drawdownRange.max,
+        shortfall: this.result.shortfall.map((s) => ({ id: s.id, met: s.met, kind: s.kind, worstShortfall_m: s.worstShortfall_m, area_m2: s.area_m2, time_s: s.time_s })),
       },
       pagePoint: (x, y) => this.controller?.pagePoint(x, y) ?? null,
       latencies_ms: [],
       computes: [],
       fieldsDrawn: 0,
       busy: () => this.computing >= 0 || this.fineTimer !== 0,
+      fieldStale: () => this.controller?.field.stale ?? false,
     };
     (window as unknown as { __drydig: DrydigTestHook }).__drydig = this.hook;
   }
@@ -246,6 +263,11 @@ export class DrydigApp extends LightElement {
 
   private onMapReady(controller: LeafletMapController): void {
     this.controller = controller;
+    this.controller.onTileStatus((st) => {
+      const first = st.failed === 1 && st.loaded === 0;
+      this.tileStatus = st;
+      if (first) this.say('Map tiles could not be loaded: see the Backdrop tab for how to allow the tile origin.');
+    });
     // The Import tab draws its previews on the map: render once more to hand it over.
     this.requestUpdate();
     this.controller.fitScenario(this.scenario);
@@ -267,7 +289,9 @@ export class DrydigApp extends LightElement {
     this.scenario = s;
     this.cursor = '';
     if (kind === 'load') {
-      this.notice = '';
+      this.loadGeneration++;
+      this.newWellScreen = null;
+      this.demo = Object.entries(DEMOS).find(([, d]) => d.scenario.name === s.name)?.[0] ?? '';
       this.wellId = null;
       this.excavationId = null;
       this.inspect = null;
@@ -294,6 +318,8 @@ export class DrydigApp extends LightElement {
     const v = validateScenario(this.scenario);
     // The monitoring plan is checked too: the server refuses to store a scenario whose plan is bad.
     this.issues = v.ok ? validateMonitoring(this.scenario) : v.issues;
+    // Results paused by a bad field: the last picture stays, greyed, so it is not read as current.
+    this.controller?.setFieldStale(this.issues.length > 0);
   }
 
   private syncMap(): void {
@@ -341,7 +367,7 @@ export class DrydigApp extends LightElement {
     return {
       formatLevel: (v: number) => formatQuantity(v, u.length, { decimals, withUnit: false }),
       staticLevel_m: this.scenario.aquifer.staticLevel_m,
-      maxDrawdown_m: r?.drawdownRange.max ?? 1,
+      maxDrawdown_m: r?.colourMax_m ?? r?.drawdownRange.max ?? 1,
     };
   }
 
@@ -354,6 +380,7 @@ export class DrydigApp extends LightElement {
       return;
     }
     const issuedAt = performance.now();
+    const generation = this.loadGeneration;
     const grid = c.viewGrid(mode === 'coarse' ? this.coarseNodes : FINE_NODES);
     const view = getViewSettings(this.scenario);
     try {
@@ -362,6 +389,8 @@ export class DrydigApp extends LightElement {
           scenario: this.store.scenario, grid, time_s: this.time_s, quantity: this.quantity, step_m: view.contour?.step_m,
           levelUnit_m: toSi(1, this.units.length),
           pitNodes: mode === 'coarse' ? 17 : 41, strips: mode === 'coarse' ? 1 : 6,
+          // One colour scale along the time slider: the design time's drawdown range.
+          ...(this.times.length > 1 ? { scaleTime_s: this.scenario.design.time_s } : {}),
         },
         mode === 'fine' ? (f) => (this.computing = f < 1 ? f : -1) : undefined,
       );
@@ -372,7 +401,7 @@ export class DrydigApp extends LightElement {
         const next = this.coarseNodes * Math.min(1.25, Math.max(0.7, factor));
         this.coarseNodes = Math.round(Math.min(COARSE_NODES_MAX, Math.max(COARSE_NODES_MIN, next)));
       }
-      if (!res || res.id < this.lastDrawnId) return;
+      if (!res || res.id < this.lastDrawnId || generation !== this.loadGeneration) return;
       this.lastDrawnId = res.id;
       this.engineError = '';
       this.result = res;
@@ -451,9 +480,10 @@ export class DrydigApp extends LightElement {
         return;
       }
       case 'map-selectExcavation': {
+        // A click inside a pit selects it (outline handles) and inspects the point; the side
+        // panel stays where the user is (the pit's editor is one tab away, Layout).
         const [id] = a as [string | null];
         this.excavationId = id;
-        if (id) this.tab = 'layout';
         this.controller?.setScenario(this.scenario, { wellId: this.wellId, excavationId: this.excavationId });
         return;
       }
@@ -562,10 +592,30 @@ export class DrydigApp extends LightElement {
     if (s.wells.length >= 5000) return this.say('The scenario holds at most 5000 wells.');
     const prefix = this.newWell.kind === 'deep' ? 'DW' : this.newWell.kind === 'ejector' ? 'EJ' : 'WP';
     const [id] = nextWellIds(prefix, 1, new Set(s.wells.map((w) => w.id)));
-    const well: Well = { id: id!, x, y, radius_m: this.newWell.radius_m, kind: this.newWell.kind, rate_m3_s: this.newWell.rate_m3_s };
+    const well: Well = { id: id!, x, y, radius_m: this.newWell.radius_m, kind: this.newWell.kind, rate_m3_s: this.newWell.rate_m3_s, ...screenFields(this.newScreen) };
     this.store.apply(`place ${id}`, (d) => void d.wells.push(well));
     this.wellId = id!;
     this.controller?.setScenario(this.scenario, { wellId: this.wellId, excavationId: this.excavationId });
+  }
+
+  /** The screen new wells get: the user's, else that of the wells of the same kind already placed. */
+  private get newScreen(): WellScreen {
+    return this.newWellScreen ?? screenOfKind(this.scenario, this.newWell.kind);
+  }
+
+  private setNewScreen(key: keyof WellScreen, text: string): void {
+    const next = { ...this.newScreen };
+    if (text.trim() === '') delete next[key];
+    else {
+      const label = key === 'screenTop_m' ? 'screen top of new wells' : 'screen bottom of new wells';
+      const p = parseDisplayNumber(text, this.units.length, label, label);
+      if (!p.ok) return this.say(`The ${label} must be a number (an elevation); it was not changed.`);
+      next[key] = p.value_si;
+    }
+    if (next.screenTop_m !== undefined && next.screenBottom_m !== undefined && next.screenTop_m <= next.screenBottom_m) {
+      return this.say('The screen top of new wells must lie above their screen bottom; it was not changed.');
+    }
+    this.newWellScreen = next;
   }
 
   private deleteWell(id: string): void {
@@ -706,12 +756,23 @@ export class DrydigApp extends LightElement {
     const viewIssues = checkViewSettings(v.scenario);
     const scenario = v.scenario as Scenario & { view?: unknown };
     if (viewIssues.length > 0) delete scenario.view;
-    this.demo = '';
-    this.storePanel()?.detach();
-    this.store.load(scenario);
-    this.say(viewIssues.length > 0
+    this.replaceScenario(scenario, `open ${file.name}`, viewIssues.length > 0
       ? `Opened ${file.name}; its view settings were ignored (${viewIssues[0]!.path} ${viewIssues[0]!.message}) — the design data is intact.`
       : `Opened ${file.name}.`);
+  }
+
+  /**
+   * Swaps in another scenario as one undo step: the one it replaces, unsaved edits and all,
+   * comes back with Undo (the notice says so). `detach` unlinks the Store tab from the stored
+   * scenario it was editing (not for a revision opened from the Store tab itself).
+   */
+  private replaceScenario(next: Scenario, label: string, said: string, detach = true): void {
+    const name = this.store.scenario.name || 'the previous scenario';
+    const previous = name.length > 40 ? `${name.slice(0, 38)}…` : name;
+    const edited = this.store.canUndo && !this.store.undoIsReplace;
+    if (detach) this.storePanel()?.detach();
+    this.store.replace(next, label);
+    this.say(`${said} Undo (Ctrl+Z) brings back “${previous}”${edited ? ' with your edits' : ''}.`);
   }
 
   private saveFile(): void {
@@ -779,15 +840,13 @@ export class DrydigApp extends LightElement {
             const key = (e.target as HTMLSelectElement).value;
             const demo = DEMOS[key];
             if (!demo) return;
-            this.demo = key;
-            this.storePanel()?.detach();
-            this.store.load(demo.scenario);
+            this.replaceScenario(demo.scenario, `open ${demo.label}`, `Opened the ${/\(([^)]+)\)$/.exec(demo.label)?.[1] ?? ''} demo.`);
           }}>
             <option value="" ?selected=${this.demo === ''} disabled>Own scenario</option>
             ${Object.entries(DEMOS).map(([k, d]) => html`<option value=${k} ?selected=${this.demo === k}>${d.label}</option>`)}
           </select>
           <label class="dd-button-like">Open…<input type="file" name="open-scenario" accept=".json,application/json" hidden @change=${(e: Event) => void this.openFile(e)} /></label>
-          <button type="button" name="save" @click=${() => this.saveFile()}>Save</button>
+          <button type="button" name="save" title="Download the scenario as a .drydig.json file to this computer (the Store tab keeps revisions on the server)" @click=${() => this.saveFile()}>Download file</button>
         </div>
         <div class="dd-group">
           <button type="button" name="undo" ?disabled=${!this.store.canUndo} title=${this.store.undoLabel ? `Undo ${this.store.undoLabel} (Ctrl+Z)` : 'Nothing to undo'} @click=${() => this.store.undo()}>↶ Undo</button>
@@ -812,14 +871,15 @@ export class DrydigApp extends LightElement {
             @map-dragWell=${this.onMapEvent} @map-selectPiezometer=${this.onMapEvent} @map-dragPiezometer=${this.onMapEvent} @map-selectReceptor=${this.onMapEvent} @map-dragReceptor=${this.onMapEvent} @map-dragVertex=${this.onMapEvent} @map-insertVertex=${this.onMapEvent} @map-drawnOutline=${this.onMapEvent}
             @map-drawnLine=${this.onMapEvent} @map-viewChanged=${this.onMapEvent} @map-focusExcavation=${this.onMapEvent}></plan-map>
           <div class="dd-map-top">
-            ${this.result ? html`<shortfall-badges .shortfall=${this.result.shortfall} .units=${u} ?stale=${this.computing >= 0}
+            ${this.result ? html`<shortfall-badges .shortfall=${this.result.shortfall} .units=${u} ?stale=${this.computing >= 0} ?paused=${this.issues.length > 0}
+              .designTime_s=${s.design.time_s}
               @focus-excavation=${(e: CustomEvent<string>) => this.focusExcavation(e.detail)}></shortfall-badges>` : nothing}
             ${this.issues.length > 0 ? html`<div class="dd-issues" role="alert"><strong>Results paused — the scenario needs fixing:</strong>
               <ul>${this.issues.slice(0, 5).map((i) => html`<li><code>${i.path || '/'}</code> ${i.message}</li>`)}</ul></div>` : nothing}
             ${this.engineError ? html`<div class="dd-issues" role="alert"><strong>Not computed:</strong> ${this.engineError}</div>` : nothing}
             ${this.tool !== 'select' ? html`<div class="dd-tool-hint" role="status">${TOOLS.find((t) => t[0] === this.tool)?.[2] ?? 'Click the map to pick the site point'} — Esc to stop</div>` : nothing}
           </div>
-          <map-legend .result=${this.result} .units=${u} .staticLevel_m=${s.aquifer.staticLevel_m} .computing=${this.computing}></map-legend>
+          <map-legend .result=${this.result} .units=${u} .staticLevel_m=${s.aquifer.staticLevel_m} .computing=${this.computing} ?paused=${this.issues.length > 0}></map-legend>
           <div class="dd-cursor" aria-live="off">${this.cursor || (this.projection && !this.projection.ok && s.crs ? this.projection.message : coordinateUnit({ crs: s.crs, proj4: s.proj4, units: u }).caption)}</div>
           ${this.notice ? html`<div class="dd-notice" role="status">${this.notice}</div>` : nothing}
           ${this.drawer ? this.renderDrawer(pitAtInspect ? pitAtInspect.formationLevel_m - pitAtInspect.margin_m : null) : nothing}
@@ -869,9 +929,7 @@ export class DrydigApp extends LightElement {
   private openStored(scenario: Scenario): void {
     const v = validateScenario(scenario);
     if (!v.ok) return this.say(`The stored scenario could not be opened — ${v.issues[0]?.path} ${v.issues[0]?.message}. Your current scenario is unchanged.`);
-    this.demo = '';
-    this.store.load(v.scenario);
-    this.say(`Opened the stored scenario “${v.scenario.name}”.`);
+    this.replaceScenario(v.scenario, `open stored “${v.scenario.name}”`, `Opened the stored scenario “${v.scenario.name}”.`, false);
   }
 
   private renderTab(times: Array<number | null>, ti: number, step: number | undefined) {
@@ -879,7 +937,7 @@ export class DrydigApp extends LightElement {
     const u = this.units;
     switch (this.tab) {
       case 'results':
-        return html`<results-panel .result=${this.result} .units=${u} .times=${times} .timeIndex=${ti} .quantity=${this.quantity} .step_m=${step}
+        return html`<results-panel .result=${this.result} .units=${u} .times=${times} .timeIndex=${ti} .quantity=${this.quantity} .step_m=${step} ?paused=${this.issues.length > 0}
           .error=${this.engineError}
           @quantity-change=${(e: CustomEvent<ContourQuantity>) => this.store.apply('contour quantity', (d) => setViewSettings(d, { contour: { ...getViewSettings(d).contour, quantity: e.detail } }))}
           @step-change=${(e: CustomEvent<number | undefined>) => this.store.apply('contour interval', (d) => setViewSettings(d, { contour: { ...getViewSettings(d).contour, step_m: e.detail } }))}
@@ -900,7 +958,7 @@ export class DrydigApp extends LightElement {
       case 'section':
         return html`<seepage-panel .scenario=${s} .engine=${this.engine} .planTotal_m3_s=${this.designTotal_m3_s}></seepage-panel>`;
       case 'backdrop':
-        return html`<backdrop-panel .store=${this.store} .scenario=${s} .units=${u} .projection=${this.projection}
+        return html`<backdrop-panel .store=${this.store} .scenario=${s} .units=${u} .projection=${this.projection} .tileStatus=${this.tileStatus}
           @pick-underlay-ref=${(e: CustomEvent<0 | 1>) => {
             this.pickingRef = e.detail;
             this.setTool('pick-point');
@@ -923,12 +981,20 @@ export class DrydigApp extends LightElement {
           <select aria-label="Kind of new wells" @change=${(e: Event) => {
             const kind = (e.target as HTMLSelectElement).value as WellKind;
             this.newWell = { ...this.newWell, kind, radius_m: kind === 'deep' ? 0.15 : kind === 'ejector' ? 0.05 : 0.05, rate_m3_s: kind === 'deep' ? 0.01 : 0.0006 };
+            this.newWellScreen = null;
           }}>
             <option value="wellpoint" ?selected=${this.newWell.kind === 'wellpoint'}>Well point</option>
             <option value="deep" ?selected=${this.newWell.kind === 'deep'}>Deep well</option>
             <option value="ejector" ?selected=${this.newWell.kind === 'ejector'}>Ejector</option></select>
           <small>${formatQuantity(this.newWell.rate_m3_s, u.rate)} each, r = ${formatQuantity(this.newWell.radius_m, u.length, { significant: 2 })}</small>
-          <button type="button" class="dd-small" @click=${() => this.setTool('add-well')}>Place…</button></div>
+          <button type="button" class="dd-small" @click=${() => this.setTool('add-well')}>Place…</button>
+          <div class="dd-form-row dd-new-well-screen">
+            <label class="dd-field"><span>Screen top</span><span class="dd-input-unit"><input type="text" inputmode="decimal" name="new-screen-top" placeholder="full" aria-label="Screen top of new wells"
+              .value=${displayValue(this.newScreen.screenTop_m, u.length)} @change=${(e: Event) => this.setNewScreen('screenTop_m', (e.target as HTMLInputElement).value)} /><em>${u.length}</em></span></label>
+            <label class="dd-field"><span>Screen bottom</span><span class="dd-input-unit"><input type="text" inputmode="decimal" name="new-screen-bottom" placeholder="full" aria-label="Screen bottom of new wells"
+              .value=${displayValue(this.newScreen.screenBottom_m, u.length)} @change=${(e: Event) => this.setNewScreen('screenBottom_m', (e.target as HTMLInputElement).value)} /><em>${u.length}</em></span></label>
+          </div>
+          <small class="dd-hint">${this.newWellScreen ? 'Screen as set here.' : Object.keys(this.newScreen).length ? 'Screen as the wells of this kind already placed (edit to change).' : 'No screen given: full thickness.'}</small></div>
         <ul class="dd-list dd-well-list" aria-label="Wells">${s.wells.slice(0, 400).map((w) => html`<li>
           <button type="button" class=${w.id === this.wellId ? 'dd-on' : ''} data-well=${w.id} @click=${() => {
             this.wellId = w.id;
@@ -948,7 +1014,7 @@ export class DrydigApp extends LightElement {
       <details open class="dd-section-block"><summary><h3>Ring of wells</h3></summary>
         <ring-generator .store=${this.store} .scenario=${s} .units=${u}
           @ring-preview=${(e: CustomEvent<{ positions: Array<[number, number]>; path: Array<[number, number]> } | null>) => this.controller?.setRingPreview(e.detail?.positions ?? null, e.detail?.path)}
-          @ring-placed=${(e: CustomEvent<{ count: number; first: string; last: string }>) => this.say(`Placed ${e.detail.count} wells, ${e.detail.first} to ${e.detail.last}.`)}></ring-generator>
+          @ring-placed=${(e: CustomEvent<{ count: number; first: string; last: string; skipped: number }>) => this.say(`Placed ${e.detail.count} wells, ${e.detail.first} to ${e.detail.last}${e.detail.skipped ? `; skipped ${e.detail.skipped} positions next to existing wells` : ''}.`)}></ring-generator>
       </details>
       <details open class="dd-section-block"><summary><h3>Excavations <small>${s.excavations.length}</small></h3></summary>
         <excavation-editor .store=${this.store} .scenario=${s} .units=${u} .excavationId=${this.excavationId} .projection=${this.projection?.ok ? this.projection : null}
@@ -960,6 +1026,37 @@ export class DrydigApp extends LightElement {
           }}></excavation-editor>
       </details>
     </div>`;
+  }
+
+  private drawerFrame = 0;
+  /**
+   * After a render: the Point/Section drawer sits at the foot of the map unless that would hide
+   * the inspected point or a section end while the top would not; then it moves up, under the
+   * badges. The map itself never moves under the user. Measured on the next frame, once the
+   * drawer's charts have rendered (they set its height).
+   */
+  protected override updated(): void {
+    if (this.drawerFrame) return;
+    this.drawerFrame = requestAnimationFrame(() => {
+      this.drawerFrame = 0;
+      const drawer = this.drawer ? this.querySelector<HTMLElement>('.dd-drawer') : null;
+      const area = this.querySelector<HTMLElement>('.dd-map-area');
+      const c = this.controller;
+      if (!drawer || !area || !c) return;
+      const sec = getViewSettings(this.scenario).sections?.[0];
+      const pts = this.drawer === 'inspect' && this.inspect ? [this.inspect.point] : this.drawer === 'section' && sec ? [sec.from, sec.to] : [];
+      const h = drawer.offsetHeight;
+      const w = drawer.offsetWidth + 10;
+      const topStart = (this.querySelector<HTMLElement>('.dd-map-top')?.offsetHeight ?? 0) + 20;
+      const bottomStart = area.clientHeight - 82 - h;
+      const hidden = (y0: number) => pts.some(([x, y]) => {
+        const p = c.containerPoint(x, y);
+        return p.x >= 0 && p.x <= w + 12 && p.y >= y0 - 12 && p.y <= y0 + h + 12;
+      });
+      const atTop = hidden(bottomStart) && !hidden(topStart);
+      drawer.classList.toggle('dd-drawer-top', atTop);
+      drawer.style.top = atTop ? `${topStart}px` : '';
+    });
   }
 
   private renderDrawer(target_m: number | null) {

@@ -16,7 +16,7 @@ import './caution-note';
 export class ResultsPanel extends LightElement {
   static override properties = {
     result: { attribute: false }, units: { attribute: false }, times: { attribute: false }, timeIndex: { type: Number },
-    quantity: { type: String }, step_m: { attribute: false }, error: { type: String },
+    quantity: { type: String }, step_m: { attribute: false }, error: { type: String }, paused: { type: Boolean },
   };
   declare result: FieldResult | null;
   declare units: DisplayUnits;
@@ -25,6 +25,8 @@ export class ResultsPanel extends LightElement {
   declare quantity: FieldQuantity;
   declare step_m: number | undefined;
   declare error: string;
+  /** Results paused by an invalid field (the badges say "not computed"). */
+  declare paused: boolean;
 
   constructor() {
     super();
@@ -34,6 +36,7 @@ export class ResultsPanel extends LightElement {
     this.quantity = 'drawdown';
     this.step_m = undefined;
     this.error = '';
+    this.paused = false;
   }
 
   override render() {
@@ -66,13 +69,15 @@ export class ResultsPanel extends LightElement {
       </div>
       ${this.error ? html`<p class="dd-error" role="alert">${this.error}</p>` : nothing}
       ${r ? html`
-        <h3>Excavations at the design time</h3>
-        <shortfall-badges .shortfall=${r.shortfall} .units=${u}></shortfall-badges>
+        <h3>Excavations at the time shown (${formatDuration(r.time_s)})</h3>
+        <shortfall-badges .shortfall=${r.shortfall} .units=${u} ?paused=${this.paused} .designTime_s=${this.times[this.times.length - 1] ?? null}></shortfall-badges>
         <h3>Range on the map</h3>
         <p class="dd-facts">${this.quantity === 'drawdown' ? 'Drawdown' : 'Level'} ${formatQuantity(r.range.min, u.length, { decimals: 2 })} to ${formatQuantity(r.range.max, u.length, { decimals: 2 })};
           ${r.levels.length} contours at ${r.levels.length > 1 ? formatQuantity(r.levels[1]! - r.levels[0]!, u.length, { significant: 2 }) : '—'}.
           Method: ${methodName(r.model.method)}${r.model.influenceRadius_m ? `, R = ${formatQuantity(r.model.influenceRadius_m, u.length, { significant: 3 })} (${r.model.influenceRadiusSource})` : ''};
           T = ${formatQuantity(r.model.transmissivity_m2_s, u.transmissivity)}.</p>
+        ${r.levelsWanted ? html`<p class="dd-warn" data-note="levels-capped" role="status">That contour interval would need ${r.levelsWanted} contours over this range; they are drawn every
+          ${formatQuantity(r.levels.length > 1 ? Math.abs(r.levels[1]! - r.levels[0]!) : 0, u.length, { significant: 3 })} instead (at most 60). Choose a larger interval, or leave it blank for automatic.</p>` : nothing}
         ${this.renderFlags(r)}
         <caution-note .notes=${r.model.notes}></caution-note>` : html`<caution-note></caution-note>`}
     </div>`;

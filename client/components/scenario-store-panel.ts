@@ -384,13 +384,13 @@ export class ScenarioStorePanel extends LitElement {
       <div class="row account">Signed in as ${this.account.username} (${this.account.role})
         <button class="secondary" @click=${() => this.signOut()}>Sign out</button></div>
       <section>
-        <h3>Save</h3>
+        <h3>Store on the server</h3>
         <div class="status">${stored ? html`Stored, showing revision ${this.shownRevision}${this.shownRevision !== this.revision ? ` (latest ${this.revision})` : ''}` : 'Not stored yet'}
           ${this.dirty ? html` — <span class="dirty">unsaved changes</span>` : nothing}</div>
         <div class="row">
           <input name="savedBy" placeholder="Your name" .value=${this.savedBy} @input=${(e: Event) => { this.savedBy = (e.target as HTMLInputElement).value; }} maxlength="200" />
           <input name="note" placeholder="What changed (optional)" maxlength="2000" />
-          <button @click=${() => this.save()} ?disabled=${this.busy || !this.scenario}>${stored ? 'Save revision' : 'Save'}</button>
+          <button @click=${() => this.save()} ?disabled=${this.busy || !this.scenario}>${stored ? 'Store new revision' : 'Store on server'}</button>
         </div>
         ${this.newer && !this.conflict
           ? html`<div class="newer" role="status">Revision ${this.newer.revision} was saved ${new Date(this.newer.savedAt).toLocaleString()}${this.newer.savedBy ? ` by ${this.newer.savedBy}` : ''} (${this.newer.summary}). Your edits start from revision ${this.revision}.

@@ -1,6 +1,6 @@
 /**
  * <well-editor>: properties of one well — id, kind, position, radius, constant rate or a rate
- * schedule, well-loss C, in or out of service — in display units, stored SI. A value that does
+ * schedule, well-loss C, screen top and bottom, in or out of service — in display units, stored SI. A value that does
  * not parse is refused with a message naming its field (e.g. `/wells/3/rate_m3_s`).
  */
 import { html, nothing } from 'lit';
@@ -45,7 +45,7 @@ export class WellEditor extends LightElement {
     this.error = problem ?? '';
   }
 
-  private numberField(label: string, field: 'x' | 'y' | 'radius_m' | 'rate_m3_s' | 'wellLoss_s2_m5', unit: DisplayUnits[keyof DisplayUnits] | null, value: number | undefined, opts: { optional?: boolean; min?: number; exclusiveMin?: boolean } = {}) {
+  private numberField(label: string, field: 'x' | 'y' | 'radius_m' | 'rate_m3_s' | 'wellLoss_s2_m5' | 'screenTop_m' | 'screenBottom_m', unit: DisplayUnits[keyof DisplayUnits] | null, value: number | undefined, opts: { optional?: boolean; min?: number; exclusiveMin?: boolean } = {}) {
     const pointer = `/wells/${this.index}/${field}`;
     return html`<label class="dd-field"><span>${label}</span>
       <span class="dd-input-unit"><input type="text" inputmode="decimal" name=${field} .value=${displayValue(value, unit)}
@@ -104,6 +104,11 @@ export class WellEditor extends LightElement {
         ${this.numberField('Radius', 'radius_m', u.length, w.radius_m, { min: 0, exclusiveMin: true })}
         ${this.numberField('Well loss C', 'wellLoss_s2_m5', u.wellLoss, w.wellLoss_s2_m5, { optional: true, min: 0 })}
       </div>
+      <div class="dd-form-row">
+        ${this.numberField('Screen top', 'screenTop_m', u.length, w.screenTop_m, { optional: true })}
+        ${this.numberField('Screen bottom', 'screenBottom_m', u.length, w.screenBottom_m, { optional: true })}
+      </div>
+      <p class="dd-hint dd-screen-hint">Screen levels are elevations; blank: ${s!.aquifer.kind === 'unconfined' ? 'static level' : 'aquifer top'} to aquifer base (full thickness).</p>
       <fieldset class="dd-rate-mode"><legend>Pumping</legend>
         <label><input type="radio" name="mode" ?checked=${!useSchedule} @change=${() => this.edit(`constant rate for ${w.id}`, (d) => {
           d.rate_m3_s = d.schedule?.[0]?.rate_m3_s ?? d.rate_m3_s ?? 0;

@@ -1,1 +1,3 @@
 export * from './ring-layout';
+export * from './well-screens';
+export * from './nearby-wells';

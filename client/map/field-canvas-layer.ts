@@ -5,7 +5,8 @@
 import L from 'leaflet';
 import type { FieldResult } from '../worker/engine-protocol';
 import { CanvasOverlay, makeHatch, traceMultiPolygon } from './canvas-overlay';
-import { drawdownColour, INK, SHORTFALL_COLOUR } from './colour-scale';
+import { drawdownColour, INK } from './colour-scale';
+import { SHORTFALL_SYMBOLS } from './shortfall-symbols';
 
 /** How the layer labels and colours what it draws. */
 export interface FieldStyle {
@@ -32,6 +33,7 @@ export class FieldCanvasLayer extends CanvasOverlay {
   private result: FieldResult | null = null;
   private style: FieldStyle | null = null;
   private fillCanvas: HTMLCanvasElement | null = null;
+  private staleResult = false;
   /** Called after each draw with the result's id (the bench's "contours on screen" moment). */
   onDrawn: ((result: FieldResult) => void) | null = null;
 
@@ -49,9 +51,21 @@ export class FieldCanvasLayer extends CanvasOverlay {
     return this.result;
   }
 
+  /** True while the result drawn does not belong to the current inputs: drawn grey and faint. */
+  get stale(): boolean {
+    return this.staleResult;
+  }
+
+  setStale(stale: boolean): void {
+    this.staleResult = stale;
+    this.redrawNow();
+  }
+
   protected draw(ctx: CanvasRenderingContext2D, map: L.Map): void {
     const r = this.result;
     const style = this.style;
+    // Greyed by CSS (grayscale, faint), so everything drawn below reads as old at a glance.
+    this.canvas?.classList.toggle('dd-field-stale', this.staleResult);
     if (!r || !style) return;
     const size = map.getSize();
     const g = r.grid;
@@ -157,19 +171,23 @@ export class FieldCanvasLayer extends CanvasOverlay {
       }
     }
 
-    // Shortfall last, on top: vermilion hatch plus a solid edge.
-    const hatch = makeHatch(ctx, SHORTFALL_COLOUR, { spacing: 6, width: 2 });
+    // Shortfall last, on top: each kind's own hatch and edge (client/map/shortfall-symbols.ts).
     for (const s of r.shortfall) {
-      if (s.coordinates.length === 0) continue;
+      const sym = SHORTFALL_SYMBOLS[s.kind];
+      if (s.coordinates.length === 0 || !sym.hatch) continue;
       ctx.beginPath();
       traceMultiPolygon(ctx, map, s.coordinates);
-      ctx.fillStyle = 'rgba(213, 94, 0, 0.12)';
+      ctx.globalAlpha = 0.14;
+      ctx.fillStyle = sym.colour;
       ctx.fill('evenodd');
-      ctx.fillStyle = hatch;
+      ctx.globalAlpha = 1;
+      ctx.fillStyle = makeHatch(ctx, sym.colour, { spacing: sym.hatch.spacing_px, width: sym.hatch.width_px, angle: sym.hatch.angle, cross: sym.hatch.cross });
       ctx.fill('evenodd');
-      ctx.strokeStyle = SHORTFALL_COLOUR;
+      ctx.setLineDash(sym.dash);
+      ctx.strokeStyle = sym.colour;
       ctx.lineWidth = 2;
       ctx.stroke();
+      ctx.setLineDash([]);
     }
     this.onDrawn?.(r);
   }

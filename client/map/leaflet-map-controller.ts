@@ -13,8 +13,9 @@ import type { SiteProjection } from '../crs';
 import { FieldCanvasLayer, type FieldStyle } from './field-canvas-layer';
 import { PlanGridLayer } from './plan-grid-layer';
 import { UnderlayLayer } from './underlay-layer';
-import { ProjectedTileLayer } from './projected-tile-layer';
-import { CRITICAL_COLOUR, MET_COLOUR, SELECTION_COLOUR, SHORTFALL_COLOUR } from './colour-scale';
+import { ProjectedTileLayer, type TileStatus } from './projected-tile-layer';
+import { CRITICAL_COLOUR, SELECTION_COLOUR } from './colour-scale';
+import { SHORTFALL_SYMBOLS, type ShortfallKind } from './shortfall-symbols';
 import { BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, piezometerSymbolSvg, wellSymbol } from '../../shared/exports/plan-symbols';
 import { ReceptorLayer, type ReceptorVerdict } from './receptor-layer';
 import { getReceptors } from '../../shared/schema/receptor-schema';
@@ -194,6 +195,13 @@ export class LeafletMapController {
     this.drawShortfallMarks(result);
   }
 
+  /** Greys the field and the pit marks: the result shown is not for the current inputs. */
+  setFieldStale(stale: boolean): void {
+    if (this.field.stale === stale) return;
+    this.field.setStale(stale);
+    this.drawShortfallMarks(this.field.current);
+  }
+
   setSection(line: SectionLine | null): void {
     this.sectionLayer.clearLayers();
     if (!line) return;
@@ -252,6 +260,11 @@ export class LeafletMapController {
     this.tiles.setSource(template, projection);
   }
 
+  /** Listens to how the background tiles load (a blocked tile origin only shows as failures). */
+  onTileStatus(listener: ((status: TileStatus) => void) | null): void {
+    this.tiles.onStatus = listener;
+  }
+
   /** Frames the excavations and wells (or the whole scenario) with a margin. */
   fitScenario(scenario: Scenario): void {
     const pts: L.LatLngTuple[] = [];
@@ -274,6 +287,12 @@ export class LeafletMapController {
     if (lls.every((ll) => view.contains(ll))) return;
     const b = L.latLngBounds(lls).extend(view);
     this.map.fitBounds(b, { animate: false, padding: [30, 30] });
+  }
+
+  /** Map-container position of a site point, px (for placing panels clear of what they describe). */
+  containerPoint(x: number, y: number): { x: number; y: number } {
+    const p = this.map.latLngToContainerPoint([y, x]);
+    return { x: p.x, y: p.y };
   }
 
   panTo(x: number, y: number): void {
@@ -577,16 +596,17 @@ export class LeafletMapController {
     });
     if (!result) return;
     for (const s of result.shortfall) {
-      const met = s.met;
+      const kind: ShortfallKind = this.field.stale ? 'stale' : s.kind;
+      const sym = SHORTFALL_SYMBOLS[kind];
       const m = L.marker([s.worst.y, s.worst.x], {
         icon: L.divIcon({
-          className: `dd-worst ${met ? 'dd-worst-met' : 'dd-worst-short'}`,
-          html: `<span style="border-color:${met ? MET_COLOUR : SHORTFALL_COLOUR}">${met ? '▼' : '▲'}</span>`,
+          className: `dd-worst dd-worst-${kind} ${sym.pass ? 'dd-worst-met' : 'dd-worst-short'}`,
+          html: `<span style="border-color:${sym.colour};color:${sym.colour}">${sym.glyph}</span>`,
           iconSize: [16, 16],
         }),
         keyboard: false,
         bubblingMouseEvents: false,
-      }).bindTooltip(`${escapeHtml(s.id)}: highest level in the pit`, { direction: 'right', className: 'dd-tip' });
+      }).bindTooltip(`${escapeHtml(s.id)}: highest level in the pit — ${escapeHtml(sym.label)}`, { direction: 'right', className: 'dd-tip' });
       m.on('click', () => this.cb.focusExcavation(s.id));
       (m as L.Layer & { ddKind?: string }).ddKind = 'worst';
       m.addTo(this.markLayer);

@@ -12,17 +12,39 @@ export { lonLatToTile, tileToLonLat };
 
 const MAX_TILES = 48;
 
+/** How the tiles of the current source are loading: a blocked origin shows up as failures only. */
+export interface TileStatus {
+  loaded: number;
+  failed: number;
+  /** Origin of the template (scheme and host), for the message. */
+  origin: string;
+}
+
 export class ProjectedTileLayer extends L.Layer {
   private box: HTMLDivElement | null = null;
   private template: string | null = null;
   private projection: SiteProjection | null = null;
   private readonly pool = new Map<string, HTMLImageElement>();
+  private status: TileStatus = { loaded: 0, failed: 0, origin: '' };
+  /** Told when a tile of the current source loads or fails (a page cannot tell why one fails). */
+  onStatus: ((status: TileStatus) => void) | null = null;
 
   setSource(template: string | null, projection: SiteProjection | null): void {
-    this.template = template && /\{z\}/.test(template) && /\{x\}/.test(template) && /\{y\}/.test(template) ? template : null;
+    const next = template && /\{z\}/.test(template) && /\{x\}/.test(template) && /\{y\}/.test(template) ? template : null;
     this.projection = projection;
+    // The same source again (every edit re-syncs the map): keep the tiles and their count.
+    if (next === this.template) return void this.update();
+    this.template = next;
     for (const img of this.pool.values()) img.remove();
     this.pool.clear();
+    let origin = '';
+    try {
+      origin = this.template ? new URL(this.template.replace(/\{[a-z]\}/g, '0')).origin : '';
+    } catch {
+      origin = '';
+    }
+    this.status = { loaded: 0, failed: 0, origin };
+    this.onStatus?.({ ...this.status });
     this.update();
   }
 
@@ -46,6 +68,12 @@ export class ProjectedTileLayer extends L.Layer {
 
   override getEvents() {
     return { moveend: this.update, zoomend: this.update, viewreset: this.update };
+  }
+
+  private count(source: string | null, what: 'loaded' | 'failed'): void {
+    if (source !== this.template) return;
+    this.status[what]++;
+    this.onStatus?.({ ...this.status });
   }
 
   private update = (): void => {
@@ -82,6 +110,9 @@ export class ProjectedTileLayer extends L.Layer {
           img.alt = '';
           img.draggable = false;
           img.referrerPolicy = 'no-referrer';
+          const source = this.template;
+          img.onload = () => this.count(source, 'loaded');
+          img.onerror = () => this.count(source, 'failed');
           img.src = template.replace('{z}', String(z)).replace('{x}', String(tx)).replace('{y}', String(ty)).replace('{s}', 'a');
           this.pool.set(key, img);
         }

@@ -20,6 +20,8 @@ export interface ScenarioStoreOptions {
 interface HistoryEntry {
   scenario: Scenario;
   label: string;
+  /** The step swapped the whole scenario (`replace`): undo and redo report it as a 'load'. */
+  whole?: boolean;
 }
 
 /** Scenario state with bounded undo/redo history. Snapshots are deep copies, never shared. */
@@ -52,6 +54,11 @@ export class ScenarioStore {
   /** Label of the step `undo` would revert (for the button's tooltip). */
   get undoLabel(): string | undefined {
     return this.past[this.past.length - 1]?.label;
+  }
+
+  /** True when the step `undo` would revert swapped the whole scenario (`replace`). */
+  get undoIsReplace(): boolean {
+    return this.past[this.past.length - 1]?.whole === true;
   }
 
   get redoLabel(): string | undefined {
@@ -114,18 +121,18 @@ export class ScenarioStore {
     this.finishGesture();
     const entry = this.past.pop();
     if (!entry) return;
-    this.future.push({ scenario: this.current, label: entry.label });
+    this.future.push({ scenario: this.current, label: entry.label, whole: entry.whole });
     this.current = entry.scenario;
-    this.emit('undo');
+    this.emit(entry.whole ? 'load' : 'undo');
   }
 
   redo(): void {
     this.finishGesture();
     const entry = this.future.pop();
     if (!entry) return;
-    this.past.push({ scenario: this.current, label: entry.label });
+    this.past.push({ scenario: this.current, label: entry.label, whole: entry.whole });
     this.current = entry.scenario;
-    this.emit('redo');
+    this.emit(entry.whole ? 'load' : 'redo');
   }
 
   /** Replaces the whole scenario (open a file, switch demo) and clears the history. */
@@ -134,6 +141,19 @@ export class ScenarioStore {
     this.current = structuredClone(scenario);
     this.past = [];
     this.future = [];
+    this.emit('load');
+  }
+
+  /**
+   * Replaces the whole scenario (choose a demo, open a file or a stored revision) as one undo
+   * step, so the scenario it replaced, edits and all, comes back with `undo`. Listeners see a
+   * 'load' (also on its undo and redo: a different site may be shown).
+   */
+  replace(scenario: Scenario, label: string): void {
+    this.finishGesture();
+    this.pushPast({ scenario: this.current, label, whole: true });
+    this.future = [];
+    this.current = structuredClone(scenario);
     this.emit('load');
   }
 

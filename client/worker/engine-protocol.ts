@@ -30,6 +30,11 @@ export interface FieldRequest {
   pitNodes?: number;
   /** Row strips to compute in, with a progress message and a cancel check after each (default 1). */
   strips?: number;
+  /**
+   * Time whose drawdown range sets the colour scale, s (the design time), so colours mean the
+   * same at every time on the slider. Absent: the result's own range.
+   */
+  scaleTime_s?: number | null;
 }
 
 /** Level and drawdown against time at one point. */
@@ -86,13 +91,21 @@ export interface CancelRequest {
 
 export type EngineRequest = FieldRequest | InspectRequest | SectionRequest | MonitoringRequest | SeepageRequest | CancelRequest;
 
-/** How one excavation stands against its target at the design time. */
+/** How one excavation stands against its governing target at the time shown. */
 export interface ExcavationShortfall {
   id: string;
+  /** The governing target (as the design uses it): dry level, or the uplift / heave allowable level, m. */
   targetLevel_m: number;
-  /** Design time used, s; null = steady state. */
+  /** Time used (the time shown on the map), s; null = steady state. */
   time_s: number | null;
+  /** True only for a pass: at or below target and not drawn down to the aquifer base. */
   met: boolean;
+  /** How it stands (see `ShortfallKind` in client/map/shortfall-symbols.ts). */
+  kind: 'met' | 'above-target' | 'floor-unsafe' | 'dewatered';
+  /** Which check sets the target (shared/floor). */
+  governing: 'dry' | 'uplift' | 'heave';
+  /** Factor of safety of the governing floor check at the highest head inside, with the one required; null for a dry floor. */
+  floorFS: { check: 'uplift' | 'heave'; fs: number | null; required: number } | null;
   /** Highest computed level inside minus target, m (≤ 0 when met). */
   worstShortfall_m: number;
   /** Where that highest level is. */
@@ -119,6 +132,12 @@ export interface FieldResult {
   range: { min: number; max: number };
   /** Range of drawdown over the grid, m (legend colours are by drawdown in both modes). */
   drawdownRange: { min: number; max: number };
+  /** Largest drawdown the colours stretch to, m: the range at `scaleTime_s` when asked, else `drawdownRange.max`. */
+  colourMax_m: number;
+  /** Time the colour scale belongs to, s (null: steady state); undefined: the result's own time. */
+  colourTime_s?: number | null;
+  /** Contour levels the interval asked for, when more than could be drawn (the interval was widened). */
+  levelsWanted?: number;
   /** Outline of nodes with each flag (only flags present). */
   flagAreas: Array<{ flag: PointFlag; count: number; coordinates: XY[][][] }>;
   flagCounts: Record<string, number>;

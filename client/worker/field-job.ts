@@ -7,6 +7,7 @@ import { FLAG_BITS, type GridResult, type GridSpec, type PointFlag } from '../..
 import { contourExcess, contourGrid, contourMask, niceContourLevels } from '../../shared/contours';
 import { getPolygonArea, isPointInPolygon, openRing } from '../../shared/geometry';
 import type { Excavation, Scenario } from '../../shared/schema';
+import { excavationFloor, heaveFactorOfSafety, requiredUpliftFactor, resolveFloorOptions, upliftFactorOfSafety } from '../../shared/floor';
 import type {
   ExcavationShortfall, FieldRequest, FieldResult, InspectRequest, InspectResult, SectionRequest, SectionResult,
 } from './engine-protocol';
@@ -93,13 +94,16 @@ function edgeSamples(outline: ReadonlyArray<readonly [number, number]>, step_m: 
 }
 
 /**
- * How an excavation stands at the design time: its own grid over the outline's bounding box plus
- * points along its edges, because the highest level inside a ring of wells sits on the edge
- * between wells or at the centre, and a coarse view grid would miss it.
+ * How an excavation stands at `time_s` (default the design time): its own grid over the
+ * outline's bounding box plus points along its edges, because the highest level inside a ring of
+ * wells sits on the edge between wells or at the centre, and a coarse view grid would miss it.
+ * The target is the governing one of the pit-floor check (shared/floor, as the design uses it):
+ * the dry level, or the head the uplift / heave check allows under the floor.
  */
-export function getExcavationShortfall(scenario: Scenario, excavation: Excavation, pitNodes = 41): ExcavationShortfall {
-  const time_s = scenario.design.time_s;
-  const target = excavation.formationLevel_m - excavation.margin_m;
+export function getExcavationShortfall(scenario: Scenario, excavation: Excavation, pitNodes = 41, time_s: number | null = scenario.design.time_s): ExcavationShortfall {
+  const floorOptions = resolveFloorOptions((scenario as { designOptions?: { floor?: Parameters<typeof resolveFloorOptions>[0] } }).designOptions?.floor);
+  const floor = excavationFloor(scenario, excavation, floorOptions);
+  const target = floor.target.targetLevel_m;
   const xs = excavation.outline.map((p) => p[0]);
   const ys = excavation.outline.map((p) => p[1]);
   const minX = Math.min(...xs);
@@ -133,11 +137,22 @@ export function getExcavationShortfall(scenario: Scenario, excavation: Excavatio
   flagBits.delete('within-well-radius');
   const shortfall = worst.level_m - target;
   const area = getPolygonArea(excavation.outline);
+  const t = floor.target;
+  const floorUnsafe = t.allowableLevel_m !== null && worst.level_m > t.allowableLevel_m;
+  const kind: ExcavationShortfall['kind'] = floorUnsafe ? 'floor-unsafe' : shortfall > 0 ? 'above-target' : flagBits.has('dewatered') ? 'dewatered' : 'met';
+  // A plug under the floor means uplift; an open granular floor means heave (shared/floor).
+  const floorCheck = t.upliftLevel_m !== null ? 'uplift' : t.heaveLevel_m !== null ? 'heave' : null;
+  let floorFS: ExcavationShortfall['floorFS'] = null;
+  if (floorCheck === 'uplift' && floor.ground?.plug) floorFS = { check: 'uplift', fs: upliftFactorOfSafety(floor.ground.plug, worst.level_m), required: requiredUpliftFactor(floorOptions) };
+  else if (floorCheck === 'heave' && floor.ground?.granular) floorFS = { check: 'heave', fs: heaveFactorOfSafety(floor.ground.granular, excavation.formationLevel_m, worst.level_m), required: floorOptions.heaveFactor };
   return {
     id: excavation.id,
     targetLevel_m: target,
     time_s,
-    met: shortfall <= 0,
+    met: kind === 'met',
+    kind,
+    governing: t.governing,
+    floorFS,
     worstShortfall_m: shortfall,
     worst,
     coordinates: excess.coordinates,
@@ -146,6 +161,9 @@ export function getExcavationShortfall(scenario: Scenario, excavation: Excavatio
     flags: [...flagBits],
   };
 }
+
+/** Most contour levels drawn; a smaller interval is widened to a whole multiple of itself. */
+const MAX_CONTOUR_LEVELS = 60;
 
 /** Contours, flag outlines and shortfall for a FieldRequest. */
 export async function runFieldJob(req: FieldRequest, hooks: JobHooks = {}): Promise<FieldResult> {
@@ -157,7 +175,10 @@ export async function runFieldJob(req: FieldRequest, hooks: JobHooks = {}): Prom
   const drawdownRange = finiteRange(modelled(g.drawdown_m));
   // Automatic levels are round numbers in the user's length unit (0.5 ft, not 0.1524 m).
   const unit = req.step_m === undefined && req.levelUnit_m && req.levelUnit_m > 0 ? req.levelUnit_m : 1;
-  const levels = niceContourLevels({ min: range.min / unit, max: range.max / unit, targetCount: 12, step: req.step_m, maxCount: 60 }).map((v) => v * unit);
+  // A tiny interval would need thousands of levels; widen it (a whole multiple) and say so.
+  const wanted = req.step_m && req.step_m > 0 && Number.isFinite(range.max - range.min) ? Math.floor((range.max - range.min) / req.step_m) : 0;
+  const step = wanted > MAX_CONTOUR_LEVELS ? req.step_m! * Math.ceil(wanted / MAX_CONTOUR_LEVELS) : req.step_m;
+  const levels = niceContourLevels({ min: range.min / unit, max: range.max / unit, targetCount: 12, step, maxCount: MAX_CONTOUR_LEVELS + 1 }).map((v) => v * unit);
   // Ground beyond a boundary line is outside the modelled aquifer: no contours there.
   const beyond = FLAG_BITS['beyond-boundary'];
   const holes = g.flagCounts['beyond-boundary'] > 0 ? Uint8Array.from(g.flags, (f) => (f & beyond ? 1 : 0)) : undefined;
@@ -169,7 +190,14 @@ export async function runFieldJob(req: FieldRequest, hooks: JobHooks = {}): Prom
     if (m.count > 0) flagAreas.push({ flag, count: m.count, coordinates: m.coordinates });
   }
   if (hooks.isCancelled?.()) throw new JobCancelled();
-  const shortfall = req.scenario.excavations.map((e) => getExcavationShortfall(req.scenario, e, req.pitNodes ?? 41));
+  const shortfall = req.scenario.excavations.map((e) => getExcavationShortfall(req.scenario, e, req.pitNodes ?? 41, req.time_s));
+  // One colour scale across times: the drawdown range at the scale time (same grid).
+  let colourMax_m = drawdownRange.max;
+  const scaled = req.scaleTime_s !== undefined && req.scaleTime_s !== req.time_s;
+  if (scaled) {
+    const gs = evaluateGrid({ scenario: req.scenario, grid: req.grid, time_s: req.scaleTime_s! });
+    colourMax_m = finiteRange(modelled(gs.drawdown_m)).max;
+  }
   return {
     kind: 'field',
     id: req.id,
@@ -180,6 +208,9 @@ export async function runFieldJob(req: FieldRequest, hooks: JobHooks = {}): Prom
     levels,
     range,
     drawdownRange,
+    colourMax_m,
+    ...(req.scaleTime_s !== undefined ? { colourTime_s: req.scaleTime_s } : {}),
+    ...(wanted > MAX_CONTOUR_LEVELS ? { levelsWanted: wanted } : {}),
     flagAreas,
     flagCounts: { ...g.flagCounts },
     model: g.model,

@@ -39,8 +39,8 @@ describe('editing on the plan map', () => {
     // Less drawdown after 20 minutes than after 14 days (Theis: s grows with t).
     const maxOf = (t: string) => Number(/to (\d+\.\d\d)/.exec(t)![1]);
     expect(maxOf(range1)).toBeLessThan(maxOf(range0));
-    // The badges stay at the design time whatever time the contours show.
-    expect(await badge(page, 'pit-A')).toMatch(/design time 14 d/);
+    // The badges follow the time the contours show, and say so (issue 13 item 7).
+    expect(await badge(page, 'pit-A')).toMatch(/at 20\.2 min \(time shown\)/);
     await s.screenshot('12-early-time');
   });
 

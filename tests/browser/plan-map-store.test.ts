@@ -23,7 +23,7 @@ describe('the Store tab', () => {
     await page.click('button[name="tab-store"]');
     await panel().locator('input[name="savedBy"]').fill('desk designer');
     await panel().locator('input[name="note"]').fill('first issue for pricing');
-    await panel().getByRole('button', { name: 'Save', exact: true }).click();
+    await panel().getByRole('button', { name: 'Store on server', exact: true }).click();
     await expect.poll(() => panel().locator('.status').first().innerText()).toMatch(/Stored, showing revision 1/);
     expect(await page.locator('caution-note').last().innerText()).toMatch(/licensed engineer/);
     await s.screenshot('store-saved');

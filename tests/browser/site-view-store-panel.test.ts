@@ -52,7 +52,7 @@ describe('<scenario-store-panel> in two tabs', () => {
     const panelB = tabB.locator('scenario-store-panel');
 
     await panelA.locator('input[name="savedBy"]').fill('tab A');
-    await panelA.getByRole('button', { name: 'Save', exact: true }).click();
+    await panelA.getByRole('button', { name: 'Store on server', exact: true }).click();
     await panelA.getByText('Saved as revision 1').waitFor();
 
     await panelB.getByRole('button', { name: 'List' }).click();
@@ -60,12 +60,12 @@ describe('<scenario-store-panel> in two tabs', () => {
     await panelB.getByText('Opened revision 1').waitFor();
 
     await rename(tabA, 'Ferry Road basement — tab A layout');
-    await panelA.getByRole('button', { name: 'Save revision' }).click();
+    await panelA.getByRole('button', { name: 'Store new revision' }).click();
     await panelA.getByText('Saved as revision 2').waitFor();
 
     await rename(tabB, 'Ferry Road basement — tab B layout');
     await panelB.locator('input[name="savedBy"]').fill('tab B');
-    await panelB.getByRole('button', { name: 'Save revision' }).click();
+    await panelB.getByRole('button', { name: 'Store new revision' }).click();
     const conflict = panelB.locator('.conflict');
     await conflict.waitFor();
     const text = await conflict.innerText();

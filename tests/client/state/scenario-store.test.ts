@@ -24,6 +24,22 @@ describe('ScenarioStore keeps one scenario with undo and redo', () => {
     expect(store.canRedo).toBe(false);
   });
 
+  it('replace() swaps the whole scenario as one undo step, reported as a load both ways', () => {
+    const store = new ScenarioStore(base);
+    const kinds: string[] = [];
+    store.subscribe((_, k) => kinds.push(k));
+    store.apply('rename', (d) => void (d.name = 'edited'));
+    store.replace({ ...base, name: 'other site' }, 'open other');
+    expect(store.scenario.name).toBe('other site');
+    expect(store.undoIsReplace).toBe(true);
+    store.undo();
+    expect(store.scenario.name).toBe('edited');
+    expect(store.undoIsReplace).toBe(false);
+    store.redo();
+    expect(store.scenario.name).toBe('other site');
+    expect(kinds).toEqual(['edit', 'load', 'load', 'load']);
+  });
+
   it('an edit after an undo clears the redo history', () => {
     const store = new ScenarioStore(base);
     store.apply('a', (d) => void (d.name = 'A'));

@@ -10,7 +10,7 @@ import demoWellpoints from '../../fixtures/demo-wellpoints-unconfined.json';
 import demoDeepwells from '../../fixtures/demo-deepwells-confined.json';
 import demoNeighbours from '../../fixtures/demo-neighbours-confined.json';
 import demoClayPlug from '../../fixtures/demo-clay-plug-confined.json';
-import { validateMonitoring, validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
+import { fieldLabelFromPointer, validateMonitoring, validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
 import { logSpacedTimes } from '../../shared/field';
 import { signedDistanceToRing } from '../../shared/contours';
 import { coordinateUnit, formatQuantity, fromSi, resolveDisplayUnits, toSi, type DisplayUnits, type UnitSystem } from '../../shared/units';
@@ -51,6 +51,12 @@ import './site-import-panel';
 import type { PumpingTestPanel } from './pumping-test-panel';
 import type { ScenarioStorePanel } from './scenario-store-panel';
 import type { DesignFloorResult } from '../../shared/design/design-result';
+
+/** A validation issue told to a person: the field's label, then what is wrong (the pointer stays for the API and the tooltip). */
+function plainIssue(issue: { path: string; message: string }): string {
+  const label = fieldLabelFromPointer(issue.path);
+  return `${label.charAt(0).toUpperCase()}${label.slice(1)}: ${issue.message}`;
+}
 
 type Tab = 'layout' | 'ground' | 'test' | 'results' | 'design' | 'section' | 'store' | 'backdrop' | 'import';
 /** The side panel's tabs in order, with their labels (one line per tab keeps additions apart). */
@@ -748,16 +754,16 @@ export class DrydigApp extends LightElement {
     }
     const v = validateScenario(doc);
     if (!v.ok) {
-      const first = v.issues.slice(0, 3).map((i) => `${i.path} ${i.message}`).join('; ');
+      const first = v.issues.slice(0, 3).map(plainIssue).join('; ');
       return this.say(`${file.name} was not opened — ${first}${v.issues.length > 3 ? ` (+${v.issues.length - 3} more)` : ''}. Your current scenario is unchanged.`);
     }
     const monitoringIssue = validateMonitoring(v.scenario)[0];
-    if (monitoringIssue) return this.say(`${file.name} was not opened — ${monitoringIssue.path} ${monitoringIssue.message}. Your current scenario is unchanged.`);
+    if (monitoringIssue) return this.say(`${file.name} was not opened — ${plainIssue(monitoringIssue)}. Your current scenario is unchanged.`);
     const viewIssues = checkViewSettings(v.scenario);
     const scenario = v.scenario as Scenario & { view?: unknown };
     if (viewIssues.length > 0) delete scenario.view;
     this.replaceScenario(scenario, `open ${file.name}`, viewIssues.length > 0
-      ? `Opened ${file.name}; its view settings were ignored (${viewIssues[0]!.path} ${viewIssues[0]!.message}) — the design data is intact.`
+      ? `Opened ${file.name}; its view settings were ignored (${plainIssue(viewIssues[0]!)}) — the design data is intact.`
       : `Opened ${file.name}.`);
   }
 
@@ -875,7 +881,7 @@ export class DrydigApp extends LightElement {
               .designTime_s=${s.design.time_s}
               @focus-excavation=${(e: CustomEvent<string>) => this.focusExcavation(e.detail)}></shortfall-badges>` : nothing}
             ${this.issues.length > 0 ? html`<div class="dd-issues" role="alert"><strong>Results paused — the scenario needs fixing:</strong>
-              <ul>${this.issues.slice(0, 5).map((i) => html`<li><code>${i.path || '/'}</code> ${i.message}</li>`)}</ul></div>` : nothing}
+              <ul>${this.issues.slice(0, 5).map((i) => html`<li title=${i.path || '/'}>${plainIssue(i)}</li>`)}</ul></div>` : nothing}
             ${this.engineError ? html`<div class="dd-issues" role="alert"><strong>Not computed:</strong> ${this.engineError}</div>` : nothing}
             ${this.tool !== 'select' ? html`<div class="dd-tool-hint" role="status">${TOOLS.find((t) => t[0] === this.tool)?.[2] ?? 'Click the map to pick the site point'} — Esc to stop</div>` : nothing}
           </div>
@@ -928,7 +934,7 @@ export class DrydigApp extends LightElement {
   /** A scenario opened from the store (a revision, a restore, theirs after a conflict). */
   private openStored(scenario: Scenario): void {
     const v = validateScenario(scenario);
-    if (!v.ok) return this.say(`The stored scenario could not be opened — ${v.issues[0]?.path} ${v.issues[0]?.message}. Your current scenario is unchanged.`);
+    if (!v.ok) return this.say(`The stored scenario could not be opened — ${v.issues[0] ? plainIssue(v.issues[0]) : 'it is not a drydig scenario'}. Your current scenario is unchanged.`);
     this.replaceScenario(v.scenario, `open stored “${v.scenario.name}”`, `Opened the stored scenario “${v.scenario.name}”.`, false);
   }
 

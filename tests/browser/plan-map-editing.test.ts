@@ -99,7 +99,10 @@ describe('editing on the plan map', () => {
     await page.click('button[name="tab-ground"]');
     await page.fill('ground-panel input[name="base_m"]', '20');
     await page.locator('ground-panel input[name="base_m"]').blur();
-    await expect.poll(() => page.locator('.dd-issues').first().innerText()).toMatch(/Results paused[\s\S]*\/aquifer\/base_m/);
+    await expect.poll(() => page.locator('.dd-issues').first().innerText()).toMatch(/Results paused[\s\S]*Aquifer, base:/);
+    // Plain words in the banner (issue 13 item 11); the pointer stays in the tooltip.
+    expect(await page.locator('.dd-issues li').first().getAttribute('title')).toBe('/aquifer/base_m');
+    expect(await page.locator('.dd-issues').first().innerText()).not.toMatch(/\/aquifer\/base_m/);
     const before = await fieldsDrawn(page);
     await page.click('button[name="undo"]');
     await settle(page, before);

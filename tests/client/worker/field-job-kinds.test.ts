@@ -15,12 +15,13 @@ const wellpoints = wellpointsDemo as unknown as Scenario;
 const clayPlug = clayPlugDemo as unknown as Scenario;
 
 describe('getExcavationShortfall(scenario, excavation, nodes, time_s) states how a pit stands', () => {
-  it('uses the uplift level as the clay plug\'s target: 5 m + 2 m × 19.5 kN/m³ × 0.9 / 9.81 kN/m³', () => {
+  it('uses the uplift level less the margin as the clay plug\'s target: 5 m + 2 m × 19.5 kN/m³ × 0.9 / 9.81 kN/m³ − 0.5 m', () => {
     // EN 1997-1 UPL with the recommended γG,dst = 1.0, γG,stb = 0.9 (national annexes differ);
     // γw = 9.81 kN/m³ (common practice). Plug: clay from formation 7 m down to its base 5 m.
     const r = getExcavationShortfall(clayPlug, clayPlug.excavations[0]!, 21);
     expect(r.governing).toBe('uplift');
-    expect(r.targetLevel_m).toBeCloseTo(5 + (2 * 19.5 * 0.9) / 9.81, 9);
+    // The pit's margin (0.5 m) is kept below the allowable level as reserve, as in the design.
+    expect(r.targetLevel_m).toBeCloseTo(5 + (2 * 19.5 * 0.9) / 9.81 - clayPlug.excavations[0]!.margin_m, 9);
     expect(r.floorFS?.required).toBeCloseTo(1 / 0.9, 12);
     // FS = σ / (γw (h − base)) at the highest head inside (definition of the check).
     expect(r.floorFS!.fs!).toBeCloseTo((2 * 19.5) / (9.81 * (r.worst.level_m - 5)), 9);

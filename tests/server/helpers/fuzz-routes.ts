@@ -1,0 +1,145 @@
+/**
+ * One fuzz case per route of the service (method + Fastify path, as the OpenAPI document lists
+ * them): a generator of hostile requests built from a valid request of that route, with every
+ * kind of sender (designer's session, none, wrong CSRF token, viewer). `fuzz-every-route.test.ts`
+ * checks that no route of the OpenAPI document is left without a case.
+ */
+import { readFileSync } from 'node:fs';
+import fc from 'fast-check';
+import { EXPORT_FORMATS } from '../../../server/storage/http';
+import type { FuzzAuth, FuzzRequest, FuzzWorld } from './fuzz-harness';
+import { fuzzScenario } from './fuzz-harness';
+import { loadFixture } from './demo-fixtures';
+import { hostileJsonText, hostileQuery, hostileSegment, hostileValue, mutatedBody } from './fuzz-values';
+
+export type RouteGroup = 'compute' | 'storage' | 'links' | 'auth' | 'meta';
+
+export interface RouteCase {
+  method: FuzzRequest['method'];
+  /** Fastify path, e.g. `/api/v1/scenarios/:id`. */
+  route: string;
+  group: RouteGroup;
+  /** Runs of this route's property (compute routes cost more per request than reads). */
+  numRuns: number;
+  requests(world: FuzzWorld): fc.Arbitrary<FuzzRequest>;
+}
+
+const FIXTURES = new URL('../../../fixtures/', import.meta.url);
+const sectionFixture = () => JSON.parse(readFileSync(new URL('sections/sheet-pile-cofferdam.json', FIXTURES), 'utf8')) as unknown;
+const pumpingCsv = readFileSync(new URL('pumping-tests/demo-constant-rate.csv', FIXTURES), 'utf8');
+
+const anyAuth: fc.Arbitrary<FuzzAuth> = fc.constantFrom('session', 'session', 'session', 'none', 'bad-csrf', 'viewer');
+
+/** A body as JSON (mostly), or broken text, an empty body, or the wrong content type. */
+function bodyOf(valid: () => unknown): fc.Arbitrary<Pick<FuzzRequest, 'body' | 'contentType'>> {
+  return fc.oneof(
+    { weight: 14, arbitrary: mutatedBody(valid).map((json) => ({ body: { json } })) },
+    { weight: 1, arbitrary: fc.tuple(mutatedBody(valid), fc.nat()).map(([json, cut]) => { const text = hostileJsonText(json); return { body: { text: text.slice(0, cut % (text.length + 1)) } }; }) },
+    { weight: 1, arbitrary: fc.constantFrom<Pick<FuzzRequest, 'body' | 'contentType'>>({ body: { text: '' } }, {}, { body: { text: 'null' } }, { body: { text: '[]' } }, { body: { text: '{"a":1,"a":2}' } }) },
+    { weight: 1, arbitrary: fc.tuple(mutatedBody(valid), fc.constantFrom('text/plain', 'application/x-www-form-urlencoded', 'application/json; charset=utf-16', 'multipart/form-data; boundary=x', '')).map(([json, contentType]) => ({ body: { json }, contentType })) },
+  );
+}
+
+/** A request with a body: path parts and a hostile body from a valid one. */
+function withBody(method: FuzzRequest['method'], url: fc.Arbitrary<string>, valid: () => unknown): fc.Arbitrary<FuzzRequest> {
+  return fc.tuple(url, bodyOf(valid), anyAuth).map(([u, b, auth]) => ({ method, url: u, auth, ...b }));
+}
+
+/** A request without a body (a stray body now and then). */
+function withoutBody(method: FuzzRequest['method'], url: fc.Arbitrary<string>): fc.Arbitrary<FuzzRequest> {
+  return fc.tuple(url, hostileQuery, anyAuth, fc.option(hostileValue, { freq: 8 })).map(([u, q, auth, stray]) => ({
+    method, url: `${u}${u.includes('?') ? '' : q}`, auth, ...(stray === null ? {} : { body: { json: stray } }),
+  }));
+}
+
+const API = '/api/v1';
+/** A scenario id of the right shape that is not stored. */
+const UNKNOWN_ID = 'AAAAAAAAAAAAAAAAAAAAAA';
+
+const scenarioId = (w: FuzzWorld) => hostileSegment([w.scenarioId, w.scenarioId, UNKNOWN_ID]);
+const revision = hostileSegment(['1', '2', '3', '999999999']);
+const token = (w: FuzzWorld) => hostileSegment([w.viewToken, w.editToken, w.pinnedToken, w.revokedToken, 'x'.repeat(43)]);
+const format = hostileSegment([...EXPORT_FORMATS]);
+
+const path = (...parts: Array<string | fc.Arbitrary<string>>): fc.Arbitrary<string> =>
+  fc.tuple(...parts.map((p) => (typeof p === 'string' ? fc.constant(p) : p))).map((ps) => ps.join('/'));
+
+/** Small valid bodies of the compute routes (invented demo sites). */
+function evaluateBody() {
+  const scenario = fuzzScenario();
+  const [w] = scenario.wells;
+  return { scenario, points: [[w!.x + 5, w!.y], [w!.x + 40, w!.y + 10]], times_s: [3600, null, 604_800], grid: { origin: [w!.x - 50, w!.y - 50], spacing_m: [10, 10], counts: [10, 10] } };
+}
+function unconfinedEvaluateBody() {
+  const scenario = loadFixture('unconfined');
+  const [w] = scenario.wells;
+  return { scenario, points: [[w!.x + 3, w!.y]] };
+}
+const designBodies = [
+  () => ({ scenario: fuzzScenario() }),
+  () => ({ scenario: loadFixture('unconfined'), mode: 'uniform' }),
+  () => ({ scenario: fuzzScenario(), mode: 'optimal', options: { pumpEfficiency: 0.6 } }),
+];
+const saveBody = () => ({ scenario: fuzzScenario(), savedBy: 'fuzz', note: 'a note' });
+
+/** Picks one of a few valid bodies for each request. */
+function oneOf(bodies: Array<() => unknown>, method: FuzzRequest['method'], url: fc.Arbitrary<string>): fc.Arbitrary<FuzzRequest> {
+  return fc.oneof(...bodies.map((b) => withBody(method, url, b)));
+}
+
+export const ROUTE_CASES: RouteCase[] = [
+  // compute (no account needed)
+  { method: 'POST', route: `${API}/evaluate`, group: 'compute', numRuns: 60, requests: () => oneOf([evaluateBody, unconfinedEvaluateBody], 'POST', fc.constant(`${API}/evaluate`)) },
+  { method: 'POST', route: `${API}/design`, group: 'compute', numRuns: 40, requests: () => oneOf(designBodies, 'POST', fc.constant(`${API}/design`)) },
+  { method: 'POST', route: `${API}/validate`, group: 'compute', numRuns: 60, requests: () => oneOf([() => ({ scenario: fuzzScenario() }), () => ({ scenario: loadFixture('unconfined') })], 'POST', fc.constant(`${API}/validate`)) },
+  {
+    method: 'POST', route: `${API}/section`, group: 'compute', numRuns: 25,
+    requests: () => oneOf([() => ({ section: sectionFixture(), flowNet: false }), () => ({ scenario: fuzzScenario(), fromScenario: { outsideHead_m: 12 }, compare: { toeLevels_m: [1] }, flowNet: false })], 'POST', fc.constant(`${API}/section`)),
+  },
+  {
+    method: 'POST', route: `${API}/pumping-test`, group: 'compute', numRuns: 30,
+    requests: () => oneOf([
+      () => ({ csv: pumpingCsv, rate_m3_s: 0.012, methods: ['theis', 'cooper-jacob'] }),
+      () => ({ readings: [{ time_s: 60, drawdown_m: 0.3 }, { time_s: 600, drawdown_m: 0.8 }, { time_s: 6000, drawdown_m: 1.3 }], rate_m3_s: 0.01, distance_m: 20 }),
+    ], 'POST', fc.constant(`${API}/pumping-test`)),
+  },
+  // storage (a session needed)
+  { method: 'GET', route: `${API}/scenarios`, group: 'storage', numRuns: 40, requests: () => withoutBody('GET', fc.constant(`${API}/scenarios`)) },
+  { method: 'POST', route: `${API}/scenarios`, group: 'storage', numRuns: 60, requests: () => withBody('POST', fc.constant(`${API}/scenarios`), saveBody) },
+  { method: 'GET', route: `${API}/scenarios/:id`, group: 'storage', numRuns: 30, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w))) },
+  { method: 'PUT', route: `${API}/scenarios/:id`, group: 'storage', numRuns: 50, requests: (w) => withBody('PUT', path(`${API}/scenarios`, scenarioId(w)), () => ({ ...saveBody(), baseRevision: 2 })) },
+  { method: 'GET', route: `${API}/scenarios/:id/revisions`, group: 'storage', numRuns: 30, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'revisions')) },
+  { method: 'GET', route: `${API}/scenarios/:id/revisions/:revision`, group: 'storage', numRuns: 30, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'revisions', revision)) },
+  { method: 'POST', route: `${API}/scenarios/:id/restore`, group: 'storage', numRuns: 40, requests: (w) => withBody('POST', path(`${API}/scenarios`, scenarioId(w), 'restore'), () => ({ revision: 1, baseRevision: 2, note: 'back' })) },
+  { method: 'GET', route: `${API}/scenarios/:id/export/:format`, group: 'storage', numRuns: 30, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'export', format)) },
+  { method: 'GET', route: `${API}/scenarios/:id/monitoring`, group: 'storage', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'monitoring')) },
+  { method: 'GET', route: `${API}/scenarios/:id/readings`, group: 'storage', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'readings')) },
+  {
+    method: 'POST', route: `${API}/scenarios/:id/readings`, group: 'storage', numRuns: 50,
+    requests: (w) => oneOf([
+      () => ({ piezometerId: 'PZ1', level_m: 11.5, time_s: 86_400, note: 'dip meter' }),
+      () => ({ piezometerId: 'PZ2', level_m: 12.1, measuredAt: '2027-03-02T07:00:00Z', enteredBy: 'site' }),
+    ], 'POST', path(`${API}/scenarios`, scenarioId(w), 'readings')),
+  },
+  { method: 'POST', route: `${API}/scenarios/:id/links`, group: 'storage', numRuns: 40, requests: (w) => oneOf([() => ({ mode: 'view', revision: 1, label: 'pinned' }), () => ({ mode: 'edit' })], 'POST', path(`${API}/scenarios`, scenarioId(w), 'links')) },
+  { method: 'GET', route: `${API}/scenarios/:id/links`, group: 'storage', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'links')) },
+  { method: 'DELETE', route: `${API}/scenarios/:id/links/:linkId`, group: 'storage', numRuns: 30, requests: (w) => withoutBody('DELETE', path(`${API}/scenarios`, scenarioId(w), 'links', hostileSegment([...w.revocableLinkIds, 'AAAAAAAAAAAA']))) },
+  { method: 'GET', route: `${API}/audit`, group: 'storage', numRuns: 30, requests: () => withoutBody('GET', fc.constant(`${API}/audit`)) },
+  { method: 'GET', route: `${API}/scenarios/:id/audit`, group: 'storage', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'audit')) },
+  { method: 'POST', route: `${API}/scenarios/:id/issued`, group: 'storage', numRuns: 30, requests: (w) => withBody('POST', path(`${API}/scenarios`, scenarioId(w), 'issued'), () => ({ revision: 2, note: 'for construction' })) },
+  // share links (a token instead of a session)
+  { method: 'GET', route: `${API}/links/:token`, group: 'links', numRuns: 30, requests: (w) => withoutBody('GET', path(`${API}/links`, token(w))) },
+  { method: 'GET', route: `${API}/links/:token/export/:format`, group: 'links', numRuns: 30, requests: (w) => withoutBody('GET', path(`${API}/links`, token(w), 'export', format)) },
+  { method: 'GET', route: `${API}/links/:token/monitoring`, group: 'links', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/links`, token(w), 'monitoring')) },
+  { method: 'GET', route: `${API}/links/:token/readings`, group: 'links', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/links`, token(w), 'readings')) },
+  { method: 'POST', route: `${API}/links/:token/readings`, group: 'links', numRuns: 40, requests: (w) => withBody('POST', path(`${API}/links`, token(w), 'readings'), () => ({ piezometerId: 'PZ1', level_m: 11.4, time_s: 7200 })) },
+  { method: 'PUT', route: `${API}/links/:token/scenario`, group: 'links', numRuns: 40, requests: (w) => withBody('PUT', path(`${API}/links`, token(w), 'scenario'), () => ({ scenario: fuzzScenario(), baseRevision: 2, savedBy: 'site' })) },
+  // accounts
+  { method: 'POST', route: `${API}/auth/login`, group: 'auth', numRuns: 15, requests: () => withBody('POST', fc.constant(`${API}/auth/login`), () => ({ username: 'fuzz-designer', password: 'not the password' })) },
+  { method: 'POST', route: `${API}/auth/logout`, group: 'auth', numRuns: 15, requests: () => withoutBody('POST', fc.constant(`${API}/auth/logout`)).map((r) => ({ ...r, auth: r.auth === 'session' || r.auth === 'viewer' ? 'bad-csrf' : r.auth })) },
+  { method: 'GET', route: `${API}/auth/session`, group: 'auth', numRuns: 15, requests: () => withoutBody('GET', fc.constant(`${API}/auth/session`)) },
+  { method: 'POST', route: `${API}/auth/setup`, group: 'auth', numRuns: 15, requests: () => withBody('POST', fc.constant(`${API}/auth/setup`), () => ({ token: 'x'.repeat(43), username: 'first', password: 'a long enough password' })) },
+  // service
+  { method: 'GET', route: `${API}/health`, group: 'meta', numRuns: 15, requests: () => withoutBody('GET', fc.constant(`${API}/health`)) },
+  { method: 'GET', route: `${API}/openapi.json`, group: 'meta', numRuns: 5, requests: () => withoutBody('GET', fc.constant(`${API}/openapi.json`)) },
+];

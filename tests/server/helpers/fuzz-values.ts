@@ -72,16 +72,19 @@ function pathsOf(value: unknown, prefix: Path = [], out: { all: Path[]; numbers:
 interface Mutation {
   pick: number;
   numeric: boolean;
-  op: 'replace' | 'remove' | 'add' | 'repeat';
+  op: 'replace' | 'scale' | 'remove' | 'add' | 'repeat';
   value: unknown;
+  /** For 'scale': the factor a number is multiplied by (keeps most values in range, but far from usual). */
+  factor: number;
   key: string;
 }
 
 const mutation: fc.Arbitrary<Mutation> = fc.record({
   pick: fc.nat(),
   numeric: fc.boolean(),
-  op: fc.constantFrom('replace', 'replace', 'replace', 'remove', 'add', 'repeat'),
+  op: fc.constantFrom('replace', 'replace', 'replace', 'scale', 'scale', 'scale', 'remove', 'add', 'repeat'),
   value: hostileValue,
+  factor: fc.constantFrom(0, -1, 1e-9, 1e-6, 1e-3, 0.1, 0.5, 0.999999, 1.000001, 2, 10, 1e3, 1e6, 1e9),
   key: fc.oneof(fc.constantFrom('__proto__', 'constructor', 'extra', 'rate_m3_s', 'time_s', 'designOptions'), hostileString),
 });
 
@@ -89,12 +92,14 @@ function applyMutation(body: unknown, mutation: Mutation): unknown {
   // A copy: generated values are shared between runs and a later change may land inside this one.
   const m = { ...mutation, value: structuredClone(mutation.value) };
   const { all, numbers } = pathsOf(body);
-  const pool = m.numeric && numbers.length > 0 ? numbers : all;
+  const pool = (m.numeric || m.op === 'scale') && numbers.length > 0 ? numbers : all;
   if (pool.length === 0) return m.value;
   const path = pool[m.pick % pool.length]!;
   const parent = path.slice(0, -1).reduce<unknown>((node, k) => (node as Record<string | number, unknown>)[k], body) as Record<string | number, unknown> | unknown[];
   const last = path[path.length - 1]!;
-  if (m.op === 'replace' || (m.op === 'repeat' && !Array.isArray(parent))) (parent as Record<string | number, unknown>)[last] = m.value;
+  const current = (parent as Record<string | number, unknown>)[last];
+  if (m.op === 'scale' && typeof current === 'number') (parent as Record<string | number, unknown>)[last] = current * m.factor;
+  else if (m.op === 'scale' || m.op === 'replace' || (m.op === 'repeat' && !Array.isArray(parent))) (parent as Record<string | number, unknown>)[last] = m.value;
   else if (m.op === 'remove') {
     if (Array.isArray(parent)) parent.splice(Number(last), 1);
     else delete (parent as Record<string, unknown>)[last as string];
@@ -106,10 +111,11 @@ function applyMutation(body: unknown, mutation: Mutation): unknown {
   return body;
 }
 
-/** A valid body with one to three hostile changes (or, rarely, none, or a wholly hostile value). */
+/** A valid body with one to four hostile changes (or, rarely, none, or a wholly hostile value). */
 export function mutatedBody(valid: () => unknown): fc.Arbitrary<unknown> {
   return fc.oneof(
-    { weight: 12, arbitrary: fc.array(mutation, { minLength: 1, maxLength: 3 }).map((ms) => ms.reduce((b, m) => applyMutation(b, m), valid())) },
+    { weight: 8, arbitrary: mutation.map((m) => applyMutation(valid(), m)) },
+    { weight: 4, arbitrary: fc.array(mutation, { minLength: 2, maxLength: 4 }).map((ms) => ms.reduce((b, m) => applyMutation(b, m), valid())) },
     { weight: 1, arbitrary: fc.constant(null).map(() => valid()) },
     { weight: 1, arbitrary: hostileValue },
   );

@@ -30,7 +30,7 @@ const RANGE_CASES: Array<[string, (s: ReturnType<typeof fuzzScenario>) => unknow
   ['designOptions {"mode":"nonsense"}', (s) => ({ ...s, designOptions: { mode: 'nonsense' } }), '/scenario/designOptions/mode', /./],
   ['a well rate of 1e308 m³/s', (s) => ({ ...s, wells: s.wells.map((w, i) => (i === 0 ? { ...w, rate_m3_s: 1e308 } : w)) }), '/scenario/wells/0/rate_m3_s', /./],
   ['a design time of 1e308 s', (s) => ({ ...s, design: { time_s: 1e308 } }), '/scenario/design/time_s', /./],
-  ['a piezometer at x = 1e308', (s) => ({ ...s, monitoring: { ...s.monitoring!, piezometers: [{ id: 'PZ9', x: 1e308, y: 0 }] } }), '/scenario/monitoring/piezometers/0/x', /./],
+  ['a piezometer at x = 1e308', (s) => ({ ...s, monitoring: { ...(s as { monitoring?: object }).monitoring, piezometers: [{ id: 'PZ9', x: 1e308, y: 0 }] } }), '/scenario/monitoring/piezometers/0/x', /./],
 ];
 
 describe('out-of-range values are refused on every save, naming the field and the range, and nothing is stored', () => {

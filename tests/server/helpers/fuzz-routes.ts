@@ -90,12 +90,12 @@ function oneOf(bodies: Array<() => unknown>, method: FuzzRequest['method'], url:
 
 export const ROUTE_CASES: RouteCase[] = [
   // compute (no account needed)
-  { method: 'POST', route: `${API}/evaluate`, group: 'compute', numRuns: 60, requests: () => oneOf([evaluateBody, unconfinedEvaluateBody], 'POST', fc.constant(`${API}/evaluate`)) },
-  { method: 'POST', route: `${API}/design`, group: 'compute', numRuns: 40, requests: () => oneOf(designBodies, 'POST', fc.constant(`${API}/design`)) },
-  { method: 'POST', route: `${API}/validate`, group: 'compute', numRuns: 60, requests: () => oneOf([() => ({ scenario: fuzzScenario() }), () => ({ scenario: loadFixture('unconfined') })], 'POST', fc.constant(`${API}/validate`)) },
+  { method: 'POST', route: `${API}/evaluate`, group: 'compute', numRuns: 45, requests: () => oneOf([evaluateBody, unconfinedEvaluateBody], 'POST', fc.constant(`${API}/evaluate`)) },
+  { method: 'POST', route: `${API}/design`, group: 'compute', numRuns: 30, requests: () => oneOf(designBodies, 'POST', fc.constant(`${API}/design`)) },
+  { method: 'POST', route: `${API}/validate`, group: 'compute', numRuns: 50, requests: () => oneOf([() => ({ scenario: fuzzScenario() }), () => ({ scenario: loadFixture('unconfined') })], 'POST', fc.constant(`${API}/validate`)) },
   {
-    method: 'POST', route: `${API}/section`, group: 'compute', numRuns: 25,
-    requests: () => oneOf([() => ({ section: sectionFixture(), flowNet: false }), () => ({ scenario: fuzzScenario(), fromScenario: { outsideHead_m: 12 }, compare: { toeLevels_m: [1] }, flowNet: false })], 'POST', fc.constant(`${API}/section`)),
+    method: 'POST', route: `${API}/section`, group: 'compute', numRuns: 16,
+    requests: () => oneOf([() => ({ section: { ...(sectionFixture() as object), mesh: { maxSize_m: 3, minSize_m: 0.3 } }, flowNet: false }), () => ({ scenario: fuzzScenario(), fromScenario: { outsideHead_m: 12 }, compare: { toeLevels_m: [1] }, flowNet: false })], 'POST', fc.constant(`${API}/section`)),
   },
   {
     method: 'POST', route: `${API}/pumping-test`, group: 'compute', numRuns: 30,

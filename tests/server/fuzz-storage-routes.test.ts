@@ -18,7 +18,9 @@ afterAll(() => fuzz.close());
 describe('hostile requests to the storage and share-link routes', () => {
   for (const c of ROUTE_CASES.filter((r) => r.group === 'storage' || r.group === 'links')) {
     it(`${c.method} ${c.route} never answers 5xx and a refusal leaves no trace (${c.numRuns} requests)`, async () => {
-      await fuzzRoute(fuzz, `${c.method} ${c.route}`, c.requests(fuzz.world), c.numRuns);
+      const statuses = await fuzzRoute(fuzz, `${c.method} ${c.route}`, c.requests(fuzz.world), c.numRuns);
+      // The fuzz reaches past the checks too: some requests are answered, not all refused.
+      expect([...statuses.keys()].some((s) => s < 300), [...statuses].join(' ')).toBe(true);
     }, 120_000);
   }
 });

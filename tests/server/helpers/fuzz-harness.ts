@@ -126,11 +126,12 @@ export async function startFuzzApp(): Promise<FuzzApp> {
   return {
     app,
     world,
-    send: (request) => {
+    send: async (request) => {
       const headers: Record<string, string> = { ...headersFor(request.auth) };
       let payload: string | undefined;
       if (request.body) {
-        payload = 'json' in request.body ? hostileJsonText(request.body.json) : request.body.text;
+        const latest = (await app.scenarioStore.getLatest(world.scenarioId))?.revision;
+        payload = 'json' in request.body ? hostileJsonText(request.body.json, latest) : request.body.text;
         headers['content-type'] = request.contentType ?? 'application/json';
       }
       // Each auth kind from its own address, so the sign-in limit of one never refuses the others.

@@ -10,7 +10,7 @@ import { EXPORT_FORMATS } from '../../../server/storage/http';
 import type { FuzzAuth, FuzzRequest, FuzzWorld } from './fuzz-harness';
 import { fuzzScenario } from './fuzz-harness';
 import { loadFixture } from './demo-fixtures';
-import { hostileJsonText, hostileQuery, hostileSegment, hostileValue, mutatedBody } from './fuzz-values';
+import { hostileJsonText, hostileQuery, hostileSegment, hostileValue, LATEST_REVISION, mutatedBody } from './fuzz-values';
 
 export type RouteGroup = 'compute' | 'storage' | 'links' | 'auth' | 'meta';
 
@@ -40,15 +40,34 @@ function bodyOf(valid: () => unknown): fc.Arbitrary<Pick<FuzzRequest, 'body' | '
   );
 }
 
-/** A request with a body: path parts and a hostile body from a valid one. */
-function withBody(method: FuzzRequest['method'], url: fc.Arbitrary<string>, valid: () => unknown): fc.Arbitrary<FuzzRequest> {
-  return fc.tuple(url, bodyOf(valid), anyAuth).map(([u, b, auth]) => ({ method, url: u, auth, ...b }));
+/** A URL: as the route expects it, and hostile (segments of the wrong shape, unknown ids, oddities). */
+interface Url {
+  valid: fc.Arbitrary<string>;
+  hostile: fc.Arbitrary<string>;
 }
 
-/** A request without a body (a stray body now and then). */
-function withoutBody(method: FuzzRequest['method'], url: fc.Arbitrary<string>): fc.Arbitrary<FuzzRequest> {
-  return fc.tuple(url, hostileQuery, anyAuth, fc.option(hostileValue, { freq: 8 })).map(([u, q, auth, stray]) => ({
-    method, url: `${u}${u.includes('?') ? '' : q}`, auth, ...(stray === null ? {} : { body: { json: stray } }),
+/** Which part of a request is hostile: one part at a time gets further into the service than all at once. */
+type Focus = 'all' | 'path' | 'body' | 'auth';
+const focus: fc.Arbitrary<Focus> = fc.constantFrom<Focus>('all', 'all', 'path', 'path', 'body', 'body', 'body', 'body', 'auth', 'auth');
+
+/** A request with a body: the focused part (or all) hostile, the rest as the route expects. */
+function withBody(method: FuzzRequest['method'], url: Url, valid: () => unknown): fc.Arbitrary<FuzzRequest> {
+  return fc.tuple(focus, url.valid, url.hostile, bodyOf(valid), anyAuth).map(([f, good, bad, b, auth]) => ({
+    method,
+    url: f === 'all' || f === 'path' ? bad : good,
+    auth: f === 'all' || f === 'auth' ? auth : 'session',
+    ...(f === 'all' || f === 'body' ? b : { body: { json: valid() } }),
+  }));
+}
+
+/** A request without a body: the focused part (or all) hostile, a query string and now and then a stray body. */
+function withoutBody(method: FuzzRequest['method'], url: Url): fc.Arbitrary<FuzzRequest> {
+  const stray = fc.oneof({ weight: 7, arbitrary: fc.constant(null) }, { weight: 1, arbitrary: hostileValue });
+  return fc.tuple(focus, url.valid, url.hostile, hostileQuery, anyAuth, stray).map(([f, good, bad, q, auth, body]) => ({
+    method,
+    url: f === 'all' || f === 'path' ? `${bad}${bad.includes('?') ? '' : q}` : good,
+    auth: f === 'all' || f === 'auth' ? auth : 'session',
+    ...(body === null || !(f === 'all' || f === 'body') ? {} : { body: { json: body } }),
   }));
 }
 
@@ -56,13 +75,20 @@ const API = '/api/v1';
 /** A scenario id of the right shape that is not stored. */
 const UNKNOWN_ID = 'AAAAAAAAAAAAAAAAAAAAAA';
 
-const scenarioId = (w: FuzzWorld) => hostileSegment([w.scenarioId, w.scenarioId, UNKNOWN_ID]);
-const revision = hostileSegment(['1', '2', '3', '999999999']);
-const token = (w: FuzzWorld) => hostileSegment([w.viewToken, w.editToken, w.pinnedToken, w.revokedToken, 'x'.repeat(43)]);
-const format = hostileSegment([...EXPORT_FORMATS]);
+/** A path segment: the values that fit the route. */
+interface Segment {
+  fit: readonly string[];
+}
+const scenarioId = (w: FuzzWorld): Segment => ({ fit: [w.scenarioId, w.scenarioId, UNKNOWN_ID] });
+const revision: Segment = { fit: ['1', '2', '3', '999999999'] };
+const token = (w: FuzzWorld): Segment => ({ fit: [w.viewToken, w.editToken, w.pinnedToken, w.revokedToken, 'x'.repeat(43)] });
+const format: Segment = { fit: [...EXPORT_FORMATS] };
 
-const path = (...parts: Array<string | fc.Arbitrary<string>>): fc.Arbitrary<string> =>
-  fc.tuple(...parts.map((p) => (typeof p === 'string' ? fc.constant(p) : p))).map((ps) => ps.join('/'));
+/** A URL from fixed parts and segments (fitting values, or hostile ones). */
+function path(...parts: Array<string | Segment>): Url {
+  const build = (pick: (s: Segment) => fc.Arbitrary<string>) => fc.tuple(...parts.map((p) => (typeof p === 'string' ? fc.constant(p) : pick(p)))).map((ps) => ps.join('/'));
+  return { valid: build((s) => fc.constantFrom(...s.fit)), hostile: build((s) => hostileSegment(s.fit)) };
+}
 
 /** Small valid bodies of the compute routes (invented demo sites). */
 function evaluateBody() {
@@ -84,34 +110,34 @@ const designBodies = [
 const saveBody = () => ({ scenario: fuzzScenario(), savedBy: 'fuzz', note: 'a note' });
 
 /** Picks one of a few valid bodies for each request. */
-function oneOf(bodies: Array<() => unknown>, method: FuzzRequest['method'], url: fc.Arbitrary<string>): fc.Arbitrary<FuzzRequest> {
+function oneOf(bodies: Array<() => unknown>, method: FuzzRequest['method'], url: Url): fc.Arbitrary<FuzzRequest> {
   return fc.oneof(...bodies.map((b) => withBody(method, url, b)));
 }
 
 export const ROUTE_CASES: RouteCase[] = [
   // compute (no account needed)
-  { method: 'POST', route: `${API}/evaluate`, group: 'compute', numRuns: 45, requests: () => oneOf([evaluateBody, unconfinedEvaluateBody], 'POST', fc.constant(`${API}/evaluate`)) },
-  { method: 'POST', route: `${API}/design`, group: 'compute', numRuns: 30, requests: () => oneOf(designBodies, 'POST', fc.constant(`${API}/design`)) },
-  { method: 'POST', route: `${API}/validate`, group: 'compute', numRuns: 50, requests: () => oneOf([() => ({ scenario: fuzzScenario() }), () => ({ scenario: loadFixture('unconfined') })], 'POST', fc.constant(`${API}/validate`)) },
+  { method: 'POST', route: `${API}/evaluate`, group: 'compute', numRuns: 45, requests: () => oneOf([evaluateBody, unconfinedEvaluateBody], 'POST', path(`${API}/evaluate`)) },
+  { method: 'POST', route: `${API}/design`, group: 'compute', numRuns: 30, requests: () => oneOf(designBodies, 'POST', path(`${API}/design`)) },
+  { method: 'POST', route: `${API}/validate`, group: 'compute', numRuns: 50, requests: () => oneOf([() => ({ scenario: fuzzScenario() }), () => ({ scenario: loadFixture('unconfined') })], 'POST', path(`${API}/validate`)) },
   {
     method: 'POST', route: `${API}/section`, group: 'compute', numRuns: 16,
-    requests: () => oneOf([() => ({ section: { ...(sectionFixture() as object), mesh: { maxSize_m: 3, minSize_m: 0.3 } }, flowNet: false }), () => ({ scenario: fuzzScenario(), fromScenario: { outsideHead_m: 12 }, compare: { toeLevels_m: [1] }, flowNet: false })], 'POST', fc.constant(`${API}/section`)),
+    requests: () => oneOf([() => ({ section: { ...(sectionFixture() as object), mesh: { maxSize_m: 3, minSize_m: 0.3 } }, flowNet: false }), () => ({ scenario: fuzzScenario(), fromScenario: { outsideHead_m: 12 }, compare: { toeLevels_m: [1] }, flowNet: false })], 'POST', path(`${API}/section`)),
   },
   {
     method: 'POST', route: `${API}/pumping-test`, group: 'compute', numRuns: 30,
     requests: () => oneOf([
       () => ({ csv: pumpingCsv, rate_m3_s: 0.012, methods: ['theis', 'cooper-jacob'] }),
       () => ({ readings: [{ time_s: 60, drawdown_m: 0.3 }, { time_s: 600, drawdown_m: 0.8 }, { time_s: 6000, drawdown_m: 1.3 }], rate_m3_s: 0.01, distance_m: 20 }),
-    ], 'POST', fc.constant(`${API}/pumping-test`)),
+    ], 'POST', path(`${API}/pumping-test`)),
   },
   // storage (a session needed)
-  { method: 'GET', route: `${API}/scenarios`, group: 'storage', numRuns: 40, requests: () => withoutBody('GET', fc.constant(`${API}/scenarios`)) },
-  { method: 'POST', route: `${API}/scenarios`, group: 'storage', numRuns: 60, requests: () => withBody('POST', fc.constant(`${API}/scenarios`), saveBody) },
+  { method: 'GET', route: `${API}/scenarios`, group: 'storage', numRuns: 40, requests: () => withoutBody('GET', path(`${API}/scenarios`)) },
+  { method: 'POST', route: `${API}/scenarios`, group: 'storage', numRuns: 60, requests: () => withBody('POST', path(`${API}/scenarios`), saveBody) },
   { method: 'GET', route: `${API}/scenarios/:id`, group: 'storage', numRuns: 30, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w))) },
-  { method: 'PUT', route: `${API}/scenarios/:id`, group: 'storage', numRuns: 50, requests: (w) => withBody('PUT', path(`${API}/scenarios`, scenarioId(w)), () => ({ ...saveBody(), baseRevision: 2 })) },
+  { method: 'PUT', route: `${API}/scenarios/:id`, group: 'storage', numRuns: 50, requests: (w) => withBody('PUT', path(`${API}/scenarios`, scenarioId(w)), () => ({ ...saveBody(), baseRevision: LATEST_REVISION })) },
   { method: 'GET', route: `${API}/scenarios/:id/revisions`, group: 'storage', numRuns: 30, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'revisions')) },
   { method: 'GET', route: `${API}/scenarios/:id/revisions/:revision`, group: 'storage', numRuns: 30, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'revisions', revision)) },
-  { method: 'POST', route: `${API}/scenarios/:id/restore`, group: 'storage', numRuns: 40, requests: (w) => withBody('POST', path(`${API}/scenarios`, scenarioId(w), 'restore'), () => ({ revision: 1, baseRevision: 2, note: 'back' })) },
+  { method: 'POST', route: `${API}/scenarios/:id/restore`, group: 'storage', numRuns: 40, requests: (w) => withBody('POST', path(`${API}/scenarios`, scenarioId(w), 'restore'), () => ({ revision: 1, baseRevision: LATEST_REVISION, note: 'back' })) },
   { method: 'GET', route: `${API}/scenarios/:id/export/:format`, group: 'storage', numRuns: 30, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'export', format)) },
   { method: 'GET', route: `${API}/scenarios/:id/monitoring`, group: 'storage', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'monitoring')) },
   { method: 'GET', route: `${API}/scenarios/:id/readings`, group: 'storage', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'readings')) },
@@ -124,8 +150,8 @@ export const ROUTE_CASES: RouteCase[] = [
   },
   { method: 'POST', route: `${API}/scenarios/:id/links`, group: 'storage', numRuns: 40, requests: (w) => oneOf([() => ({ mode: 'view', revision: 1, label: 'pinned' }), () => ({ mode: 'edit' })], 'POST', path(`${API}/scenarios`, scenarioId(w), 'links')) },
   { method: 'GET', route: `${API}/scenarios/:id/links`, group: 'storage', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'links')) },
-  { method: 'DELETE', route: `${API}/scenarios/:id/links/:linkId`, group: 'storage', numRuns: 30, requests: (w) => withoutBody('DELETE', path(`${API}/scenarios`, scenarioId(w), 'links', hostileSegment([...w.revocableLinkIds, 'AAAAAAAAAAAA']))) },
-  { method: 'GET', route: `${API}/audit`, group: 'storage', numRuns: 30, requests: () => withoutBody('GET', fc.constant(`${API}/audit`)) },
+  { method: 'DELETE', route: `${API}/scenarios/:id/links/:linkId`, group: 'storage', numRuns: 30, requests: (w) => withoutBody('DELETE', path(`${API}/scenarios`, scenarioId(w), 'links', { fit: [...w.revocableLinkIds, 'AAAAAAAAAAAA'] })) },
+  { method: 'GET', route: `${API}/audit`, group: 'storage', numRuns: 30, requests: () => withoutBody('GET', path(`${API}/audit`)) },
   { method: 'GET', route: `${API}/scenarios/:id/audit`, group: 'storage', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/scenarios`, scenarioId(w), 'audit')) },
   { method: 'POST', route: `${API}/scenarios/:id/issued`, group: 'storage', numRuns: 30, requests: (w) => withBody('POST', path(`${API}/scenarios`, scenarioId(w), 'issued'), () => ({ revision: 2, note: 'for construction' })) },
   // share links (a token instead of a session)
@@ -134,13 +160,13 @@ export const ROUTE_CASES: RouteCase[] = [
   { method: 'GET', route: `${API}/links/:token/monitoring`, group: 'links', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/links`, token(w), 'monitoring')) },
   { method: 'GET', route: `${API}/links/:token/readings`, group: 'links', numRuns: 20, requests: (w) => withoutBody('GET', path(`${API}/links`, token(w), 'readings')) },
   { method: 'POST', route: `${API}/links/:token/readings`, group: 'links', numRuns: 40, requests: (w) => withBody('POST', path(`${API}/links`, token(w), 'readings'), () => ({ piezometerId: 'PZ1', level_m: 11.4, time_s: 7200 })) },
-  { method: 'PUT', route: `${API}/links/:token/scenario`, group: 'links', numRuns: 40, requests: (w) => withBody('PUT', path(`${API}/links`, token(w), 'scenario'), () => ({ scenario: fuzzScenario(), baseRevision: 2, savedBy: 'site' })) },
+  { method: 'PUT', route: `${API}/links/:token/scenario`, group: 'links', numRuns: 40, requests: (w) => withBody('PUT', path(`${API}/links`, { fit: [w.editToken, w.editToken, w.editToken, w.pinnedToken, w.viewToken] }, 'scenario'), () => ({ scenario: fuzzScenario(), baseRevision: LATEST_REVISION, savedBy: 'site' })) },
   // accounts
-  { method: 'POST', route: `${API}/auth/login`, group: 'auth', numRuns: 15, requests: () => withBody('POST', fc.constant(`${API}/auth/login`), () => ({ username: 'fuzz-designer', password: 'not the password' })) },
-  { method: 'POST', route: `${API}/auth/logout`, group: 'auth', numRuns: 15, requests: () => withoutBody('POST', fc.constant(`${API}/auth/logout`)).map((r) => ({ ...r, auth: r.auth === 'session' || r.auth === 'viewer' ? 'bad-csrf' : r.auth })) },
-  { method: 'GET', route: `${API}/auth/session`, group: 'auth', numRuns: 15, requests: () => withoutBody('GET', fc.constant(`${API}/auth/session`)) },
-  { method: 'POST', route: `${API}/auth/setup`, group: 'auth', numRuns: 15, requests: () => withBody('POST', fc.constant(`${API}/auth/setup`), () => ({ token: 'x'.repeat(43), username: 'first', password: 'a long enough password' })) },
+  { method: 'POST', route: `${API}/auth/login`, group: 'auth', numRuns: 15, requests: () => withBody('POST', path(`${API}/auth/login`), () => ({ username: 'fuzz-designer', password: 'not the password' })) },
+  { method: 'POST', route: `${API}/auth/logout`, group: 'auth', numRuns: 15, requests: () => withoutBody('POST', path(`${API}/auth/logout`)).map((r) => ({ ...r, auth: r.auth === 'session' || r.auth === 'viewer' ? 'bad-csrf' : r.auth })) },
+  { method: 'GET', route: `${API}/auth/session`, group: 'auth', numRuns: 15, requests: () => withoutBody('GET', path(`${API}/auth/session`)) },
+  { method: 'POST', route: `${API}/auth/setup`, group: 'auth', numRuns: 15, requests: () => withBody('POST', path(`${API}/auth/setup`), () => ({ token: 'x'.repeat(43), username: 'first', password: 'a long enough password' })) },
   // service
-  { method: 'GET', route: `${API}/health`, group: 'meta', numRuns: 15, requests: () => withoutBody('GET', fc.constant(`${API}/health`)) },
-  { method: 'GET', route: `${API}/openapi.json`, group: 'meta', numRuns: 3, requests: () => withoutBody('GET', fc.constant(`${API}/openapi.json`)) },
+  { method: 'GET', route: `${API}/health`, group: 'meta', numRuns: 15, requests: () => withoutBody('GET', path(`${API}/health`)) },
+  { method: 'GET', route: `${API}/openapi.json`, group: 'meta', numRuns: 3, requests: () => withoutBody('GET', path(`${API}/openapi.json`)) },
 ];

@@ -10,9 +10,13 @@ import fc from 'fast-check';
 export const RAW_INFINITY = '\u0000fuzz:+1e999\u0000';
 export const RAW_NEGATIVE_INFINITY = '\u0000fuzz:-1e999\u0000';
 
-/** JSON text of a value, with the raw-infinity placeholders written as `1e999` / `-1e999`. */
-export function hostileJsonText(value: unknown): string {
+/** Placeholder for the stored scenario's latest revision, filled in when the request is sent (saves name their base revision). */
+export const LATEST_REVISION = '\u0000fuzz:latest\u0000';
+
+/** JSON text of a value, with the raw-infinity placeholders written as `1e999` / `-1e999` (and the latest revision, when known). */
+export function hostileJsonText(value: unknown, latestRevision?: number): string {
   return JSON.stringify(value)
+    .split(JSON.stringify(LATEST_REVISION)).join(latestRevision === undefined ? JSON.stringify(LATEST_REVISION) : String(latestRevision))
     .split(JSON.stringify(RAW_INFINITY)).join('1e999')
     .split(JSON.stringify(RAW_NEGATIVE_INFINITY)).join('-1e999');
 }
@@ -111,12 +115,12 @@ function applyMutation(body: unknown, mutation: Mutation): unknown {
   return body;
 }
 
-/** A valid body with one to four hostile changes (or, rarely, none, or a wholly hostile value). */
+/** A valid body with one to four hostile changes (or none, or a wholly hostile value instead). */
 export function mutatedBody(valid: () => unknown): fc.Arbitrary<unknown> {
   return fc.oneof(
     { weight: 8, arbitrary: mutation.map((m) => applyMutation(valid(), m)) },
-    { weight: 4, arbitrary: fc.array(mutation, { minLength: 2, maxLength: 4 }).map((ms) => ms.reduce((b, m) => applyMutation(b, m), valid())) },
-    { weight: 1, arbitrary: fc.constant(null).map(() => valid()) },
+    { weight: 3, arbitrary: fc.array(mutation, { minLength: 2, maxLength: 4 }).map((ms) => ms.reduce((b, m) => applyMutation(b, m), valid())) },
+    { weight: 3, arbitrary: fc.constant(null).map(() => valid()) },
     { weight: 1, arbitrary: hostileValue },
   );
 }
@@ -124,7 +128,7 @@ export function mutatedBody(valid: () => unknown): fc.Arbitrary<unknown> {
 /** A hostile path segment: a value that fits, a wrong-shaped one, or encoded oddities. */
 export function hostileSegment(fitting: readonly string[]): fc.Arbitrary<string> {
   return fc.oneof(
-    { weight: 3, arbitrary: fc.constantFrom(...fitting) },
+    { weight: 5, arbitrary: fc.constantFrom(...fitting) },
     { weight: 2, arbitrary: hostileString.map((s) => encodeURIComponent(s)) },
     { weight: 1, arbitrary: fc.constantFrom('%', '%zz', '%ff', '..', '.', '%2e%2e', 'a'.repeat(3000), '%00', '0', '-1', '1e3', '999999999', '1000000000', 'null') },
     { weight: 1, arbitrary: fc.stringMatching(/^[A-Za-z0-9_-]{1,50}$/) },

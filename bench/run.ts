@@ -45,6 +45,7 @@ const OTHER_BENCHES: ReadonlyArray<readonly [string, string]> = [
   ['design.ts', 'runDesignBench'],
   ['load.ts', 'runLoadBench'],
   ['section.ts', 'runSectionBench'],
+  ['monte-carlo.ts', 'runMonteCarloBench'],
   ['health-under-load.ts', 'runHealthUnderLoadBench'],
 ];
 

@@ -8,6 +8,7 @@ import { healthRoutes } from './routes/health';
 import { evaluateRoutes } from './routes/evaluate';
 import { installRouteCatalog, openapiRoutes } from './routes/openapi';
 import { designRoutes } from './routes/design';
+import { designJobRoutes } from './routes/design-jobs';
 import { validateRoutes } from './routes/validate';
 import { pumpingTestRoutes } from './routes/pumping-test';
 import { sectionRoutes, type SectionSolverOptions } from './routes/section';
@@ -113,6 +114,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   await app.register(healthRoutes, { prefix: '/api/v1', limits: { bodyLimit_bytes, maxGridNodes, maxPoints } });
   await app.register(evaluateRoutes, { prefix: '/api/v1', maxGridNodes, maxPoints, security, ...(options.maxWork ? { maxWork: options.maxWork } : {}) });
   await app.register(designRoutes, { prefix: '/api/v1', security });
+  await app.register(designJobRoutes, { prefix: '/api/v1', security });
   await app.register(validateRoutes, { prefix: '/api/v1' });
   await app.register(pumpingTestRoutes, { prefix: '/api/v1', security });
   await app.register(sectionRoutes, { prefix: '/api/v1', solver: options.section, security });

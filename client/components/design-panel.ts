@@ -18,9 +18,14 @@ import type { DesignResult } from '../../shared/design/design-result';
 import { designResultToCsv } from '../../shared/design/design-csv';
 import { linearScale, niceTicks } from './chart-axes';
 import { formatDuration } from './time-format';
+import { describeRecovery, RECOVERY_STANDBY_NOTE } from '../../shared/design/design-wording';
 import './floor-check-view';
+import './uncertainty-view';
 import { CAUTION_TEXT } from './caution-note';
 import { defaultDisplayUnits, formatQuantity, fromSi, toSi, type DisplayUnits, type FormatQuantityOptions, type UnitId } from '../../shared/units';
+
+/** First letter upper case (a shared phrase opening a sentence). */
+const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
 /** The options the panel edits, in display units (converted to SI when the request is built). */
 interface PanelOptions {
@@ -42,6 +47,25 @@ const EMPTY_OPTIONS: PanelOptions = {
   controlSpacing_m: '', suctionLiftLimit_m: '', headerLevel_m: '', pumpEfficiency: '', safetyFactor: '', pumpCapacity_rate: '',
   energyPrice_per_kWh: '', wellCost: '', pumpedVolumeCost_per_m3: '', duration_d: '', outOfServiceWell: '',
 };
+
+/** The uncertainty settings the panel edits (design.md §8; blank = off or default). */
+interface UnknownsOptions {
+  sensitivity: boolean;
+  /** Comma-separated factors; blank = 1/3, 1/2, 1, 2, 3. */
+  sensitivityFactors: string;
+  /** Monte Carlo realisations; blank = no Monte Carlo. */
+  runs: string;
+  seed: string;
+  kSpread: string;
+  priceAtP90: boolean;
+  oneWellOut: boolean;
+  kFactor: string;
+}
+
+const EMPTY_UNKNOWNS: UnknownsOptions = { sensitivity: false, sensitivityFactors: '', runs: '', seed: '', kSpread: '', priceAtP90: false, oneWellOut: false, kFactor: '' };
+
+/** Polling interval of a design job's progress, ms. */
+const JOB_POLL_MS = 400;
 
 const MODE_TEXT: Record<DesignMode, string> = {
   uniform: 'One rate for every active well',
@@ -69,6 +93,17 @@ design-panel .dd-chart .dd-formation { stroke: #6b4f2a; stroke-dasharray: 2 3; s
 design-panel .dd-k-recovery { border-top-style: dashed; border-color: var(--short); }
 design-panel .dd-k-formation { border-top-style: dotted; border-color: #6b4f2a; }
 design-panel .dd-design-options { display: grid; grid-template-columns: 1fr 1fr; gap: 6px 8px; }
+design-panel .dd-design-progress progress[value] { width: 140px; }
+design-panel .dd-sens-conductivity { stroke: #0b5cad; fill: #0b5cad; stroke-width: 1.8; }
+design-panel path.dd-sens-conductivity, design-panel path.dd-sens-storage { fill: none; }
+design-panel .dd-sens-storage { stroke: #8a4f00; fill: #8a4f00; stroke-width: 1.8; stroke-dasharray: 5 3; }
+design-panel circle.dd-sens-short { fill: #fff; }
+design-panel .dd-sens-none { fill: var(--short); font-size: 11px; }
+design-panel .dd-k-sens-conductivity { border-color: #0b5cad; }
+design-panel .dd-k-sens-storage { border-color: #8a4f00; border-top-style: dashed; }
+design-panel .dd-hist-bar { fill: #7fa9d6; }
+design-panel .dd-hist-mark { stroke: #22313f; stroke-dasharray: 3 2; stroke-width: 1.2; }
+design-panel .dd-hist-design { stroke: var(--met); stroke-dasharray: none; }
 `;
 
 const num = (v: number | null | undefined, digits = 3) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : String(Number(v.toPrecision(digits))));
@@ -111,6 +146,9 @@ export class DesignPanel extends LightElement {
     result: { state: true },
     error: { state: true },
     stale: { state: true },
+    unknowns: { state: true },
+    progressFraction: { state: true },
+    progressStage: { state: true },
   };
   declare scenario: Scenario | undefined;
   /** Display units for flows, heads, levels and lengths (the app's choice). Default SI. */
@@ -125,6 +163,11 @@ export class DesignPanel extends LightElement {
   declare error: string;
   /** The scenario changed since the result was computed. */
   declare stale: boolean;
+  declare unknowns: UnknownsOptions;
+  /** Progress of a design job (null: a plain run, no measured progress). */
+  declare progressFraction: number | null;
+  declare progressStage: string;
+  private jobId: string | null = null;
   private abort: AbortController | null = null;
   private timer: ReturnType<typeof setInterval> | null = null;
   private resultFor: Scenario | undefined;
@@ -141,6 +184,9 @@ export class DesignPanel extends LightElement {
     this.result = null;
     this.error = '';
     this.stale = false;
+    this.unknowns = { ...EMPTY_UNKNOWNS };
+    this.progressFraction = null;
+    this.progressStage = '';
   }
 
   override disconnectedCallback(): void {
@@ -199,6 +245,51 @@ export class DesignPanel extends LightElement {
       out[name] = v * factor;
     }
     if (o.outOfServiceWell) out.outOfServiceWell = o.outOfServiceWell;
+    const unknowns = this.buildUnknowns();
+    if (!unknowns.ok) return unknowns;
+    return { ok: true, options: { ...out, ...unknowns.options } };
+  }
+
+  /** The sensitivity, Monte Carlo and robust options from the panel's fields; a bad entry is reported by its label. */
+  private buildUnknowns(): { ok: true; options: Record<string, unknown> } | { ok: false; message: string } {
+    const u = this.unknowns;
+    const out: Record<string, unknown> = {};
+    const number = (text: string) => Number(text.trim().replace(',', '.'));
+    if (u.sensitivity) {
+      const text = u.sensitivityFactors.trim();
+      if (text === '') out.sensitivity = {};
+      else {
+        // A list: commas, semicolons or spaces between factors; a fraction such as 1/3 is taken as one.
+        const factors = text.split(/[;,\s]+/).filter(Boolean).map((t) => (t.includes('/') ? Number(t.split('/')[0]) / Number(t.split('/')[1]) : Number(t)));
+        if (factors.some((f) => !(f > 0))) return { ok: false, message: `The sensitivity factors "${text}" must be positive numbers (e.g. 1/3, 0.5, 1, 2, 3).` };
+        out.sensitivity = { factors };
+      }
+    }
+    if (u.runs.trim() !== '') {
+      const runs = number(u.runs);
+      if (!Number.isInteger(runs) || runs < 1) return { ok: false, message: `The Monte Carlo runs "${u.runs}" must be a whole number of at least 1.` };
+      const mc: Record<string, unknown> = { runs };
+      if (u.seed.trim() !== '') {
+        const seed = number(u.seed);
+        if (!Number.isInteger(seed) || seed < 0) return { ok: false, message: `The seed "${u.seed}" must be a whole number of 0 or more.` };
+        mc.seed = seed;
+      }
+      if (u.kSpread.trim() !== '') {
+        const f = number(u.kSpread);
+        if (!(f >= 1)) return { ok: false, message: `The K spread "${u.kSpread}" must be a number of 1 or more (a factor).` };
+        mc.kSpread = f;
+      }
+      if (u.priceAtP90) mc.priceAtP90 = true;
+      out.monteCarlo = mc;
+    }
+    const robust: Record<string, unknown> = {};
+    if (u.oneWellOut) robust.oneWellOut = true;
+    if (u.kFactor.trim() !== '') {
+      const f = number(u.kFactor);
+      if (!(f >= 1)) return { ok: false, message: `The robust K factor "${u.kFactor}" must be a number of 1 or more.` };
+      robust.conductivityFactor = f;
+    }
+    if (Object.keys(robust).length > 0) out.robust = robust;
     return { ok: true, options: out };
   }
 
@@ -216,21 +307,17 @@ export class DesignPanel extends LightElement {
     const started = Date.now();
     this.timer = setInterval(() => (this.elapsed_s = Math.round((Date.now() - started) / 1000)), 500);
     this.abort = new AbortController();
+    this.progressFraction = null;
+    this.progressStage = '';
+    const request = { scenario, mode: this.mode, ...(Object.keys(built.options).length > 0 ? { options: built.options } : {}) };
     try {
-      const res = await fetch(`${this.apiBase}/api/v1/design`, {
-        method: 'POST',
-        headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ scenario, mode: this.mode, ...(Object.keys(built.options).length > 0 ? { options: built.options } : {}) }),
-        signal: this.abort.signal,
-      });
-      const text = await res.text();
-      const body = text ? (JSON.parse(text) as unknown) : null;
-      if (!res.ok) {
-        const e = (body as { error?: { message?: string; fix?: string } } | null)?.error;
-        this.error = e?.message ? `${e.message}${e.fix ? `. ${e.fix}` : ''}` : `The design service answered ${res.status}.`;
+      // A Monte Carlo run is long: it runs as a job whose progress is polled and which Cancel stops on the server.
+      const answer = built.options.monteCarlo ? await this.runJob(request, this.abort.signal) : await this.postJson('/api/v1/design', request, this.abort.signal);
+      if (!answer.ok) {
+        this.error = answer.message;
         return;
       }
-      this.result = body as DesignResult;
+      this.result = answer.body as DesignResult;
       this.resultFor = scenario;
       this.stale = false;
       this.emit('design-result', this.result);
@@ -241,7 +328,83 @@ export class DesignPanel extends LightElement {
       if (this.timer !== null) clearInterval(this.timer);
       this.timer = null;
       this.abort = null;
+      this.jobId = null;
+      this.progressFraction = null;
     }
+  }
+
+  /** POST (or another method) with JSON; the error body's message and fix in words when not ok. */
+  private async postJson(path: string, body: unknown, signal: AbortSignal, method = 'POST'): Promise<{ ok: true; body: unknown } | { ok: false; message: string }> {
+    const res = await fetch(`${this.apiBase}${path}`, {
+      method,
+      ...(body !== undefined ? { headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) } : {}),
+      signal,
+    });
+    const text = await res.text();
+    const parsed = text ? (JSON.parse(text) as unknown) : null;
+    if (!res.ok) {
+      const e = (parsed as { error?: { message?: string; fix?: string } } | null)?.error;
+      return { ok: false, message: e?.message ? `${e.message}${e.fix ? `. ${e.fix}` : ''}` : `The design service answered ${res.status}.` };
+    }
+    return { ok: true, body: parsed };
+  }
+
+  /** Runs the design as a job: start it, poll its progress until it is done, failed or cancelled. */
+  private async runJob(request: unknown, signal: AbortSignal): Promise<{ ok: true; body: unknown } | { ok: false; message: string }> {
+    const started = await this.postJson('/api/v1/design/jobs', request, signal);
+    if (!started.ok) return started;
+    type JobView = { id: string; state: string; stage: string; fraction: number; result?: unknown; error?: { message: string; fix?: string } };
+    let job = started.body as JobView;
+    this.jobId = job.id;
+    this.progressFraction = job.fraction;
+    this.progressStage = job.stage;
+    while (job.state === 'running') {
+      await new Promise((resolve) => setTimeout(resolve, JOB_POLL_MS));
+      if (signal.aborted) throw Object.assign(new Error('cancelled'), { name: 'AbortError' });
+      const polled = await this.postJson(`/api/v1/design/jobs/${encodeURIComponent(job.id)}`, undefined, signal, 'GET');
+      if (!polled.ok) return polled;
+      job = polled.body as JobView;
+      this.progressFraction = job.fraction;
+      this.progressStage = job.stage;
+    }
+    if (job.state === 'done') return { ok: true, body: job.result };
+    if (job.state === 'cancelled') return { ok: false, message: 'Design run cancelled.' };
+    return { ok: false, message: job.error ? `${job.error.message}${job.error.fix ? `. ${job.error.fix}` : ''}` : 'The design job failed.' };
+  }
+
+  /** Cancel: stops the fetch, and a running job on the server too. */
+  private cancel(): void {
+    const id = this.jobId;
+    if (id !== null) void fetch(`${this.apiBase}/api/v1/design/jobs/${encodeURIComponent(id)}`, { method: 'DELETE' }).catch(() => undefined);
+    this.abort?.abort();
+  }
+
+  private setUnknown<K extends keyof UnknownsOptions>(key: K, value: UnknownsOptions[K]): void {
+    this.unknowns = { ...this.unknowns, [key]: value };
+  }
+
+  /** The uncertainty settings: sensitivity table, Monte Carlo, robust designs. */
+  private renderUnknowns() {
+    const u = this.unknowns;
+    const text = (key: 'sensitivityFactors' | 'runs' | 'seed' | 'kSpread' | 'kFactor', label: string, placeholder: string, unit = '') =>
+      html`<label class="dd-field"><span>${label}</span><span class="dd-input-unit"><input type="text" inputmode="decimal" name=${`design-${key}`} placeholder=${placeholder} .value=${u[key]}
+        @change=${(e: Event) => this.setUnknown(key, (e.target as HTMLInputElement).value)} /><em>${unit}</em></span></label>`;
+    const check = (key: 'sensitivity' | 'priceAtP90' | 'oneWellOut', label: string) =>
+      html`<label class="dd-check"><input type="checkbox" name=${`design-${key}`} .checked=${u[key]} @change=${(e: Event) => this.setUnknown(key, (e.target as HTMLInputElement).checked)} /> ${label}</label>`;
+    const hasTest = (this.scenario as { pumpingTest?: { conductivityInterval_m_s?: unknown } } | undefined)?.pumpingTest?.conductivityInterval_m_s !== undefined;
+    return html`<details class="dd-section-block" data-block="design-unknowns"><summary><h3>Unknowns <small>sensitivity, Monte Carlo, robust designs</small></h3></summary>
+      <div class="dd-design-options">
+        ${check('sensitivity', 'Sensitivity table (K and S scaled)')}
+        ${text('sensitivityFactors', 'Factors', '1/3, 1/2, 1, 2, 3')}
+        ${text('runs', 'Monte Carlo runs', 'off (e.g. 1000)')}
+        ${text('seed', 'Seed', '1')}
+        ${text('kSpread', 'K spread (geometric sd)', hasTest ? 'from the pumping test' : '2', '×')}
+        ${check('priceAtP90', 'Price the bid at P90')}
+        ${check('oneWellOut', 'Robust: any one well out')}
+        ${text('kFactor', 'Robust: K ÷/× factor', 'off (e.g. 2)', '×')}
+      </div>
+      <p class="dd-hint">K lognormal around the scenario's K; a spread F puts 68 % of realisations between K/F and K·F. The default spread 2 is a placeholder of our own.</p>
+    </details>`;
   }
 
   private applyRates(): void {
@@ -302,11 +465,14 @@ export class DesignPanel extends LightElement {
         </div>
         <p class="dd-hint">Suction lift 5.5 m is common practice; prices and costs are placeholders until you enter your own.</p>
       </details>
+      ${this.renderUnknowns()}
       <div class="dd-design-run">
         <button type="button" class="dd-primary" name="run-design" ?disabled=${!s || this.running} @click=${() => void this.run()}>${this.running ? 'Designing…' : 'Run design'}</button>
         ${this.running
-          ? html`<span class="dd-design-progress" role="status"><progress aria-label="Design running"></progress> ${this.elapsed_s} s
-              <button type="button" class="dd-small" @click=${() => this.abort?.abort()}>Cancel</button></span>`
+          ? html`<span class="dd-design-progress" role="status">${this.progressFraction === null
+                ? html`<progress aria-label="Design running"></progress>`
+                : html`<progress aria-label="Design progress" max="1" .value=${this.progressFraction}></progress> <span data-progress-stage>${this.progressStage} (${Math.round(this.progressFraction * 100)} %)</span>`} ${this.elapsed_s} s
+              <button type="button" class="dd-small" name="cancel-design" @click=${() => this.cancel()}>Cancel</button></span>`
           : nothing}
         ${r ? html`<button type="button" name="apply-rates" ?disabled=${this.running} @click=${() => this.applyRates()} title="Set each well's rate to the design rate (undo with Ctrl+Z)">Apply rates</button>
           <button type="button" name="export-design-csv" @click=${() => this.exportCsv()}>Export CSV</button>` : nothing}
@@ -335,7 +501,7 @@ export class DesignPanel extends LightElement {
               <span class="dd-badge-value">${e.met ? 'met' : 'not met'}, highest level ${this.length(e.critical.level_m, 2)} vs target ${this.length(e.targetLevel_m, 2)} (${this.shortfall(e.worstShortfall_m, true)})</span>
               <small>critical point (${this.coordinate(e.critical.x)}, ${this.coordinate(e.critical.y)}), ${e.critical.kind};
                 ${e.timeToTarget_s !== null ? `target reached after ${formatDuration(e.timeToTarget_s)}` : r.designTime_s === null ? 'steady design' : 'target not reached by the design time'};
-                power failure: back at formation level after ${e.recoveryToFormation_s === null ? 'more than the checked span' : formatDuration(e.recoveryToFormation_s)}</small></span>
+                <span data-recovery>power failure: ${describeRecovery(e, formatDuration)}</span></small></span>
           </div>`,
         )}
       </div>
@@ -369,6 +535,7 @@ export class DesignPanel extends LightElement {
           : nothing}
         ${r.chosenWellIds ? html`<dt>Chosen to install</dt><dd>${r.chosenWellIds.length} of ${r.wells.length}</dd>` : nothing}
       </dl>
+      <uncertainty-view .result=${r} .formatFlow=${(q: number) => this.flow(q)} .formatShortfall=${(v: number) => this.shortfall(v, true)}></uncertainty-view>
       ${r.timeSeries ? this.renderChart(r) : nothing}
       <details class="dd-section-block"><summary><h3>Wells <small>${r.wells.filter((w) => w.rate_m3_s > 0).length} pumping</small></h3></summary>
         <div class="dd-design-wells"><table class="dd-design-table">
@@ -386,8 +553,10 @@ export class DesignPanel extends LightElement {
   private renderChart(r: DesignResult) {
     const ts = r.timeSeries!;
     const pumping = ts.pumping.filter((p) => p.time_s > 0);
-    const recovery = ts.recovery.filter((p) => p.time_s > ts.stop_s).map((p) => ({ time_s: p.time_s - ts.stop_s, level_m: p.level_m }));
-    const recoveryAt = r.excavations.find((e) => e.id === ts.excavationId)?.criticalRecoveryToFormation_s ?? null;
+    const stop_s = ts.stop_s ?? 0;
+    const recovery = ts.recovery.filter((p) => p.time_s > stop_s).map((p) => ({ time_s: p.time_s - stop_s, level_m: p.level_m }));
+    const excavation = r.excavations.find((e) => e.id === ts.excavationId);
+    const recoveryAt = excavation?.recoveryToFormation_s ?? null;
     return html`<h3>Level at the critical point <small>${ts.excavationId} (${this.coordinate(ts.x)}, ${this.coordinate(ts.y)})</small></h3>
       ${this.logChart(pumping, 'dd-curve', 'time since pumping started (log)', ts, r.designTime_s, 'Level against time at the critical point, pumping on')}
       <ul class="dd-section-key">
@@ -396,9 +565,9 @@ export class DesignPanel extends LightElement {
         <li><span class="dd-k dd-k-formation"></span>formation level</li>
       </ul>
       ${recovery.length > 1
-        ? html`<h3>Power failure <small>every pump stops at ${formatDuration(ts.stop_s)}</small></h3>
+        ? html`<h3>Power failure <small>every pump stops at ${ts.stop_s === null ? 'the steady state' : formatDuration(ts.stop_s)}</small></h3>
           ${this.logChart(recovery, 'dd-recovery', 'time since the pumps stopped (log)', ts, recoveryAt, 'Recovery of the level at the critical point after every pump stops')}
-          <p class="dd-chart-note">Back at formation level after ${recoveryAt === null ? 'more than the span shown' : formatDuration(recoveryAt)}: standby pumps and power must take over within that time.</p>`
+          <p class="dd-chart-note">${capitalise(describeRecovery(excavation ?? { recoveryToFormation_s: null, recoveryNote: null }, formatDuration))}${recoveryAt !== null ? `: ${RECOVERY_STANDBY_NOTE}` : '.'}</p>`
         : nothing}`;
   }
 

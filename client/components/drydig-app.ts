@@ -13,7 +13,7 @@ import { validateMonitoring, validateScenario, type FieldIssue, type Scenario, t
 import { logSpacedTimes } from '../../shared/field';
 import { signedDistanceToRing } from '../../shared/contours';
 import { coordinateUnit, formatQuantity, fromSi, resolveDisplayUnits, toSi, type DisplayUnits, type UnitSystem } from '../../shared/units';
-import { ScenarioStore, checkViewSettings, getViewSettings, setViewSettings, type ChangeKind, type ContourQuantity, type SectionLine } from '../state';
+import { ScenarioStore, designInputsKey, checkViewSettings, getViewSettings, setViewSettings, type ChangeKind, type ContourQuantity, type SectionLine } from '../state';
 import { MAX_PIEZOMETERS, deletePiezometer, getPiezometers, placePiezometer } from '../state';
 import { EngineClient, EngineError, type FieldResult, type InspectResult, type SectionResult } from '../worker';
 import { resolveSiteProjection, formatLonLat, type ProjectionProblem, type SiteProjection } from '../crs';
@@ -40,9 +40,12 @@ import './monitoring-editor';
 import './design-panel';
 import './scenario-store-panel';
 import './seepage-panel';
+import './site-import-panel';
+import type { PumpingTestPanel } from './pumping-test-panel';
 import type { ScenarioStorePanel } from './scenario-store-panel';
+import type { DesignFloorResult } from '../../shared/design/design-result';
 
-type Tab = 'layout' | 'ground' | 'test' | 'results' | 'design' | 'section' | 'store' | 'backdrop';
+type Tab = 'layout' | 'ground' | 'test' | 'results' | 'design' | 'section' | 'store' | 'backdrop' | 'import';
 /** The side panel's tabs in order, with their labels (one line per tab keeps additions apart). */
 const TABS: ReadonlyArray<readonly [Tab, string]> = [
   ['layout', 'Layout'],
@@ -53,6 +56,7 @@ const TABS: ReadonlyArray<readonly [Tab, string]> = [
   ['section', 'Section'],
   ['store', 'Store'],
   ['backdrop', 'Backdrop'],
+  ['import', 'Import'],
 ];
 
 const DEMOS: Record<string, { label: string; scenario: Scenario }> = {
@@ -96,7 +100,7 @@ export class DrydigApp extends LightElement {
     result: { state: true }, computing: { state: true }, engineError: { state: true }, issues: { state: true },
     timeIndex: { state: true }, cursor: { state: true }, notice: { state: true }, inspect: { state: true },
     section: { state: true }, drawer: { state: true }, demo: { state: true }, newWell: { state: true },
-    piezometerId: { state: true },
+    piezometerId: { state: true }, designFloors: { state: true },
   };
   declare scenario: Scenario;
   declare tab: Tab;
@@ -117,6 +121,8 @@ export class DrydigApp extends LightElement {
   declare newWell: { kind: WellKind; radius_m: number; rate_m3_s: number };
   /** Selected piezometer of the monitoring plan. */
   declare piezometerId: string | null;
+  /** The last design's floor checks by excavation, with the key of the inputs it was made for. */
+  declare designFloors: { key: string; byExcavation: Map<string, DesignFloorResult> } | null;
 
   private readonly store: ScenarioStore;
   private engine: EngineClient | null = null;
@@ -146,6 +152,7 @@ export class DrydigApp extends LightElement {
     this.wellId = null;
     this.excavationId = null;
     this.piezometerId = null;
+    this.designFloors = null;
     this.result = null;
     this.computing = -1;
     this.engineError = '';
@@ -226,6 +233,8 @@ export class DrydigApp extends LightElement {
 
   private onMapReady(controller: LeafletMapController): void {
     this.controller = controller;
+    // The Import tab draws its previews on the map: render once more to hand it over.
+    this.requestUpdate();
     this.controller.fitScenario(this.scenario);
     this.syncMap();
     this.validate();
@@ -251,6 +260,7 @@ export class DrydigApp extends LightElement {
       this.inspect = null;
       this.section = null;
       this.result = null;
+      this.designFloors = null;
       this.timeIndex = Number.MAX_SAFE_INTEGER;
       this.controller?.setField(null, this.fieldStyle(null));
       this.controller?.setSection(null);
@@ -672,6 +682,13 @@ export class DrydigApp extends LightElement {
     const crit = (d.excavations ?? []).filter((x) => x.critical && Number.isFinite(x.critical.x) && Number.isFinite(x.critical.y))
       .map((x) => ({ x: x.critical!.x, y: x.critical!.y, label: `${x.id}: critical point, ${formatQuantity(x.critical!.level_m, u.length, { decimals: 2 })}` }));
     this.controller?.setCriticalPoints(crit);
+    if (!d.apply) {
+      const floors = (d.excavations ?? []).flatMap((x) => {
+        const floor = (x as { floor?: DesignFloorResult }).floor;
+        return floor ? [[x.id, floor] as const] : [];
+      });
+      this.designFloors = { key: designInputsKey(this.store.scenario), byExcavation: new Map(floors) };
+    }
     if (d.apply && Array.isArray(d.wells)) {
       const rates = new Map(d.wells.filter((w) => typeof w.id === 'string' && Number.isFinite(w.rate_m3_s)).map((w) => [w.id, w.rate_m3_s]));
       this.store.apply('apply design rates', (draft) => {
@@ -757,10 +774,15 @@ export class DrydigApp extends LightElement {
           <nav class="dd-tabs" role="tablist">
             ${TABS.map(([t, label]) => html`<button type="button" role="tab" name=${`tab-${t}`} aria-selected=${this.tab === t} class=${this.tab === t ? 'dd-on' : ''} @click=${() => (this.tab = t)}>${label}</button>`)}
           </nav>
-          <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab === 'store' || this.tab === 'test'}>${this.tab === 'store' || this.tab === 'test' ? nothing : this.renderTab(times, ti, view.contour?.step_m)}</div>
+          <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab === 'store' || this.tab === 'test' || this.tab === 'import'}>${this.tab === 'store' || this.tab === 'test' || this.tab === 'import' ? nothing : this.renderTab(times, ti, view.contour?.step_m)}</div>
           <!-- Kept alive across tab switches: the readings and fits stay while the designer checks the ground model. -->
           <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'test'}>
             <pumping-test-panel .store=${this.store} .scenario=${s} .units=${this.units} .shown=${this.tab === 'test'}></pumping-test-panel>
+          </div>
+          <!-- Kept alive across tab switches: opened site files and their previews on the map stay. -->
+          <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'import'}>
+            <site-import-panel .store=${this.store} .scenario=${s} .units=${this.units} .map=${this.controller?.map ?? null} .shown=${this.tab === 'import'}
+              .storedScenarioId=${this.storedScenarioId} @import-test-readings=${this.onImportedTestReadings}></site-import-panel>
           </div>
           <!-- Kept alive across tab switches: it remembers which stored scenario and revision the editor holds. -->
           <div class="dd-tab-body" role="tabpanel" ?hidden=${this.tab !== 'store'}>
@@ -774,6 +796,18 @@ export class DrydigApp extends LightElement {
   private storePanel(): ScenarioStorePanel | null {
     return this.querySelector('scenario-store-panel');
   }
+
+  private readonly storedScenarioId = (): string | null => this.storePanel()?.scenarioId ?? null;
+
+  /** Logger readings from the Import tab become the Test tab's readings file. */
+  private onImportedTestReadings = (e: CustomEvent<{ csv: string; name: string }>): void => {
+    const panel = this.querySelector<PumpingTestPanel>('pumping-test-panel');
+    if (!panel) return;
+    panel.csv = e.detail.csv;
+    panel.fileName = e.detail.name;
+    panel.result = null;
+    this.tab = 'test';
+  };
 
   /** A scenario opened from the store (a revision, a restore, theirs after a conflict). */
   private openStored(scenario: Scenario): void {
@@ -801,7 +835,9 @@ export class DrydigApp extends LightElement {
           @focus-excavation=${(e: CustomEvent<string>) => this.focusExcavation(e.detail)}
           @notify=${(e: CustomEvent<string>) => this.say(e.detail)}></results-panel>`;
       case 'ground':
-        return html`<ground-panel .store=${this.store} .scenario=${s} .units=${u} @choose-tool=${(e: CustomEvent<MapTool>) => this.setTool(e.detail)}></ground-panel>`;
+        return html`<ground-panel .store=${this.store} .scenario=${s} .units=${u} .excavationId=${this.excavationId} .section=${this.section}
+          .floors=${this.designFloors && { byExcavation: this.designFloors.byExcavation, stale: this.designFloors.key !== designInputsKey(s) }}
+          @choose-tool=${(e: CustomEvent<MapTool>) => this.setTool(e.detail)}></ground-panel>`;
       case 'design':
         return html`<design-panel .scenario=${s} .units=${u} @design-result=${this.onDesignResult}></design-panel>
           <caution-note .notes=${this.result?.model.notes ?? []} compact></caution-note>`;

@@ -33,7 +33,8 @@ export class FloorCheckView extends LightElement {
   }
 
   private chart(e: DesignExcavationResult) {
-    const steps = e.floor!.safeDig;
+    // A steady design has one step (time null): a table row, no chart.
+    const steps = e.floor!.safeDig.filter((s): s is { time_s: number; safeFormationLevel_m: number } => s.time_s !== null);
     if (steps.length < 2) return nothing;
     const levels = [...steps.map((s) => s.safeFormationLevel_m), e.formationLevel_m];
     const lo = Math.min(...levels) - 0.2;

@@ -2,6 +2,7 @@
  * <ground-panel>: the ground model — ground level, aquifer kind and parameters (K, levels, S or
  * Sy, leakage factor, radius of influence) in display units — and the straight boundaries.
  * Only the parameters the chosen kind uses are shown; each field states its unit and meaning.
+ * Below them, the ground under the floor (`<ground-profile-editor>`, with the borehole column).
  */
 import { html, nothing } from 'lit';
 import { LightElement } from './light-element';
@@ -9,6 +10,9 @@ import type { Aquifer, AquiferKind, Boundary, Scenario } from '../../shared/sche
 import { formatQuantity, type DisplayUnits, type UnitId } from '../../shared/units';
 import type { ScenarioStore } from '../state';
 import { displayValue, parseDisplayNumber } from './unit-context';
+import type { SectionResult } from '../worker/engine-protocol';
+import './ground-profile-editor';
+import type { DesignFloors } from './ground-profile-editor';
 
 type AquiferNumberKey = Exclude<keyof Aquifer, 'kind'>;
 
@@ -35,7 +39,12 @@ const FIELDS: FieldDef[] = [
 export class GroundPanel extends LightElement {
   static override properties = {
     store: { attribute: false }, scenario: { attribute: false }, units: { attribute: false }, error: { state: true },
+    excavationId: { attribute: false }, floors: { attribute: false }, section: { attribute: false },
   };
+  /** The excavation selected in the app, the last design's floor checks and the section line's result, for the profile. */
+  declare excavationId: string | null;
+  declare floors: DesignFloors | null;
+  declare section: SectionResult | null;
   declare store: ScenarioStore | undefined;
   declare scenario: Scenario | undefined;
   declare units: DisplayUnits;
@@ -44,6 +53,9 @@ export class GroundPanel extends LightElement {
   constructor() {
     super();
     this.error = '';
+    this.excavationId = null;
+    this.floors = null;
+    this.section = null;
   }
 
   private setAquifer(def: FieldDef, text: string): void {
@@ -109,6 +121,7 @@ export class GroundPanel extends LightElement {
       <p class="dd-facts">Transmissivity T = K·${a.kind === 'unconfined' ? 'H' : 'b'} = ${formatQuantity(T, u.transmissivity)}
         (${a.kind === 'unconfined' ? 'saturated' : 'aquifer'} thickness ${formatQuantity(thickness, u.length, { decimals: 2 })}).</p>
       ${this.error ? html`<p class="dd-error" role="alert">${this.error}</p>` : nothing}
+      <ground-profile-editor .store=${this.store} .scenario=${s} .units=${u} .excavationId=${this.excavationId} .floors=${this.floors} .section=${this.section}></ground-profile-editor>
       <h3>Boundaries</h3>
       <p class="dd-hint">Straight lines treated by image wells (Ferris et al. 1962): a river or lake in good contact is constant-head; a cut-off wall or rock valley side is no-flow. Draw with the Boundary tool.</p>
       <ul class="dd-list dd-boundaries">${(s.boundaries ?? []).map((b, i) => this.renderBoundary(b, i))}</ul>

@@ -170,7 +170,7 @@ export class PumpingTestPanel extends LightElement {
       <p class="dd-hint">Readings CSV: a time column (time_s, time_min, time_h or time_d) and drawdown_m (or drawdown_ft), with distance_m and well per row when there are several observation wells. Readings after the pump stopped are recovery.</p>
       <div class="dd-form-row">
         <label>Readings file <input type="file" name="test-file" accept=".csv,.txt,text/csv" @change=${(e: Event) => this.openFile(e.target as HTMLInputElement)} /></label>
-        ${this.fileName ? html`<small data-test="file-name">${this.fileName} · ${this.csv.split('\n').length - 1} rows</small>` : nothing}
+        ${this.fileName ? html`<small data-test="file-name">${this.fileName} · ${this.csv.split('\n').filter((line) => line.trim() !== '').length - 1} rows</small>` : nothing}
       </div>
       <details><summary>Or paste the readings</summary>
         <textarea name="test-csv" rows="5" .value=${this.csv} @change=${(e: Event) => ((this.csv = (e.target as HTMLTextAreaElement).value), (this.fileName = ''))}></textarea>

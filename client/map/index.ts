@@ -3,3 +3,4 @@ export * from './field-canvas-layer';
 export * from './colour-scale';
 export * from './affine-image';
 export * from './plan-grid-layer';
+export * from './site-import-layer';

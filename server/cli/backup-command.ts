@@ -10,7 +10,7 @@ import path from 'node:path';
 import Database from 'better-sqlite3';
 import { DrydigError } from '../../shared/schema';
 import { DATABASE_FILE, openScenarioStore, quickCheck } from '../storage';
-import type { CliCommand } from './cli-io';
+import type { CliCommand, CliIo } from './cli-io';
 import { resolveDataDir } from './data-dir-option';
 import { parseOptions, usageError } from './parse-options';
 
@@ -30,14 +30,29 @@ function checkFile(file: string): string {
   }
 }
 
-export const runBackupCommand: CliCommand = async (args, io) => {
-  const { positionals, values } = parseOptions(args, { data: 'value', help: 'flag' }, 'backup');
+/** The one path argument and `--data` of backup/restore; 'help' when the usage was printed. */
+function parsePathAndData(
+  args: string[],
+  io: CliIo,
+  command: string,
+  words: { help: string; missing: string },
+): 'help' | { target: string; values: Record<string, string | undefined> } {
+  const { positionals, values } = parseOptions(args, { data: 'value', help: 'flag' }, command);
   if (values.help === 'true') {
-    io.stdout('drydig backup DIR [--data DATA]   a consistent copy of the store into DIR (while serving, write-ahead log included)\n');
-    return 0;
+    io.stdout(`${words.help}\n`);
+    return 'help';
   }
-  if (positionals.length !== 1) throw usageError('backup: give the folder for the backup, e.g. drydig backup /mnt/backups/drydig');
-  const target = path.resolve(io.cwd, positionals[0]!);
+  if (positionals.length !== 1) throw usageError(words.missing);
+  return { target: path.resolve(io.cwd, positionals[0]!), values };
+}
+
+export const runBackupCommand: CliCommand = async (args, io) => {
+  const parsed = parsePathAndData(args, io, 'backup', {
+    help: 'drydig backup DIR [--data DATA]   a consistent copy of the store into DIR (while serving, write-ahead log included)',
+    missing: 'backup: give the folder for the backup, e.g. drydig backup /mnt/backups/drydig',
+  });
+  if (parsed === 'help') return 0;
+  const { target, values } = parsed;
   mkdirSync(target, { recursive: true });
   const dataDir = resolveDataDir(values.data, io.cwd);
   if (!existsSync(path.join(dataDir, DATABASE_FILE))) throw new DrydigError('DRYDIG_ERR_FILE', `no database in ${dataDir} (give --data)`);
@@ -60,13 +75,12 @@ export const runBackupCommand: CliCommand = async (args, io) => {
 };
 
 export const runRestoreCommand: CliCommand = async (args, io) => {
-  const { positionals, values } = parseOptions(args, { data: 'value', help: 'flag' }, 'restore');
-  if (values.help === 'true') {
-    io.stdout('drydig restore BACKUP_FILE [--data DATA]   replaces the store with a backup (stop the service first); the old file is kept beside it\n');
-    return 0;
-  }
-  if (positionals.length !== 1) throw usageError('restore: give the backup file, e.g. drydig restore /mnt/backups/drydig/drydig-20270101T000000Z.sqlite');
-  const source = path.resolve(io.cwd, positionals[0]!);
+  const parsed = parsePathAndData(args, io, 'restore', {
+    help: 'drydig restore BACKUP_FILE [--data DATA]   replaces the store with a backup (stop the service first); the old file is kept beside it',
+    missing: 'restore: give the backup file, e.g. drydig restore /mnt/backups/drydig/drydig-20270101T000000Z.sqlite',
+  });
+  if (parsed === 'help') return 0;
+  const { target: source, values } = parsed;
   const verdict = checkFile(source);
   if (verdict !== 'ok') throw new DrydigError('DRYDIG_ERR_FILE', `${source} is not a sound drydig backup (${verdict}); choose another backup`);
   const dataDir = resolveDataDir(values.data, io.cwd);

@@ -4,7 +4,8 @@
  * design.md section 4 (plus capacities, times, checks, the bid summary, cautions). Options
  * stored in the scenario's `designOptions` apply; flags override them field by field.
  */
-import { runDesign, designResultToCsv } from '../../shared/design';
+import { designResultToCsv } from '../../shared/design';
+import { createComputePool, defaultComputeThreads, runDesignOnPool, type DesignTaskInput } from '../compute';
 import type { DesignMode, DesignOptions } from '../../shared/schema';
 import { parseQuantity } from '../../shared/units';
 import type { CliCommand } from './cli-io';
@@ -40,6 +41,19 @@ export const DESIGN_HELP = `drydig design SCENARIO.json [--mode uniform|optimal|
   --volume-cost C      per m³ pumped besides energy (default 0.1, a placeholder)
   --duration T         pumping duration: seconds or 90d, 12h … (default 90d)
   --out-of-service ID  the well to take out in the standby check (default: the worst one)
+  --sensitivity        add the sensitivity table: the design re-evaluated and re-solved with K
+                       and S scaled (default factors 1/3, 1/2, 1, 2, 3)
+  --sensitivity-factors LIST  factors for that table, comma-separated (e.g. 0.5,1,2)
+  --monte-carlo N      add the Monte Carlo analysis: N realisations of lognormal K (median the
+                       scenario's K): probability the rates meet every target, P50/P90 flow
+  --seed S             seed of the random numbers (default 1; same seed, same answer)
+  --k-spread F         geometric standard deviation of K (default: from the scenario's pumping
+                       test K interval, else 2)
+  --s-spread F         geometric standard deviation of S (default 1: S held)
+  --price-at-p90       also price the bid at the P90 flow
+  --workers W          worker threads for the realisations (default: the cores; 0 = in process)
+  --one-well-out       add a robust design that meets every target with any one well out
+  --k-factor F         add a robust design that meets every target for K ÷ F … K × F
   --pretty             indent the JSON
   --csv                write the summary, wells and excavations as CSV instead of JSON
 
@@ -81,6 +95,16 @@ export const runDesignCommand: CliCommand = async (args, io) => {
     duration: 'value',
     'out-of-service': 'value',
     currency: 'value',
+    sensitivity: 'flag',
+    'sensitivity-factors': 'value',
+    'monte-carlo': 'value',
+    seed: 'value',
+    'k-spread': 'value',
+    's-spread': 'value',
+    'price-at-p90': 'flag',
+    workers: 'value',
+    'one-well-out': 'flag',
+    'k-factor': 'value',
     ...Object.fromEntries(Object.keys(RATE_FLAGS).map((k) => [k, 'value'])),
     pretty: 'flag',
     csv: 'flag',
@@ -131,10 +155,12 @@ export const runDesignCommand: CliCommand = async (args, io) => {
     if (typeof parsed !== 'object' || parsed === null || Array.isArray(parsed)) throw usageError(`design: ${values.options} must hold a JSON object of design options`);
     fileOptions = parsed as Record<string, unknown>;
   }
+  const unknowns = parseUncertaintyFlags(values);
   const scenario = readScenarioFile(file, io.cwd);
-  const options = { ...fileOptions, ...overrides };
+  const options = { ...fileOptions, ...overrides, ...mergeUncertaintyOptions(unknowns, scenario, fileOptions) };
 
-  const result = await runDesign({ scenario, mode, options: Object.keys(options).length > 0 ? options : undefined, optionsPath: '/options' });
+  const input = { scenario, ...(mode ? { mode } : {}), ...(Object.keys(options).length > 0 ? { options } : {}), optionsPath: '/options' };
+  const result = await runDesignWithWorkers(input, unknowns.workers);
   io.stdout(values.csv ? designResultToCsv(result) : `${JSON.stringify(result, jsonNumbers, values.pretty ? 2 : undefined)}\n`);
   if (values.csv) writeWarnings(result.warnings, io);
   return 0;
@@ -143,4 +169,81 @@ export const runDesignCommand: CliCommand = async (args, io) => {
 /** JSON cannot carry Infinity or NaN; write null (fields that can be unbounded say so in their docs). */
 function jsonNumbers(_key: string, value: unknown): unknown {
   return typeof value === 'number' && !Number.isFinite(value) ? null : value;
+}
+
+/** The uncertainty flags, checked (a bad number is a usage error naming the flag). */
+interface UncertaintyFlags {
+  sensitivity?: { factors?: number[] };
+  monteCarlo: Record<string, unknown>;
+  robust?: { oneWellOut?: boolean; conductivityFactor?: number };
+  workers: number | null;
+}
+
+function positiveNumber(values: Record<string, string>, flag: string): number | undefined {
+  const text = values[flag];
+  if (text === undefined) return undefined;
+  const n = parseStrictNumber(text);
+  if (n === undefined || !(n > 0)) throw usageError(`design: --${flag} must be a positive number (got "${text}")`);
+  return n;
+}
+
+function wholeNumber(values: Record<string, string>, flag: string): number | undefined {
+  const text = values[flag];
+  if (text === undefined) return undefined;
+  if (!/^\d+$/.test(text)) throw usageError(`design: --${flag} must be a whole number (got "${text}")`);
+  return Number(text);
+}
+
+function parseUncertaintyFlags(values: Record<string, string>): UncertaintyFlags {
+  const out: UncertaintyFlags = { monteCarlo: {}, workers: wholeNumber(values, 'workers') ?? null };
+  const factorsText = values['sensitivity-factors'];
+  if (values.sensitivity || factorsText !== undefined) {
+    out.sensitivity = {};
+    if (factorsText !== undefined) {
+      const factors = factorsText.split(',').map((t) => parseStrictNumber(t.trim()));
+      if (factors.some((f) => f === undefined || !(f > 0))) throw usageError(`design: --sensitivity-factors must be positive numbers separated by commas (got "${factorsText}")`);
+      out.sensitivity.factors = factors as number[];
+    }
+  }
+  const runs = wholeNumber(values, 'monte-carlo');
+  const seed = wholeNumber(values, 'seed');
+  const kSpread = positiveNumber(values, 'k-spread');
+  const sSpread = positiveNumber(values, 's-spread');
+  if (runs !== undefined) out.monteCarlo.runs = runs;
+  if (seed !== undefined) out.monteCarlo.seed = seed;
+  if (kSpread !== undefined) out.monteCarlo.kSpread = kSpread;
+  if (sSpread !== undefined) out.monteCarlo.sSpread = sSpread;
+  if (values['price-at-p90']) out.monteCarlo.priceAtP90 = true;
+  const kFactor = positiveNumber(values, 'k-factor');
+  if (values['one-well-out'] || kFactor !== undefined) out.robust = { ...(values['one-well-out'] ? { oneWellOut: true } : {}), ...(kFactor !== undefined ? { conductivityFactor: kFactor } : {}) };
+  return out;
+}
+
+/** Flags over the options file over the scenario's stored options, per block (the Monte Carlo block field by field). */
+function mergeUncertaintyOptions(flags: UncertaintyFlags, scenario: unknown, fileOptions: Record<string, unknown>): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  const stored = ((scenario as { designOptions?: Record<string, unknown> }).designOptions ?? {}) as Record<string, unknown>;
+  const block = (key: string): Record<string, unknown> => ({ ...((stored[key] as object | undefined) ?? {}), ...((fileOptions[key] as object | undefined) ?? {}) });
+  if (flags.sensitivity) out.sensitivity = { ...block('sensitivity'), ...flags.sensitivity };
+  if (flags.robust) out.robust = { ...block('robust'), ...flags.robust };
+  if (Object.keys(flags.monteCarlo).length > 0) {
+    const mc = { ...block('monteCarlo'), ...flags.monteCarlo };
+    if (mc.runs === undefined) throw usageError('design: --seed, --k-spread, --s-spread and --price-at-p90 need --monte-carlo N (or designOptions.monteCarlo.runs)');
+    out.monteCarlo = mc;
+  }
+  return out;
+}
+
+/** Runs the design; Monte Carlo realisations go over worker threads (the compute pool, all its threads for this one client). */
+async function runDesignWithWorkers(input: DesignTaskInput, workers: number | null) {
+  const wantsRealisations = (input.options as { monteCarlo?: unknown } | undefined)?.monteCarlo !== undefined
+    || (input.scenario as { designOptions?: { monteCarlo?: unknown } }).designOptions?.monteCarlo !== undefined;
+  const threads = wantsRealisations ? (workers ?? defaultComputeThreads()) : 0;
+  // The ordinary design and the realisations may each take a while on a busy machine: a generous budget.
+  const pool = createComputePool({ threads, perClientSlots: Math.max(1, threads), timeout_ms: 600_000, longTimeout_ms: 600_000 });
+  try {
+    return await runDesignOnPool({ runner: pool, input, concurrency: Math.max(1, threads), workers: threads });
+  } finally {
+    await pool.close();
+  }
 }

@@ -30,6 +30,8 @@ export interface ComputePoolOptions {
   maxQueuedPerClient?: number;
   /** Seconds a refused client is told to wait (Retry-After). Default 5. */
   retryAfter_s?: number;
+  /** Threads one client may hold at once. Default threads − 1 (at least 1); the CLI, the only client, takes all. */
+  perClientSlots?: number;
 }
 
 export interface ComputeRunOptions {
@@ -97,7 +99,12 @@ export function createComputePool(options: ComputePoolOptions = {}): ComputePool
   const timeout_ms = options.timeout_ms ?? DEFAULT_COMPUTE_TIMEOUT_MS;
   const longTimeout_ms = options.longTimeout_ms ?? DEFAULT_LONG_COMPUTE_TIMEOUT_MS;
   const retryAfter_s = options.retryAfter_s ?? 5;
-  const queue = new FairQueue({ slots: threads, maxQueued: options.maxQueued ?? 32, maxQueuedPerClient: options.maxQueuedPerClient ?? 4 });
+  const queue = new FairQueue({
+    slots: threads,
+    maxQueued: options.maxQueued ?? 32,
+    maxQueuedPerClient: options.maxQueuedPerClient ?? 4,
+    ...(options.perClientSlots !== undefined ? { perClientSlots: options.perClientSlots } : {}),
+  });
   let piscina: Piscina | null = null;
   let closed = false;
   // Threads start on first use and stop when idle, so an app that computes nothing costs nothing.

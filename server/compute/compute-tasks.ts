@@ -5,7 +5,7 @@
  * (Monte Carlo realisations, …) is one more entry here, and `ComputePool.run` can run it at once.
  */
 import { DrydigError, type Scenario } from '../../shared/schema';
-import { runDesign, type DesignResult, type RunDesignOptions } from '../../shared/design';
+import { runDesign, runRealisationChunk, type DesignBasis, type DesignResult, type RealisationChunk, type RealisationOutcome, type RunDesignOptions } from '../../shared/design';
 import { runSectionJob, type SectionJob, type SectionJobAnswer } from '../../shared/section';
 import { analysePumpingTest, type AnalysePumpingTestOptions, type PumpingTestResult } from '../../shared/testing';
 import { runEvaluation, type RunEvaluationOptions } from '../evaluation';
@@ -19,7 +19,11 @@ export type ProgressReporter = (stage: string, fraction: number) => void;
 
 export interface ComputeTaskTable {
   evaluate: (input: RunEvaluationOptions) => EvaluateResponse;
-  design: (input: Pick<RunDesignOptions, 'scenario' | 'mode' | 'options' | 'scenarioPath' | 'optionsPath'>, progress: ProgressReporter) => Promise<DesignResult>;
+  design: (input: DesignTaskInput, progress: ProgressReporter) => Promise<DesignResult>;
+  /** The design without its Monte Carlo realisations, and the basis they are re-solved from (the caller runs them as `realisations` chunks). */
+  designWithBasis: (input: DesignTaskInput, progress: ProgressReporter) => Promise<{ result: DesignResult; basis: DesignBasis | null }>;
+  /** A chunk of Monte Carlo realisations. */
+  realisations: (input: RealisationChunk) => Promise<RealisationOutcome[]>;
   planResults: (input: { scenario: Scenario }) => PlanOutcome;
   monitoringPlan: (input: { scenario: Scenario; readings: readonly PlanReading[] }) => MonitoringPlan & { error?: string };
   section: (input: SectionJob) => SectionJobAnswer;
@@ -30,12 +34,20 @@ export interface ComputeTaskTable {
 }
 
 export type ComputeTaskName = keyof ComputeTaskTable;
+/** What a design task takes (plain data). */
+export type DesignTaskInput = Pick<RunDesignOptions, 'scenario' | 'mode' | 'options' | 'scenarioPath' | 'optionsPath'>;
 export type ComputeInput<N extends ComputeTaskName> = Parameters<ComputeTaskTable[N]>[0];
 export type ComputeOutput<N extends ComputeTaskName> = Awaited<ReturnType<ComputeTaskTable[N]>>;
 
 export const COMPUTE_TASKS: ComputeTaskTable = {
   evaluate: (input) => runEvaluation(input),
   design: (input, progress) => runDesign({ ...input, onProgress: progress }),
+  designWithBasis: async (input, progress) => {
+    let basis: DesignBasis | null = null;
+    const result = await runDesign({ ...input, onProgress: progress, monteCarlo: { defer: true }, onBasis: (b) => (basis = b) });
+    return { result, basis };
+  },
+  realisations: (chunk) => runRealisationChunk(chunk),
   planResults: ({ scenario }) => computePlanOutcome(scenario),
   monitoringPlan: ({ scenario, readings }) => computeMonitoringPlan(scenario, readings),
   section: (job) => runSectionJob(job),

@@ -5,3 +5,4 @@ export * from './compute-plugin';
 export * from './compute-tasks';
 export * from './fair-queue';
 export * from './work-size';
+export * from './run-design-on-pool';

@@ -70,11 +70,11 @@ export function designResultToCsv(result: DesignResult): string {
     );
   rows.push('');
   headerRows.push(rows.length);
-  rows.push(line(['excavation', 'targetLevel_m', 'met', 'worstShortfall_m', 'critical_x_m', 'critical_y_m', 'critical_level_m', 'timeToTarget_s', 'recoveryToFormation_s', 'governingCheck', 'allowableLevel_m', 'upliftFS', 'requiredUpliftFS', 'heaveFS', 'requiredHeaveFS', 'timeToUnsafe_s']));
+  rows.push(line(['excavation', 'targetLevel_m', 'met', 'worstShortfall_m', 'critical_x_m', 'critical_y_m', 'critical_level_m', 'timeToTarget_s', 'recoveryToFormation_s', 'recoveryNote', 'governingCheck', 'allowableLevel_m', 'upliftFS', 'requiredUpliftFS', 'heaveFS', 'requiredHeaveFS', 'timeToUnsafe_s']));
   for (const e of result.excavations) {
     const f = e.floor;
     rows.push(
-      line([e.id, e.targetLevel_m, e.met ? 'yes' : 'no', e.worstShortfall_m, e.critical.x, e.critical.y, e.critical.level_m, e.timeToTarget_s, e.recoveryToFormation_s,
+      line([e.id, e.targetLevel_m, e.met ? 'yes' : 'no', e.worstShortfall_m, e.critical.x, e.critical.y, e.critical.level_m, e.timeToTarget_s, e.recoveryToFormation_s, e.recoveryToFormation_s === null ? e.recoveryNote : 'at the critical point',
         f?.governing ?? '', f?.allowableLevel_m ?? null, f?.upliftFS ?? null, f?.requiredUpliftFS ?? null, f?.heaveFS ?? null, f?.requiredHeaveFS ?? null, f?.timeToUnsafe_s ?? null]),
     );
   }
@@ -83,7 +83,7 @@ export function designResultToCsv(result: DesignResult): string {
     rows.push('');
     headerRows.push(rows.length);
     rows.push(line(['safe-dig excavation', 'time_s', 'safeFormationLevel_m']));
-    for (const e of digs) for (const step of e.floor!.safeDig) rows.push(line([e.id, step.time_s, step.safeFormationLevel_m]));
+    for (const e of digs) for (const step of e.floor!.safeDig) rows.push(line([e.id, step.time_s ?? 'steady', step.safeFormationLevel_m]));
   }
   rows.push('');
   rows.push(line(['reasons and cautions']));

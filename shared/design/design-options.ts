@@ -59,6 +59,12 @@ export interface ResolvedDesignOptions {
   minimumRate_m3_s: number;
   /** Rates rounded up to multiples of this, m³/s (0: none). */
   rateStep_m3_s: number;
+  /** Sensitivity table (null: not asked for). */
+  sensitivity: { factors: number[]; parameters: Array<'conductivity' | 'storage'> } | null;
+  /** Monte Carlo analysis as given (null: not asked for); defaults are filled by `planMonteCarlo`. */
+  monteCarlo: NonNullable<DesignOptions['monteCarlo']> | null;
+  /** Robust design options. */
+  robust: { oneWellOut: boolean; conductivityFactor: number | null };
   /** JSON pointers the control points and spacing came from (for messages). */
   controlPointsPath: string;
   controlSpacingPath: string;
@@ -77,6 +83,9 @@ export interface ResolvedDesignOptions {
  */
 /** The utilisation factor common practice applies below Sichardt's capacity (common practice, no single source). */
 export const COMMON_CAPACITY_UTILISATION = 0.8;
+
+/** Sensitivity factors on K and S by default: ÷3, ÷2, ×1, ×2, ×3. */
+export const DEFAULT_SENSITIVITY_FACTORS: readonly number[] = [1 / 3, 1 / 2, 1, 2, 3];
 
 export const DESIGN_OPTION_DEFAULTS = {
   mode: 'optimal' as DesignMode,
@@ -182,6 +191,11 @@ export function resolveDesignOptions({ scenario, overrides, overridesPath = '/op
     currency: merged.currency ?? d.currency,
     minimumRate_m3_s: merged.minimumRate_m3_s ?? 0,
     rateStep_m3_s: merged.rateStep_m3_s ?? 0,
+    sensitivity: merged.sensitivity
+      ? { factors: merged.sensitivity.factors ?? [...DEFAULT_SENSITIVITY_FACTORS], parameters: merged.sensitivity.parameters ?? ['conductivity', 'storage'] }
+      : null,
+    monteCarlo: merged.monteCarlo ?? null,
+    robust: { oneWellOut: merged.robust?.oneWellOut ?? false, conductivityFactor: merged.robust?.conductivityFactor ?? null },
     controlPointsPath: `${origin('controlPoints')}/controlPoints`,
     controlSpacingPath: `${origin('controlSpacing_m')}/controlSpacing_m`,
   };

@@ -7,6 +7,7 @@
 import { Type, type Static } from '@sinclair/typebox';
 import { DesignModeSchema, ScenarioWarningSchema } from '../schema';
 import { RateRoundingSchema } from './round-design-rates';
+import { RobustDesignSchema, SensitivityResultSchema, UncertaintyResultSchema } from './uncertainty-result';
 
 const Num = (description: string) => Type.Number({ description });
 const NullableNum = (description: string) => Type.Union([Type.Number(), Type.Null()], { description });
@@ -74,7 +75,7 @@ export const DesignCriticalPointSchema = Type.Object({
 export type DesignCriticalPoint = Static<typeof DesignCriticalPointSchema>;
 
 export const SafeDigStepSchema = Type.Object({
-  time_s: Num('Time since pumping started, s.'),
+  time_s: NullableNum('Time since pumping started, s; null: the steady state (a steady design has one step).'),
   safeFormationLevel_m: Num('Deepest formation level that meets the governing floor criterion at that time, m.'),
 });
 
@@ -91,8 +92,8 @@ export const DesignFloorResultSchema = Type.Object({
   plugWeight_kPa: NullableNum('Weight of the ground between formation and the plug base, kPa.'),
   critical: Type.Object({ x: Num('Easting, m.'), y: Num('Northing, m.'), level_m: Num('Aquifer head there at the design time, m.') }),
   margin_m: Num('Governing target minus the computed head at the critical point, m (≥ 0 when met).'),
-  safeDig: Type.Array(SafeDigStepSchema, { description: 'Excavation sequence with the chosen rates: deepest safe formation level over time (transient designs).' }),
-  timeToUnsafe_s: NullableNum('Every pump stops at the design time: time until the floor becomes unsafe (head above the allowable level), s; null: no floor-safety check, already unsafe, or not within the checked span.'),
+  safeDig: Type.Array(SafeDigStepSchema, { description: 'Excavation sequence with the chosen rates: deepest safe formation level over time (transient designs); a steady design has one step, time_s null, at the steady state.' }),
+  timeToUnsafe_s: NullableNum('Every pump stops in the design state (at the design time; a steady design at the steady state): time until the floor becomes unsafe (head above the allowable level), s; null: no floor-safety check, already unsafe, or not within the checked span.'),
 });
 export type DesignFloorResult = Static<typeof DesignFloorResultSchema>;
 
@@ -104,8 +105,8 @@ export const DesignExcavationResultSchema = Type.Object({
   worstShortfall_m: Num('Highest computed level inside the excavation minus its target, m (≤ 0 when met).'),
   critical: DesignCriticalPointSchema,
   timeToTarget_s: NullableNum('Time the whole excavation first reaches its target, s (null: not by the design time, or a steady design).'),
-  recoveryToFormation_s: NullableNum('Every pump stops at the design time: time until the first control point rises back to formation level, s.'),
-  criticalRecoveryToFormation_s: NullableNum('The same at the critical point, s.'),
+  recoveryToFormation_s: NullableNum('Power failure: every pump stops in the design state (at the design time; a steady design at the steady state); time until the level at the critical point is back at formation level, s. Null where it does not apply, with recoveryNote saying why.'),
+  recoveryNote: Type.Union([Type.String(), Type.Null()], { description: 'Why there is no power-failure figure (infeasible design, target not met, head held above formation, no storage, beyond the checked span); null when the figure is given.' }),
   controlPointCount: Num('Control points used (design grid plus points added in refinement).'),
   checkPointCount: Num('Check points (twice as dense) the result was verified on.'),
   pointsAboveTarget: Num('Check points where the computed level stays above the target (0 when met).'),
@@ -135,8 +136,8 @@ export const DesignTimeSeriesSchema = Type.Object({
   targetLevel_m: Num('Target level, m.'),
   formationLevel_m: Num('Formation level, m.'),
   pumping: Type.Array(LevelTimePointSchema, { description: 'Pumping continues: level at the critical point.' }),
-  recovery: Type.Array(LevelTimePointSchema, { description: 'Every pump stops at stop_s: recovery at the critical point.' }),
-  stop_s: Num('Time the pumps stop in the recovery curve, s.'),
+  recovery: Type.Array(LevelTimePointSchema, { description: 'Every pump stops at stop_s, in the design state: recovery at the critical point (the first sample is the design state).' }),
+  stop_s: NullableNum('Time the pumps stop in the recovery curve, s; null: a steady design, stopped at the steady state (the recovery times then count from the stop).'),
 });
 export type DesignTimeSeries = Static<typeof DesignTimeSeriesSchema>;
 
@@ -216,6 +217,9 @@ export const DesignResultSchema = Type.Object(
     summary: PumpSummarySchema,
     quickCheck: Type.Array(QuickCheckSchema),
     rateRounding: Type.Optional(RateRoundingSchema),
+    sensitivity: Type.Optional(SensitivityResultSchema),
+    uncertainty: Type.Optional(UncertaintyResultSchema),
+    robust: Type.Optional(Type.Array(RobustDesignSchema, { description: 'Robust design options (designOptions.robust), each beside the ordinary design.' })),
     chosenWellIds: Type.Optional(Type.Array(Type.String(), { description: 'Layout mode: wells chosen for installation.' })),
     solver: Type.Object({
       status: Type.String(),

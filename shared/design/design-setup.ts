@@ -8,6 +8,8 @@ import { resolveDesignOptions } from './design-options';
 import { variableConversions, type DesignContext } from './design-context';
 import { buildDesignWells } from './well-limits';
 import { excavationFloor } from '../floor';
+import type { RealisationChunkRunner } from './monte-carlo';
+import type { DesignBasis } from './scaled-design';
 
 /**
  * Largest unit-response matrix one design may build (check points × design wells): 5 million
@@ -28,6 +30,14 @@ export interface RunDesignOptions {
   optionsPath?: string;
   /** Progress callback (stage name, fraction 0–1) for long runs. */
   onProgress?: (stage: string, fraction: number) => void;
+  /**
+   * Monte Carlo realisations (designOptions.monteCarlo): where the chunks run (default in process,
+   * one after another), and how many at once. `defer: true` leaves them out of this run: the caller
+   * runs them (a service on its pool) from the basis given to `onBasis`.
+   */
+  monteCarlo?: { runChunk?: RealisationChunkRunner; concurrency?: number; workers?: number; defer?: boolean; signal?: AbortSignal };
+  /** Receives the basis of re-solves (plain data) once the ordinary design is known. */
+  onBasis?: (basis: DesignBasis) => void;
 }
 
 /** The context of one design run. */

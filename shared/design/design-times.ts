@@ -1,29 +1,32 @@
 /**
  * Times for the chosen rates: when each control point and each whole excavation first reaches
- * its target; and, if every pump stops at the design time (power failure), how long until the
- * groundwater is back at formation level — the figure that sets standby pumps and generators.
+ * its target; and, if every pump stops in the design state (power failure), how long until the
+ * groundwater at the excavation's critical point is back at formation level — the figure that
+ * sets standby pumps and generators.
  *
- * Recovery is superposition in time (Theis 1935): a stop is an injection of the same rate from
- * the stop on, which the field engine evaluates from the stopped schedule. Drawdown under constant
- * pumping grows monotonically with time (every well function grows with t, and an image of
- * opposite sign is always farther than its well), so first-passage times are found by sampling
- * in log t and bisecting the bracketing interval.
+ * The stop happens in the design state: at the design time for a transient design, at the steady
+ * state for a steady one (`design-recovery.ts`). First-passage times come from the one helper
+ * `firstPassageTime` (log-spaced samples, bisection in log t; levels are monotone in time).
+ * Where the figure does not apply (infeasible design, target not met, head held above formation)
+ * the excavation carries no figure and a note that says why.
  */
-import { evaluatePoints, evaluateSeries, logSpacedTimes } from '../field';
+import { evaluatePoints, evaluateSeries, firstPassageTime, logSpacedTimes } from '../field';
 import type { ControlPoint } from './control-points';
 import type { DesignExcavationResult, DesignTimeSeries } from './design-result';
-import { applyDesignRates, type DesignContext } from './design-context';
+import { applyDesignRates, pointXY, type DesignContext } from './design-context';
+import { designRecovery } from './design-recovery';
+import { RECOVERY_NOTES } from './design-wording';
 
 const PUMPING_SAMPLES = 16;
 const RECOVERY_SAMPLES = 24;
-const BISECTION_STEPS = 12;
+const BISECTION_STEPS = 30;
 
 export interface DesignTimes {
-  excavations: Map<string, Pick<DesignExcavationResult, 'timeToTarget_s' | 'recoveryToFormation_s' | 'criticalRecoveryToFormation_s'>>;
+  excavations: Map<string, Pick<DesignExcavationResult, 'timeToTarget_s' | 'recoveryToFormation_s' | 'recoveryNote'>>;
   pointTimes: Map<ControlPoint, number | null>;
   series: DesignTimeSeries | null;
-  /** Time the pumps stop in the recovery check, s. */
-  stop_s: number;
+  /** Time the pumps stop in the recovery check, s; null: a steady design (they stop at the steady state). */
+  stop_s: number | null;
 }
 
 export interface ComputeTimesOptions {
@@ -31,40 +34,34 @@ export interface ComputeTimesOptions {
   rates: Float64Array;
   designPoints: ControlPoint[];
   excavations: DesignExcavationResult[];
+  /** The verified design is feasible (a power-failure figure is given only then). */
+  feasible: boolean;
 }
 
-/** First time in (lo, hi] where f ≤ 0, f(lo) > 0 ≥ f(hi), by bisection in log t. */
-function bisectLog(f: (t: number) => number, lo: number, hi: number): number {
-  let a = lo;
-  let b = hi;
-  for (let k = 0; k < BISECTION_STEPS; k++) {
-    const m = Math.sqrt(a * b);
-    if (f(m) <= 0) b = m;
-    else a = m;
-  }
-  return b;
+/** Longest time after a stop that the recovery checks look at, s. */
+export function recoverySpan(stop_s: number | null): number {
+  return Math.max(100 * (stop_s ?? 0), 1e7);
 }
 
 /** Times to target, recovery times and the level–time chart at the most critical point. */
-export function computeTimes({ ctx, rates, designPoints, excavations }: ComputeTimesOptions): DesignTimes {
+export function computeTimes({ ctx, rates, designPoints, excavations, feasible }: ComputeTimesOptions): DesignTimes {
   const { scenario, wells, designTime_s, options } = ctx;
-  const out: DesignTimes = { excavations: new Map(), pointTimes: new Map(), series: null, stop_s: designTime_s ?? options.duration_s };
+  const out: DesignTimes = { excavations: new Map(), pointTimes: new Map(), series: null, stop_s: designTime_s };
   const pumping = rates.some((q) => q > 0);
   if (!pumping || scenario.excavations.length === 0) return out;
   const solved = applyDesignRates(scenario, wells, rates);
-  const stop_s = out.stop_s;
-  const stopped = applyDesignRates(scenario, wells, rates, stop_s);
   const byExcavation = new Map<string, ControlPoint[]>();
   for (const p of designPoints) if (p.excavationId !== null) byExcavation.set(p.excavationId, [...(byExcavation.get(p.excavationId) ?? []), p]);
 
-  const levelsAt = (s: typeof solved, pts: ControlPoint[], t: number) => evaluatePoints({ scenario: s, points: pts.map((p) => [p.x, p.y] as const), time_s: t }).points;
-  const worstOver = (pts: ControlPoint[], t: number, reference: (p: ControlPoint) => number, s = solved) =>
-    levelsAt(s, pts, t).reduce((m, r, i) => Math.max(m, r.level_m - reference(pts[i]!)), -Infinity);
+  const levelsAt = (pts: ControlPoint[], t: number) => evaluatePoints({ scenario: solved, points: pts.map(pointXY), time_s: t }).points;
 
   // Time to target (transient designs only: a steady design has no time).
   if (designTime_s !== null) {
     const times = logSpacedTimes({ end_s: designTime_s, count: PUMPING_SAMPLES, start_s: designTime_s / 1e4 });
-    const samples = times.map((t) => levelsAt(solved, designPoints, t));
+    const samples = times.map((t) => levelsAt(designPoints, t));
+    // The excavation's first passage samples the same times: read them from here.
+    const sampled = new Map(times.map((t, k) => [t, samples[k]!] as const));
+    const indexOf = new Map(designPoints.map((p, i) => [p, i] as const));
     designPoints.forEach((p, i) => {
       const over = samples.map((s) => s[i]!.level_m - p.targetLevel_m);
       const k = over.findIndex((v) => v <= 0);
@@ -82,35 +79,49 @@ export function computeTimes({ ctx, rates, designPoints, excavations }: ComputeT
     for (const e of scenario.excavations) {
       const pts = byExcavation.get(e.id) ?? [];
       const own = pts.map((p) => out.pointTimes.get(p) ?? null);
-      let timeToTarget_s: number | null = null;
-      if (pts.length > 0 && own.every((t) => t !== null)) {
-        const f = (t: number) => worstOver(pts, t, (p) => p.targetLevel_m);
-        const k = times.findIndex((_, idx) => samples[idx]!.every((r, i) => designPoints[i]!.excavationId !== e.id || r.level_m <= designPoints[i]!.targetLevel_m));
-        timeToTarget_s = k <= 0 ? times[0]! : bisectLog(f, times[k - 1]!, times[k]!);
-      }
-      out.excavations.set(e.id, { timeToTarget_s, recoveryToFormation_s: null, criticalRecoveryToFormation_s: null });
+      const timeToTarget_s =
+        pts.length > 0 && own.every((t) => t !== null)
+          ? firstPassageTime({
+              reached: (t) => {
+                const known = sampled.get(t);
+                if (known) return pts.every((p) => known[indexOf.get(p)!]!.level_m <= p.targetLevel_m);
+                return t > 0 && levelsAt(pts, t).every((r, i) => r.level_m <= pts[i]!.targetLevel_m);
+              },
+              start_s: times[0]!,
+              end_s: designTime_s,
+              samples: PUMPING_SAMPLES,
+              bisections: 12,
+            })
+          : null;
+      out.excavations.set(e.id, { timeToTarget_s, recoveryToFormation_s: null, recoveryNote: null });
     }
   }
 
-  // Power failure: every pump stops at stop_s.
-  const deltas = logSpacedTimes({ end_s: Math.max(100 * stop_s, 1e7), count: RECOVERY_SAMPLES, start_s: 1 });
-  const recoveryTime = (pts: ControlPoint[], formation: number): number | null => {
-    const f = (dt: number) => -worstOver(pts, stop_s + dt, () => formation, stopped);
-    if (f(1e-3) <= 0) return 0;
-    let prev = 1e-3;
-    for (const dt of deltas) {
-      if (f(dt) <= 0) return bisectLog(f, prev, dt);
-      prev = dt;
-    }
-    return null;
-  };
+  // Power failure: every pump stops in the design state; one figure per excavation, at its critical point.
+  const recoveryModel = designRecovery(ctx, rates);
+  const recovery = recoveryModel.ok ? recoveryModel.recovery : null;
+  const span_s = recoverySpan(out.stop_s);
   for (const e of scenario.excavations) {
-    const pts = byExcavation.get(e.id) ?? [];
-    const entry = out.excavations.get(e.id) ?? { timeToTarget_s: null, recoveryToFormation_s: null, criticalRecoveryToFormation_s: null };
+    const entry = out.excavations.get(e.id) ?? { timeToTarget_s: null, recoveryToFormation_s: null, recoveryNote: null };
     const result = excavations.find((r) => r.id === e.id)!;
-    const critical: ControlPoint = { x: result.critical.x, y: result.critical.y, targetLevel_m: result.targetLevel_m, excavationId: e.id, kind: result.critical.kind };
-    entry.recoveryToFormation_s = pts.length > 0 ? recoveryTime(pts, e.formationLevel_m) : null;
-    entry.criticalRecoveryToFormation_s = recoveryTime([critical], e.formationLevel_m);
+    const note = !result.met
+      ? RECOVERY_NOTES.notMet
+      : !feasible
+        ? RECOVERY_NOTES.infeasible
+        : result.critical.level_m >= e.formationLevel_m
+          ? RECOVERY_NOTES.aboveFormation
+          : !recoveryModel.ok
+            ? RECOVERY_NOTES.noStorage(recoveryModel.reason)
+            : null;
+    if (note === null && recovery) {
+      const point = [pointXY(result.critical)];
+      const t = firstPassageTime({ reached: (dt) => recovery.levelsAt(point, dt)[0]! >= e.formationLevel_m, start_s: 1, end_s: span_s, samples: RECOVERY_SAMPLES, bisections: BISECTION_STEPS });
+      entry.recoveryToFormation_s = t;
+      entry.recoveryNote = t === null ? RECOVERY_NOTES.beyondSpan(span_s) : null;
+    } else {
+      entry.recoveryToFormation_s = null;
+      entry.recoveryNote = note;
+    }
     out.excavations.set(e.id, entry);
   }
 
@@ -118,15 +129,12 @@ export function computeTimes({ ctx, rates, designPoints, excavations }: ComputeT
   const worst = [...excavations].sort((p, q) => q.worstShortfall_m - p.worstShortfall_m)[0];
   if (worst) {
     const point = [worst.critical.x, worst.critical.y] as const;
-    const end = Math.max(stop_s, ctx.limitTime_s ?? options.duration_s);
+    const end = Math.max(out.stop_s ?? 0, ctx.limitTime_s ?? options.duration_s);
     const pumpingSeries = evaluateSeries({ scenario: solved, point, times_s: logSpacedTimes({ end_s: end, count: 48, start_s: 60 }) });
-    const recoveryEnd = Math.max(10 * stop_s, (out.excavations.get(worst.id)?.criticalRecoveryToFormation_s ?? 0) * 3);
-    const recoverySeries = evaluateSeries({
-      scenario: stopped,
-      point,
-      times_s: logSpacedTimes({ end_s: recoveryEnd, count: 40, start_s: 1 }).map((dt) => stop_s + dt),
-    });
+    // Steady designs: three times the recovery (at least 10 min); the superposed cone means little later on.
+    const recoveryEnd = Math.max(out.stop_s === null ? 600 : 10 * out.stop_s, (out.excavations.get(worst.id)?.recoveryToFormation_s ?? 0) * 3);
     const formation = scenario.excavations.find((e) => e.id === worst.id)!.formationLevel_m;
+    const offset = out.stop_s ?? 0;
     out.series = {
       x: point[0],
       y: point[1],
@@ -134,11 +142,10 @@ export function computeTimes({ ctx, rates, designPoints, excavations }: ComputeT
       targetLevel_m: worst.targetLevel_m,
       formationLevel_m: formation,
       pumping: pumpingSeries.samples.map((s) => ({ time_s: s.time_s, level_m: s.level_m })),
-      recovery: [
-        { time_s: stop_s, level_m: evaluatePoints({ scenario: stopped, points: [point], time_s: stop_s }).points[0]!.level_m },
-        ...recoverySeries.samples.map((s) => ({ time_s: s.time_s, level_m: s.level_m })),
-      ],
-      stop_s,
+      recovery: recovery
+        ? [0, ...logSpacedTimes({ end_s: recoveryEnd, count: 40, start_s: 1 })].map((dt) => ({ time_s: offset + dt, level_m: recovery.levelsAt([point], dt)[0]! }))
+        : [],
+      stop_s: out.stop_s,
     };
   }
   return out;

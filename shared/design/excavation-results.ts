@@ -45,7 +45,7 @@ export function summariseExcavations({ ctx, designPoints, checkPoints, addedChec
       critical: { x: cp.x, y: cp.y, level_m: pointResults[at]!.level_m, targetLevel_m: cp.targetLevel_m, kind: cp.kind },
       timeToTarget_s: null,
       recoveryToFormation_s: null,
-      criticalRecoveryToFormation_s: null,
+      recoveryNote: null,
       controlPointCount: designCount + [...addedCheckPoints].filter((i) => checkPoints[i]!.excavationId === e.id).length,
       checkPointCount: checkCount,
       pointsAboveTarget: above,

@@ -1,17 +1,24 @@
 /**
  * Design stage: the pit-floor check of every excavation with the chosen rates — factors of safety
  * at the critical point (EN 1997-1 UPL and HYD, see `shared/floor`), the governing check and its
- * margin, the safe-dig sequence over time, and the time from a power failure at the design time
+ * margin, the safe-dig sequence over time, and the time from a power failure in the design state
  * until the floor becomes unsafe (what standby power must beat).
+ *
+ * Steady designs: the safe-dig table is one step, `time_s: null`, the deepest safe formation at the
+ * steady state — a steady design says nothing about how soon that state is reached, and a transient
+ * run of the same rates would not converge to the steady cone where the steady state rests on a
+ * radius of influence. The power failure starts from the steady state (`design-recovery.ts`).
  *
  * Heads are the plan model's piezometric heads in the pumped aquifer; the checks are
  * one-dimensional vertical equilibrium with no side friction, no slab and no cut-off wall.
  */
 import { logSpacedTimes } from '../field';
-import { heaveFactorOfSafety, requiredUpliftFactor, safeDigSequence, timeUntilHeadAbove, upliftFactorOfSafety } from '../floor';
+import { heaveFactorOfSafety, requiredUpliftFactor, safeDigSequence, timeUntilLevelAbove, upliftFactorOfSafety } from '../floor';
 import type { ControlPoint } from './control-points';
 import { applyDesignRates, pointXY, type DesignContext } from './design-context';
+import { designRecovery } from './design-recovery';
 import type { DesignFloorResult } from './design-result';
+import { recoverySpan } from './design-times';
 
 const SAFE_DIG_SAMPLES = 12;
 
@@ -21,17 +28,16 @@ export interface FloorStageOptions {
   checkPoints: ControlPoint[];
   /** Computed levels at the check points at the design time (the verified levels). */
   pointLevels_m: ArrayLike<number>;
-  /** Time the pumps stop in the power-failure check, s. */
-  stop_s: number;
 }
 
 /** The floor block of every excavation, by id. */
-export function checkFloors({ ctx, rates, checkPoints, pointLevels_m, stop_s }: FloorStageOptions): Map<string, DesignFloorResult> {
+export function checkFloors({ ctx, rates, checkPoints, pointLevels_m }: FloorStageOptions): Map<string, DesignFloorResult> {
   const { scenario, options, designTime_s } = ctx;
   const out = new Map<string, DesignFloorResult>();
   const solved = applyDesignRates(scenario, ctx.wells, rates);
-  const stopped = applyDesignRates(scenario, ctx.wells, rates, stop_s);
   const pumping = rates.some((q) => q > 0);
+  const recoveryModel = pumping ? designRecovery(ctx, rates) : null;
+  const recovery = recoveryModel?.ok ? recoveryModel.recovery : null;
   for (const e of scenario.excavations) {
     const floor = ctx.floors.get(e.id);
     const own = checkPoints.map((p, i) => ({ p, i })).filter(({ p }) => p.excavationId === e.id);
@@ -41,21 +47,20 @@ export function checkFloors({ ctx, rates, checkPoints, pointLevels_m, stop_s }: 
     const { ground, target } = floor;
     const points = own.map(({ p }) => pointXY(p));
 
-    const safeDig =
-      designTime_s === null || !pumping
-        ? []
-        : safeDigSequence({
-            scenario: solved,
-            excavation: e,
-            options: options.floor,
-            points,
-            times_s: logSpacedTimes({ end_s: designTime_s, count: SAFE_DIG_SAMPLES, start_s: designTime_s / 1000 }),
-          });
+    const safeDig = !pumping
+      ? []
+      : safeDigSequence({
+          scenario: solved,
+          excavation: e,
+          options: options.floor,
+          points,
+          times_s: designTime_s === null ? [null] : logSpacedTimes({ end_s: designTime_s, count: SAFE_DIG_SAMPLES, start_s: designTime_s / 1000 }),
+        });
     const allowable = target.allowableLevel_m;
     const timeToUnsafe_s =
-      allowable === null || !pumping || head > allowable
+      allowable === null || recovery === null || head > allowable
         ? null
-        : timeUntilHeadAbove({ stopped, points, stop_s, level_m: allowable, span_s: Math.max(100 * stop_s, 1e7) });
+        : timeUntilLevelAbove({ levelsAt: recovery.levelsAt, points, level_m: allowable, span_s: recoverySpan(recovery.stop_s) });
 
     out.set(e.id, {
       governing: target.governing,

@@ -27,7 +27,11 @@ import { buildQuickChecks } from './quick-check';
 import { collectDesignCautions } from './design-run-cautions';
 import { checkFloors } from './floor-stage';
 import { floorCautions } from '../floor';
-import { describeRounding } from './design-wording';
+import { describeRounding, STEADY_RECOVERY_CAUTION } from './design-wording';
+import { createDesignBasis } from './scaled-design';
+import { buildSensitivityTable } from './sensitivity-stage';
+import { buildRobustDesigns } from './robust-design';
+import { planMonteCarlo, runMonteCarlo, summariseMonteCarlo } from './monte-carlo';
 
 /**
  * Runs a design. Throws `DrydigError` naming the field for bad input; never returns NaN
@@ -78,10 +82,10 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
 
   progress('times', 0.65);
   const refinedDesignPoints = [...designPoints, ...[...addedCheckPoints].map((i) => checkPoints[i]!)];
-  const times = computeTimes({ ctx, rates, designPoints: refinedDesignPoints, excavations });
+  const times = computeTimes({ ctx, rates, designPoints: refinedDesignPoints, excavations, feasible });
 
   progress('floor checks', 0.8);
-  const floors = checkFloors({ ctx, rates, checkPoints, pointLevels_m: pointResults.map((r) => r.level_m), stop_s: times.stop_s });
+  const floors = checkFloors({ ctx, rates, checkPoints, pointLevels_m: pointResults.map((r) => r.level_m) });
 
   progress('standby check', 0.85);
   const outOfService = checkOneWellOut(ctx, checkPoints, responses.check, rates);
@@ -101,6 +105,29 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     designPointCount: designPoints.length,
   });
   cautions.push(...floorCautions([...floors].map(([excavationId, f]) => ({ excavationId, ...f }))));
+  if (ctx.designTime_s === null && rates.some((q) => q > 0)) cautions.push(STEADY_RECOVERY_CAUTION);
+
+  // The unknowns: sensitivity table, robust designs, Monte Carlo — all re-solves from one basis.
+  const basis = createDesignBasis({ ctx, options: input.options, designPoints, checkPoints, addedCheckPoints, rates, installed });
+  input.onBasis?.(basis);
+  progress('sensitivity', 0.88);
+  const sensitivity = await buildSensitivityTable(ctx, basis);
+  progress('robust designs', 0.9);
+  const robust = await buildRobustDesigns(options, basis, total);
+  let uncertainty = null;
+  if (options.monteCarlo && !input.monteCarlo?.defer) {
+    const plan = planMonteCarlo(scenario, options.monteCarlo);
+    const t0 = Date.now();
+    const outcomes = await runMonteCarlo({
+      basis,
+      plan,
+      ...(input.monteCarlo?.runChunk ? { runChunk: input.monteCarlo.runChunk } : {}),
+      concurrency: input.monteCarlo?.concurrency ?? 1,
+      ...(input.monteCarlo?.signal ? { signal: input.monteCarlo.signal } : {}),
+      onProgress: (done, runs) => progress(`monte carlo ${done}/${runs}`, 0.92 + (0.08 * done) / runs),
+    });
+    uncertainty = summariseMonteCarlo({ plan, outcomes, elapsed_ms: Date.now() - t0, workers: input.monteCarlo?.workers ?? 0, summary });
+  }
   progress('done', 1);
   return {
     mode,
@@ -126,6 +153,9 @@ export async function runDesign(input: RunDesignOptions): Promise<DesignResult> 
     },
     cautions: rounding === null ? cautions : [...cautions, describeRounding(rounding)],
     ...(rounding !== null ? { rateRounding: rounding } : {}),
+    ...(sensitivity ? { sensitivity } : {}),
+    ...(robust ? { robust } : {}),
+    ...(uncertainty ? { uncertainty } : {}),
     modelNotes: [...verified.modelNotes, `Design run took ${Date.now() - started} ms.`],
     warnings: findScenarioWarnings(scenario, input.scenarioPath ?? ''),
   };

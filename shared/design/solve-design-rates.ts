@@ -71,10 +71,15 @@ export interface SolveDesignRatesOptions {
   responses: DesignResponses;
   /** Progress callback (stage name, fraction 0–1). */
   progress: (stage: string, fraction: number) => void;
+  /**
+   * Check points to add as rows from the start (indices into `checkPoints`): a re-solve of a
+   * scaled design starts from the points the ordinary design needed, which saves rounds.
+   */
+  seedCheckPoints?: Iterable<number>;
 }
 
 /** Solves and refines the rates (see the file comment). */
-export async function solveDesignRates({ ctx, designPoints, checkPoints, responses, progress }: SolveDesignRatesOptions): Promise<SolvedDesign> {
+export async function solveDesignRates({ ctx, designPoints, checkPoints, responses, progress, seedCheckPoints }: SolveDesignRatesOptions): Promise<SolvedDesign> {
   const { mode, wells } = ctx;
   const a = ctx.scenario.aquifer;
   const nW = wells.length;
@@ -90,6 +95,11 @@ export async function solveDesignRates({ ctx, designPoints, checkPoints, respons
   let chosen: Uint8Array | null = null;
   const rows = new RequirementRows(ctx);
   designPoints.forEach((p, i) => rows.add(responses.design.subarray(i * nW, (i + 1) * nW), p));
+  for (const i of seedCheckPoints ?? []) {
+    if (rows.addedCheckPoints.has(i) || i < 0 || i >= checkPoints.length) continue;
+    rows.addedCheckPoints.add(i);
+    rows.add(responses.check.subarray(i * nW, (i + 1) * nW), checkPoints[i]!);
+  }
 
   let layoutSearch: LayoutSearch | null = null;
   const solve = createModeSolver(ctx, (search) => (layoutSearch = search));

@@ -6,6 +6,7 @@
  */
 import type { Scenario } from '../schema';
 import type { DesignResult } from '../design';
+import { describeRecovery } from '../design';
 import { DESIGN_CAUTIONS } from './design-cautions';
 import { escapeHtml as e } from './escape-html';
 import { METHOD_REFERENCES, SUPPORTING_REFERENCES } from './method-references';
@@ -79,9 +80,9 @@ function designSection(scenario: Scenario, design: DesignResult | null | undefin
   ];
   html += kv.map(([k, v]) => `<tr><th>${e(k)}</th><td>${e(v)}</td></tr>`).join('') + '</table>';
   if (s.undersizedPumpWellIds.length) html += `<p class="bad">Pumps undersized at: ${e(s.undersizedPumpWellIds.join(', '))}</p>`;
-  html += '<table><thead><tr><th>Excavation</th><th>Target m</th><th>Met</th><th>Worst shortfall m</th><th>Critical point</th><th>Time to target</th></tr></thead><tbody>';
+  html += '<table><thead><tr><th>Excavation</th><th>Target m</th><th>Met</th><th>Worst shortfall m</th><th>Critical point</th><th>Time to target</th><th>Power failure</th></tr></thead><tbody>';
   for (const x of design.excavations)
-    html += `<tr><td>${e(x.id)}</td><td>${f(x.targetLevel_m)}</td><td>${x.met ? '<span class="ok">yes</span>' : '<span class="bad">no</span>'}</td><td>${f(x.worstShortfall_m)}</td><td>${f(x.critical.x, 1)}, ${f(x.critical.y, 1)} (${f(x.critical.level_m)} m)</td><td>${e(x.timeToTarget_s === null ? '—' : days(x.timeToTarget_s))}</td></tr>`;
+    html += `<tr><td>${e(x.id)}</td><td>${f(x.targetLevel_m)}</td><td>${x.met ? '<span class="ok">yes</span>' : '<span class="bad">no</span>'}</td><td>${f(x.worstShortfall_m)}</td><td>${f(x.critical.x, 1)}, ${f(x.critical.y, 1)} (${f(x.critical.level_m)} m)</td><td>${e(x.timeToTarget_s === null ? '—' : days(x.timeToTarget_s))}</td><td>${e(describeRecovery(x))}</td></tr>`;
   html += '</tbody></table>';
   if (design.reasons.length) html += `<ul class="bad">${design.reasons.map((r) => `<li>${e(r.message)}</li>`).join('')}</ul>`;
   if (design.outOfService)

@@ -21,3 +21,5 @@ export * from './equivalent-well-inflow';
 export * from './partial-penetration-sum';
 export * from './equivalent-well-boundaries';
 export * from './validity-wording';
+export * from './first-passage-time';
+export * from './steady-recovery';

@@ -4,7 +4,7 @@
  * safe-dig level of the excavation sequence.
  */
 import type { Excavation, GroundProfile, Scenario } from '../schema';
-import { analyseFloorGround, type FloorGround } from './floor-profile';
+import { analyseFloorGround, floorGroundAnalyser, type FloorGround } from './floor-profile';
 import { floorTarget, type FloorTarget } from './floor-checks';
 import type { FloorCheckOptions } from './floor-options';
 
@@ -40,19 +40,33 @@ export function excavationFloor(scenario: Scenario, excavation: Excavation, opti
  * aquifer's head under it is `head_m`: every level from the top of the ground down to it meets
  * the target that governs there (dry in granular ground, uplift over a plug, no heave).
  * Scanned top down in 5 cm steps and refined by bisection to 1 mm. Returns the top of the
- * ground when even a shallow dig is unsafe (artesian head).
+ * ground when even a shallow dig is unsafe (artesian head). For many heads use `safeLevelFinder`.
  */
 export function safeFormationLevel(scenario: Scenario, excavation: Excavation, options: FloorCheckOptions, head_m: number): number {
+  return safeLevelFinder(scenario, excavation, options)(head_m);
+}
+
+/**
+ * `safeFormationLevel` for many heads of one excavation: the ground profile is analysed once and
+ * the safe level at each scan level is computed once (it does not depend on the head).
+ */
+export function safeLevelFinder(scenario: Scenario, excavation: Excavation, options: FloorCheckOptions): (head_m: number) => number {
   const bottom = excavation.formationLevel_m;
-  const top = Math.max(scenario.groundLevel_m, groundProfileOf(scenario, excavation).profile?.layers[0]?.top_m ?? -Infinity);
-  const safeAt = (z: number) => head_m <= excavationFloor(scenario, excavation, options, z).target.targetLevel_m + LEVEL_TOLERANCE_M;
-  let lastSafe = top;
-  if (!safeAt(top)) return top;
-  for (let z = top - SCAN_STEP_M; z > bottom; z -= SCAN_STEP_M) {
-    if (!safeAt(z)) return refine(safeAt, lastSafe, z);
-    lastSafe = z;
-  }
-  return safeAt(bottom) ? bottom : refine(safeAt, lastSafe, bottom);
+  const { profile } = groundProfileOf(scenario, excavation);
+  const analyse = profile ? floorGroundAnalyser(profile, scenario.aquifer) : null;
+  const top = Math.max(scenario.groundLevel_m, profile?.layers[0]?.top_m ?? -Infinity);
+  const targetAt = (z: number) => floorTarget(analyse ? analyse(z) : null, z, excavation.margin_m, options).safeLevel_m;
+  const scan: Array<{ z: number; target_m: number }> = [];
+  for (let z = top; z > bottom; z -= SCAN_STEP_M) scan.push({ z, target_m: targetAt(z) });
+  const bottomTarget_m = targetAt(bottom);
+  return (head_m) => {
+    const safeAt = (z: number) => head_m <= targetAt(z) + LEVEL_TOLERANCE_M;
+    const meets = (target_m: number) => head_m <= target_m + LEVEL_TOLERANCE_M;
+    if (scan.length === 0) return meets(bottomTarget_m) ? bottom : top;
+    if (!meets(scan[0]!.target_m)) return top;
+    for (let k = 1; k < scan.length; k++) if (!meets(scan[k]!.target_m)) return refine(safeAt, scan[k - 1]!.z, scan[k]!.z);
+    return meets(bottomTarget_m) ? bottom : refine(safeAt, scan[scan.length - 1]!.z, bottom);
+  };
 }
 
 /** Bisection between a safe level above and an unsafe one below, to 1 mm. */

@@ -42,7 +42,10 @@ export type GoverningFloorCheck = 'dry' | 'uplift' | 'heave';
 /** The level the wells must reach under one formation level, and which check sets it. */
 export interface FloorTarget {
   governing: GoverningFloorCheck;
+  /** The level the wells must reach: the governing level less the margin kept as reserve. */
   targetLevel_m: number;
+  /** The governing level itself, without the reserve: the highest head at which the floor is still safe. */
+  safeLevel_m: number;
   /** The strictest floor-safety level (uplift or heave); null where neither check applies. */
   allowableLevel_m: number | null;
   upliftLevel_m: number | null;
@@ -55,7 +58,8 @@ export interface FloorTarget {
  * The target under a formation: a granular floor open to the pumped aquifer (or one with no
  * profile) must be dry (formation − margin) and must not boil; a plug left over the pumped aquifer
  * needs the aquifer's head at or below the allowable uplift level, which may stand above formation.
- * Where several apply, the strictest governs.
+ * The excavation's margin is kept below whichever level applies (formation, or the allowable
+ * uplift / heave level). Where several apply, the strictest governs.
  */
 export function floorTarget(ground: FloorGround | null, formationLevel_m: number, margin_m: number, options: FloorCheckOptions): FloorTarget {
   const z = formationLevel_m;
@@ -67,11 +71,16 @@ export function floorTarget(ground: FloorGround | null, formationLevel_m: number
   const upliftLevel_m = ground?.plug ? allowableUpliftLevel(ground.plug, options) : null;
   const heaveLevel_m = ground?.granular && !separated ? allowableHeaveLevel(ground.granular, z, options) : null;
   const dryLevel_m = needsDry ? z - margin_m : null;
+  // The margin is kept below a safety level too, as reserve for fluctuation and for the minutes
+  // after a pump stops; a negative margin is never applied there (it would take the factor of
+  // safety below the required one) — the scenario warnings say so.
+  const reserve_m = Math.max(0, margin_m);
   const candidates: Array<[GoverningFloorCheck, number]> = [];
   if (dryLevel_m !== null) candidates.push(['dry', dryLevel_m]);
-  if (upliftLevel_m !== null) candidates.push(['uplift', upliftLevel_m]);
-  if (heaveLevel_m !== null) candidates.push(['heave', heaveLevel_m]);
+  if (upliftLevel_m !== null) candidates.push(['uplift', upliftLevel_m - reserve_m]);
+  if (heaveLevel_m !== null) candidates.push(['heave', heaveLevel_m - reserve_m]);
   const [governing, targetLevel_m] = candidates.reduce((a, b) => (b[1] < a[1] ? b : a));
   const safety = [upliftLevel_m, heaveLevel_m].filter((v): v is number => v !== null);
-  return { governing, targetLevel_m, allowableLevel_m: safety.length > 0 ? Math.min(...safety) : null, upliftLevel_m, heaveLevel_m, dryLevel_m };
+  const safeLevel_m = Math.min(...safety, ...(dryLevel_m === null ? [] : [dryLevel_m]));
+  return { governing, targetLevel_m, safeLevel_m, allowableLevel_m: safety.length > 0 ? Math.min(...safety) : null, upliftLevel_m, heaveLevel_m, dryLevel_m };
 }

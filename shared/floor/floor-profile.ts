@@ -47,35 +47,47 @@ const clipped = (l: GroundLayer, from: number, to: number) => Math.max(0, Math.m
 
 /** The ground under a formation level in a profile, for the aquifer the wells pump. */
 export function analyseFloorGround(profile: GroundProfile, aquifer: AquiferLevels, formationLevel_m: number): FloorGround {
+  return floorGroundAnalyser(profile, aquifer)(formationLevel_m);
+}
+
+/**
+ * The analysis of one profile for many formation levels (the safe-dig scan): the pumped layer is
+ * found once, and each call only walks the layers under the given level.
+ */
+export function floorGroundAnalyser(profile: GroundProfile, aquifer: AquiferLevels): (formationLevel_m: number) => FloorGround {
   const layers = profile.layers;
-  const f = layerAt(layers, formationLevel_m);
-  const out: FloorGround = { formationLevel_m, floorKind: f < 0 ? null : layers[f]!.kind, plug: null, granular: null };
-  if (f < 0) return out;
-
   const pumped = findPumpedLayer(profile, aquifer);
-  if (pumped !== null && pumped > f) {
-    let lowestPlug = -1;
-    for (let i = f; i < pumped; i++) if (layers[i]!.kind === 'plug') lowestPlug = i;
-    if (lowestPlug >= 0) {
-      const base_m = layers[lowestPlug]!.bottom_m;
-      let weight = 0;
-      for (let i = f; i <= lowestPlug; i++) weight += layers[i]!.unitWeightSat_kN_m3 * clipped(layers[i]!, formationLevel_m, base_m);
-      out.plug = { base_m, weight_kPa: weight, thickness_m: formationLevel_m - base_m };
-    }
-  }
+  return (formationLevel_m) => {
+    const f = layerAt(layers, formationLevel_m);
+    const out: FloorGround = { formationLevel_m, floorKind: f < 0 ? null : layers[f]!.kind, plug: null, granular: null };
+    if (f < 0) return out;
+    if (pumped !== null && pumped > f) out.plug = plugUnder(layers, f, pumped, formationLevel_m);
+    if (layers[f]!.kind === 'granular') out.granular = granularFrom(layers, f, formationLevel_m);
+    return out;
+  };
+}
 
-  if (layers[f]!.kind === 'granular') {
-    let thickness = 0;
-    let weight = 0;
-    for (let i = f; i < layers.length && layers[i]!.kind === 'granular'; i++) {
-      const t = clipped(layers[i]!, formationLevel_m, -Infinity);
-      thickness += t;
-      weight += layers[i]!.unitWeightSat_kN_m3 * t;
-    }
-    if (thickness > 0) {
-      const gammaSat = weight / thickness;
-      out.granular = { thickness_m: thickness, criticalGradient: (gammaSat - WATER_UNIT_WEIGHT_kN_m3) / WATER_UNIT_WEIGHT_kN_m3 };
-    }
+/** The lowest plug between the formation's layer `f` and the pumped layer, and the weight over its base; null: none. */
+function plugUnder(layers: GroundLayer[], f: number, pumped: number, formationLevel_m: number): PlugUnderFloor | null {
+  let lowestPlug = -1;
+  for (let i = f; i < pumped; i++) if (layers[i]!.kind === 'plug') lowestPlug = i;
+  if (lowestPlug < 0) return null;
+  const base_m = layers[lowestPlug]!.bottom_m;
+  let weight = 0;
+  for (let i = f; i <= lowestPlug; i++) weight += layers[i]!.unitWeightSat_kN_m3 * clipped(layers[i]!, formationLevel_m, base_m);
+  return { base_m, weight_kPa: weight, thickness_m: formationLevel_m - base_m };
+}
+
+/** The granular ground from formation down to the first plug; null: none. */
+function granularFrom(layers: GroundLayer[], f: number, formationLevel_m: number): GranularFloor | null {
+  let thickness = 0;
+  let weight = 0;
+  for (let i = f; i < layers.length && layers[i]!.kind === 'granular'; i++) {
+    const t = clipped(layers[i]!, formationLevel_m, -Infinity);
+    thickness += t;
+    weight += layers[i]!.unitWeightSat_kN_m3 * t;
   }
-  return out;
+  if (!(thickness > 0)) return null;
+  const gammaSat = weight / thickness;
+  return { thickness_m: thickness, criticalGradient: (gammaSat - WATER_UNIT_WEIGHT_kN_m3) / WATER_UNIT_WEIGHT_kN_m3 };
 }

@@ -8,6 +8,7 @@
  */
 import { Type, type Static } from '@sinclair/typebox';
 import { DESIGN_BID_OPTION_FIELDS } from './design-bid-options-schema';
+import { DESIGN_UNCERTAINTY_OPTION_FIELDS } from './design-uncertainty-options-schema';
 import { COORDINATE_LIMIT_M, LEVEL_LIMIT_M, TIME_LIMIT_S } from './physical-ranges';
 
 /** Layout searches stop within this many seconds: a longer one would hold a pool thread that others are waiting for. */
@@ -118,6 +119,7 @@ export const DesignOptionsSchema = Type.Object(
       Type.String({ minLength: 1, maxLength: 64, description: 'Well to take out of service in the standby check. Default: the one whose loss hurts most.' }),
     ),
     ...DESIGN_BID_OPTION_FIELDS,
+    ...DESIGN_UNCERTAINTY_OPTION_FIELDS,
   },
   { additionalProperties: false, description: 'Design solver and bid-sizing options (all optional; defaults documented per field).' },
 );

@@ -66,7 +66,7 @@ export const ExcavationSchema = Type.Object(
     margin_m: Finite({
       minimum: -50,
       maximum: 50,
-      description: 'Groundwater must stand this far below formation, m. Negative (a target above formation) only over a low-permeability plug.',
+      description: 'Groundwater must stand this far below formation, m — or, where a pit-floor check governs, below its allowable level. Negative only over a low-permeability plug, and then not applied below the allowable uplift level.',
     }),
     ground: Type.Optional(GroundProfileSchema),
   },

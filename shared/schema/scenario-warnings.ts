@@ -9,7 +9,7 @@ import type { Scenario } from './scenario-schema';
 
 export const ScenarioWarningSchema = Type.Object(
   {
-    code: Type.Union([Type.Literal('wells-coincide'), Type.Literal('screen-above-water'), Type.Literal('water-above-ground'), Type.Literal('well-radius-large')]),
+    code: Type.Union([Type.Literal('wells-coincide'), Type.Literal('screen-above-water'), Type.Literal('water-above-ground'), Type.Literal('well-radius-large'), Type.Literal('negative-margin-not-applied')]),
     path: Type.String({ description: 'JSON pointer of the field.' }),
     message: Type.String(),
   },
@@ -30,6 +30,10 @@ export function findScenarioWarnings(scenario: Scenario, pathPrefix = ''): Scena
   const a = scenario.aquifer;
   if (a.staticLevel_m > scenario.groundLevel_m)
     add('water-above-ground', '/aquifer/staticLevel_m', `static level (${a.staticLevel_m} m) is above ground level (${scenario.groundLevel_m} m): a flooded or artesian site; check that both are elevations on the same datum`);
+  scenario.excavations.forEach((e, i) => {
+    if (e.margin_m < 0)
+      add('negative-margin-not-applied', `/excavations/${i}/margin_m`, `a negative margin (${e.margin_m} m) is not applied below the allowable uplift level: the plug's uplift check sets the target (it may stand above formation) and no margin may take its factor of safety below the required one`);
+  });
   scenario.wells.forEach((w, i) => {
     if (w.radius_m > LARGEST_PLAUSIBLE_WELL_RADIUS_M)
       add('well-radius-large', `/wells/${i}/radius_m`, `well radius ${w.radius_m} m is more than ${LARGEST_PLAUSIBLE_WELL_RADIUS_M} m: is it a diameter, or in another unit? (dewatering wells are about 0.025–0.5 m)`);

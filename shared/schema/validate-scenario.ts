@@ -7,6 +7,7 @@ import { ScenarioSchema, type Scenario } from './scenario-schema';
 import { DrydigError, summariseIssues, type FieldIssue } from './error-table';
 import { findSelfIntersection, getPolygonArea } from '../geometry/polygon';
 import { validatePumpingTestRecord } from './pumping-test-record-schema';
+import { validateImportRecords } from './import-record-schema';
 import { groundProfileIssues } from './ground-schema';
 import { describeStructuralError, structuralIssuesOf } from './structural-issues';
 
@@ -87,7 +88,7 @@ function semanticIssues(s: Scenario): FieldIssue[] {
 
 /** Checks a parsed JSON value against scenario format v1; never throws. */
 export function validateScenario(input: unknown): ScenarioValidation {
-  const structural = [...structuralIssues(input), ...validatePumpingTestRecord(input)];
+  const structural = [...structuralIssues(input), ...validatePumpingTestRecord(input), ...validateImportRecords(input)];
   if (structural.length > 0) return { ok: false, issues: structural };
   const scenario = input as Scenario;
   const semantic = semanticIssues(scenario);

@@ -63,6 +63,13 @@ describe('<pumping-test-panel>', () => {
     expect(s.errors).toEqual([]);
   }, 60_000);
 
+  it('shows Hazen’s grain-size estimate of K beside the scenario’s K, with its constant', async () => {
+    await page.click('pumping-test-panel details:has(h3:text("Grain-size estimate")) summary');
+    await page.fill('pumping-test-panel input[name="hazen-d10"]', '0.2');
+    // Hazen: K [cm/s] ≈ C·d10² [cm], C = 100 (the constant the engine names): 100 × 0.02² = 0.04 cm/s = 4×10⁻⁴ m/s.
+    expect(await page.locator('pumping-test-panel [data-test="hazen"]').innerText()).toMatch(/^Hazen K ≈ C·d10² = 4(\.0)?\s*×\s*10⁻⁴\s*m\/s \(C = 100\) beside the scenario’s K = .+\sm\/s\.$/);
+  }, 60_000);
+
   it('names the bad line of a broken readings file in plain words', async () => {
     await page.click('pumping-test-panel details summary');
     await page.fill('pumping-test-panel textarea[name="test-csv"]', 'time_s,drawdown_m\n60,0.1\n120,abc\n');

@@ -17,7 +17,7 @@ import {
   requiredUpliftFactor,
   upliftFactorOfSafety,
 } from '../../../shared/floor';
-import { validateScenario, type GroundProfile, type Scenario } from '../../../shared/schema';
+import { findScenarioWarnings, validateScenario, type GroundProfile, type Scenario } from '../../../shared/schema';
 import { expectClose } from '../design/design-test-helpers';
 import clayPlugDemo from '../../../fixtures/demo-clay-plug-confined.json';
 import deepwellDemo from '../../../fixtures/demo-deepwells-confined.json';
@@ -86,6 +86,18 @@ describe('the target follows the governing check', () => {
     expect(target.dryLevel_m).toBeNull();
   });
 
+  it('keeps the margin below the allowable uplift level as reserve, and never a negative one', () => {
+    const ground = analyseFloorGround(clayOverSand, aquifer, 7);
+    const bare = floorTarget(ground, 7, 0, FLOOR_CHECK_DEFAULTS);
+    const kept = floorTarget(ground, 7, 0.5, FLOOR_CHECK_DEFAULTS);
+    const negative = floorTarget(ground, 7, -0.5, FLOOR_CHECK_DEFAULTS);
+    expect(bare.targetLevel_m).toBe(bare.upliftLevel_m);
+    expectClose(kept.targetLevel_m, kept.upliftLevel_m! - 0.5, { abs: 1e-12 });
+    expect(kept.safeLevel_m).toBe(kept.upliftLevel_m);
+    // A negative margin would lower FS below the required value: the target stays at the allowable level.
+    expect(negative.targetLevel_m).toBe(negative.upliftLevel_m);
+  });
+
   it('in a granular floor open to the aquifer the dry target governs (formation − margin)', () => {
     const ground = analyseFloorGround(clayOverSand, aquifer, 2);
     const target = floorTarget(ground, 2, 0.5, FLOOR_CHECK_DEFAULTS);
@@ -104,7 +116,10 @@ describe('the target follows the governing check', () => {
     const floor = excavationFloor(plug, plug.excavations[0]!, FLOOR_CHECK_DEFAULTS);
     expect(floor.target.governing).toBe('uplift');
     // 2 m of clay (γsat 19.5) left over the sand top at 5 m: h_allow = 5 + 39 / (9.81 / 0.9) = 8.578 m (hand).
-    expectClose(floor.target.targetLevel_m, 5 + 39 / (9.81 / 0.9), { rel: 1e-12 });
+    expectClose(floor.target.allowableLevel_m!, 5 + 39 / (9.81 / 0.9), { rel: 1e-12 });
+    expectClose(floor.target.safeLevel_m, 5 + 39 / (9.81 / 0.9), { rel: 1e-12 });
+    // The pit's 0.5 m margin is kept below the allowable level as reserve: target 8.078 m.
+    expectClose(floor.target.targetLevel_m, 5 + 39 / (9.81 / 0.9) - plug.excavations[0]!.margin_m, { rel: 1e-12 });
     const deep = deepwellDemo as unknown as Scenario;
     expect(excavationFloor(deep, deep.excavations[0]!, FLOOR_CHECK_DEFAULTS).target.governing).toBe('dry');
   });
@@ -132,5 +147,7 @@ describe('ground profile validation names the field', () => {
     expect(refused.ok).toBe(false);
     if (!refused.ok) expect(refused.issues[0]!.path).toBe('/excavations/0/margin_m');
     expect(validateScenario({ ...base, excavations: [{ ...base.excavations[0]!, margin_m: -0.5 }] }).ok).toBe(true);
+    const warnings = findScenarioWarnings({ ...base, excavations: [{ ...base.excavations[0]!, margin_m: -0.5 }] });
+    expect(warnings.map((w) => [w.code, w.path])).toContainEqual(['negative-margin-not-applied', '/excavations/0/margin_m']);
   });
 });

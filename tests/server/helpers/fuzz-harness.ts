@@ -45,6 +45,8 @@ export interface FuzzWorld {
   editToken: string;
   pinnedToken: string;
   revokedToken: string;
+  /** A design job started at seeding (POST /api/v1/design/jobs). */
+  designJobId: string;
 }
 
 export interface FuzzApp {
@@ -80,6 +82,8 @@ async function seed(app: FastifyInstance, designer: TestSession): Promise<FuzzWo
   const del = await app.inject({ method: 'DELETE', url: `/api/v1/scenarios/${scenarioId}/links/${String(revoked.linkId)}`, headers: sessionHeaders(designer) });
   if (del.statusCode >= 300) throw new Error(`seeding a revoked link: ${del.statusCode} ${del.body}`);
   const revocable = await Promise.all([0, 1, 2].map(() => link({ mode: 'view' })));
+  const job = await app.inject({ method: 'POST', url: '/api/v1/design/jobs', headers: { 'content-type': 'application/json' }, payload: JSON.stringify({ scenario: fuzzScenario() }) });
+  if (job.statusCode !== 202) throw new Error(`seeding a design job: ${job.statusCode} ${job.body}`);
   return {
     scenarioId,
     revocableLinkIds: revocable.map((l) => String(l.linkId)),
@@ -87,6 +91,7 @@ async function seed(app: FastifyInstance, designer: TestSession): Promise<FuzzWo
     editToken: String(edit.token),
     pinnedToken: String(pinned.token),
     revokedToken: String(revoked.token),
+    designJobId: String((job.json() as { id: string }).id),
   };
 }
 
@@ -177,8 +182,8 @@ export function answerProblem(request: FuzzRequest, response: LightMyRequestResp
   return null;
 }
 
-/** Sends one request and throws when an answer breaks the rules (the request is in the message); returns the status. */
-export async function checkRequest(fuzz: FuzzApp, request: FuzzRequest): Promise<number> {
+/** Sends one request and throws when an answer breaks the rules (the request is in the message); returns the answer. */
+export async function checkRequest(fuzz: FuzzApp, request: FuzzRequest): Promise<LightMyRequestResponse> {
   const before = fuzz.snapshotStore();
   const response = await fuzz.send(request);
   const after = response.statusCode >= 400 ? fuzz.snapshotStore() : before;
@@ -188,7 +193,7 @@ export async function checkRequest(fuzz: FuzzApp, request: FuzzRequest): Promise
     const body = request.body ? ('json' in request.body ? hostileJsonText(request.body.json) : request.body.text) : '';
     throw new Error(`${request.method} ${request.url} (${request.auth}) ${problem}\nbody: ${body.slice(0, 1500)}`);
   }
-  return response.statusCode;
+  return response;
 }
 
 /** A stable seed per property: the base seed and the property's name. */
@@ -203,14 +208,23 @@ export function seedFor(name: string): number {
  * Answers how many requests got each status (first runs only, not the shrinking), so a test can
  * show the fuzz got past the schema as well as being refused.
  */
-export async function fuzzRoute(fuzz: FuzzApp, name: string, requests: fc.Arbitrary<FuzzRequest>, numRuns: number): Promise<Map<number, number>> {
+export async function fuzzRoute(
+  fuzz: FuzzApp,
+  name: string,
+  requests: fc.Arbitrary<FuzzRequest>,
+  numRuns: number,
+  /** Runs after each request (e.g. cancels a job the request started). */
+  after?: (fuzz: FuzzApp, response: LightMyRequestResponse) => Promise<void>,
+): Promise<Map<number, number>> {
   const seedValue = seedFor(name);
   const statuses = new Map<number, number>();
   let runs = 0;
   try {
     await fc.assert(
       fc.asyncProperty(requests, async (request) => {
-        const status = await checkRequest(fuzz, request);
+        const response = await checkRequest(fuzz, request);
+        await after?.(fuzz, response);
+        const status = response.statusCode;
         if (runs++ < numRuns) statuses.set(status, (statuses.get(status) ?? 0) + 1);
       }),
       { seed: seedValue, numRuns },

@@ -7,7 +7,8 @@
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { EXPORT_FORMATS } from '../../../server/storage/http';
-import type { FuzzAuth, FuzzRequest, FuzzWorld } from './fuzz-harness';
+import type { LightMyRequestResponse } from 'fastify';
+import type { FuzzApp, FuzzAuth, FuzzRequest, FuzzWorld } from './fuzz-harness';
 import { fuzzScenario } from './fuzz-harness';
 import { loadFixture } from './demo-fixtures';
 import { hostileJsonText, hostileQuery, hostileSegment, hostileValue, LATEST_REVISION, mutatedBody } from './fuzz-values';
@@ -22,6 +23,8 @@ export interface RouteCase {
   /** Runs of this route's property (compute routes cost more per request than reads). */
   numRuns: number;
   requests(world: FuzzWorld): fc.Arbitrary<FuzzRequest>;
+  /** Runs after each request of this route. */
+  after?: (fuzz: FuzzApp, response: LightMyRequestResponse) => Promise<void>;
 }
 
 const FIXTURES = new URL('../../../fixtures/', import.meta.url);
@@ -123,6 +126,15 @@ export const ROUTE_CASES: RouteCase[] = [
     method: 'POST', route: `${API}/section`, group: 'compute', numRuns: 10,
     requests: () => oneOf([() => ({ section: { ...(sectionFixture() as object), mesh: { maxSize_m: 3, minSize_m: 0.3 } }, flowNet: false }), () => ({ scenario: fuzzScenario(), fromScenario: { outsideHead_m: 12 }, compare: { toeLevels_m: [1] }, flowNet: false })], 'POST', path(`${API}/section`)),
   },
+  // Design jobs run on after their answer, at most 2 per client (more answer 503 busy): each one started is cancelled.
+  {
+    method: 'POST', route: `${API}/design/jobs`, group: 'compute', numRuns: 12, requests: () => oneOf(designBodies, 'POST', path(`${API}/design/jobs`)),
+    after: async (fuzz, response) => {
+      if (response.statusCode === 202) await fuzz.app.inject({ method: 'DELETE', url: `${API}/design/jobs/${(response.json() as { id: string }).id}` });
+    },
+  },
+  { method: 'GET', route: `${API}/design/jobs/:id`, group: 'compute', numRuns: 15, requests: (w) => withoutBody('GET', path(`${API}/design/jobs`, { fit: [w.designJobId, 'no-such-job'] })) },
+  { method: 'DELETE', route: `${API}/design/jobs/:id`, group: 'compute', numRuns: 10, requests: (w) => withoutBody('DELETE', path(`${API}/design/jobs`, { fit: [w.designJobId, 'no-such-job'] })) },
   {
     method: 'POST', route: `${API}/pumping-test`, group: 'compute', numRuns: 30,
     requests: () => oneOf([

@@ -30,6 +30,9 @@ type Autocannon = (options: {
 const SELF = fileURLToPath(import.meta.url);
 const FIXTURES = fileURLToPath(new URL('../fixtures/', import.meta.url));
 
+const BENCH_USER = 'load-bench';
+const BENCH_PASSWORD = 'load-bench-password (in-memory service only)';
+
 /** Seconds of load per endpoint. */
 export const LOAD_DURATION_S = 5;
 /** Concurrent connections. */
@@ -37,7 +40,12 @@ export const LOAD_CONNECTIONS = 10;
 
 async function serve(): Promise<void> {
   const { buildApp } = await import('../server/app');
-  const app = await buildApp({ dataDir: ':memory:', clientDir: false, security: { writeMax: 1_000_000 } });
+  const { hashPassword } = await import('../server/auth');
+  // One client with 10 connections: its rate limits and per-client queue are opened, so the bench
+  // measures what the service serves, not how fast it refuses.
+  const app = await buildApp({ dataDir: ':memory:', clientDir: false, security: { writeMax: 1_000_000, computeMax: 1_000_000 }, compute: { maxQueuedPerClient: 64, maxQueued: 64 } });
+  // The storage routes need an account: the bench signs in as this one to store its scenario.
+  app.scenarioStore.accounts.addUser({ username: BENCH_USER, role: 'designer', passwordHash: await hashPassword(BENCH_PASSWORD) });
   await app.listen({ host: '127.0.0.1', port: 0 });
   const address = app.server.address();
   process.stdout.write(`LISTENING ${typeof address === 'object' && address ? address.port : 0}\n`);
@@ -60,8 +68,8 @@ function startService(): Promise<{ origin: string; stop: () => void }> {
   });
 }
 
-async function post(url: string, body: unknown): Promise<Record<string, unknown>> {
-  const res = await fetch(url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+async function post(url: string, body: unknown, headers: Record<string, string> = {}): Promise<Record<string, unknown>> {
+  const res = await fetch(url, { method: 'POST', headers: { 'content-type': 'application/json', ...headers }, body: JSON.stringify(body) });
   if (!res.ok) throw new Error(`${url}: ${res.status} ${await res.text()}`);
   return (await res.json()) as Record<string, unknown>;
 }
@@ -72,8 +80,11 @@ export async function runLoadBench(): Promise<string[]> {
   const scenario = JSON.parse(readFileSync(`${FIXTURES}demo-wellpoints-unconfined.json`, 'utf8')) as Scenario;
   const service = await startService();
   try {
-    const saved = await post(`${service.origin}/api/v1/scenarios`, { scenario, savedBy: 'load bench' });
-    const link = await post(`${service.origin}/api/v1/scenarios/${String(saved.scenarioId)}/links`, { mode: 'view' });
+    const login = await fetch(`${service.origin}/api/v1/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ username: BENCH_USER, password: BENCH_PASSWORD }) });
+    if (!login.ok) throw new Error(`sign-in: ${login.status} ${await login.text()}`);
+    const session = { cookie: login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; '), 'x-drydig-csrf': String(((await login.json()) as { csrfToken: string }).csrfToken) };
+    const saved = await post(`${service.origin}/api/v1/scenarios`, { scenario, savedBy: 'load bench' }, session);
+    const link = await post(`${service.origin}/api/v1/scenarios/${String(saved.scenarioId)}/links`, { mode: 'view' }, session);
     const token = String(link.token);
     const points: Array<[number, number]> = [];
     for (let i = 0; i < 10; i++) for (let j = 0; j < 10; j++) points.push([-10 + 6 * i, -10 + 4 * j]);

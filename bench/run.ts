@@ -46,6 +46,7 @@ const OTHER_BENCHES: ReadonlyArray<readonly [string, string]> = [
   ['load.ts', 'runLoadBench'],
   ['section.ts', 'runSectionBench'],
   ['monte-carlo.ts', 'runMonteCarloBench'],
+  ['health-under-load.ts', 'runHealthUnderLoadBench'],
 ];
 
 async function runOptionalBench(file: string, entry: string): Promise<void> {

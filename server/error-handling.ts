@@ -128,8 +128,10 @@ function isDrydigError(error: unknown): error is DrydigError {
 /** Maps any thrown value onto a status and an error body. Exported for tests. */
 export function classifyError(error: unknown): { status: number; body: ErrorResponse; internal: boolean } {
   if (isDrydigError(error)) {
-    // A damaged revision is named (no secret in it), so the user knows which one to restore.
-    if (error.status >= 500 && error.code !== 'DRYDIG_ERR_STORED_DATA_DAMAGED') return { status: error.status, body: buildErrorBody(error.code, GENERIC_INTERNAL_MESSAGE), internal: true };
+    // A 500 may carry internals, so it leaves with the generic words. A damaged revision is named
+    // (no secret in it), so the user knows which one to restore; the service's own refusals for
+    // load or time (503: busy, time budget, cancelled) say what happened and when to come back.
+    if (error.status === 500 && error.code !== 'DRYDIG_ERR_STORED_DATA_DAMAGED') return { status: error.status, body: buildErrorBody(error.code, GENERIC_INTERNAL_MESSAGE), internal: true };
     return { status: error.status, body: buildErrorBody(error.code, error.message, error.issues), internal: false };
   }
   const fe = error as Partial<FastifyError> & { validation?: AjvLikeError[]; validationContext?: string };

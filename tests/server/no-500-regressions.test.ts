@@ -2,11 +2,16 @@
  * The four 500s found with hostile requests (issue 14 item 3), each now a 4xx or a design result
  * with a reason.
  */
+import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FastifyInstance } from 'fastify';
 import { buildApp } from '../../server/app';
 import { solveLinearProgram } from '../../shared/design';
 import { loadFixture } from './helpers/demo-fixtures';
+import { heavyEvaluateBody } from './helpers/heavy-requests';
+import { classifyError } from '../../server/error-handling';
+import { busyError } from '../../server/compute/compute-pool';
+import { DrydigError } from '../../shared/schema';
 
 let app: FastifyInstance;
 beforeAll(async () => {
@@ -57,5 +62,38 @@ describe('no 500 from the inputs that gave one', () => {
   it('a design request never depends on a shared LP worker: designs solve inside the pool threads', async () => {
     const answers = await Promise.all([0, 1, 2].map(() => post('/api/v1/design', { scenario: loadFixture('confined'), mode: 'optimal' })));
     expect(answers.map((r) => r.statusCode)).toEqual([200, 200, 200]);
+  });
+});
+
+/** Found by the route fuzz (tests/server/fuzz-*.test.ts). */
+describe('no 5xx from the inputs the route fuzz found', () => {
+  it('a section 60 m wide over a layer 10 km deep is refused before the solve (400 naming /mesh), not stopped at its time budget with 503', async () => {
+    const doc = JSON.parse(readFileSync(new URL('../../fixtures/sections/sheet-pile-cofferdam.json', import.meta.url), 'utf8')) as { layers: Array<{ bottom_m: number }> };
+    doc.layers[doc.layers.length - 1]!.bottom_m = -10_000;
+    const r = await post('/api/v1/section', { section: doc, flowNet: false });
+    expect(r.statusCode).toBe(400);
+    expect(r.json().error.code).toBe('DRYDIG_ERR_SECTION_TOO_LARGE');
+    expect(r.json().error.issues[0].path).toBe('/mesh');
+    expect(r.json().error.message).toMatch(/^\/mesh: the mesh would be \d+ × \d+ cells, \d+ cells deep/);
+  });
+
+  it('a request stopped at its time budget says so (503 with the budget), not "an unexpected error"', async () => {
+    const a = await buildApp({ dataDir: ':memory:', clientDir: false, compute: { threads: 2, timeout_ms: 50 } });
+    try {
+      const r = await a.inject({ method: 'POST', url: '/api/v1/evaluate', payload: heavyEvaluateBody(1500, 200) });
+      expect(r.statusCode).toBe(503);
+      expect(r.json().error.code).toBe('DRYDIG_ERR_COMPUTE_TIMEOUT');
+      expect(r.json().error.message).toMatch(/did not finish within its 0\.05 s budget/);
+    } finally {
+      await a.close();
+    }
+  });
+
+  it('the service’s own 503 refusals keep their words; a 500 keeps only the generic ones', () => {
+    const busy = classifyError(busyError('the service is busy: 32 computations are already waiting; try again in 5 s', 5));
+    expect([busy.status, busy.internal, busy.body.error.message]).toEqual([503, false, 'the service is busy: 32 computations are already waiting; try again in 5 s']);
+    const internal = classifyError(new DrydigError('DRYDIG_ERR_INTERNAL', 'SQLITE_CORRUPT at page 7 of /secret/path'));
+    expect(internal.status).toBe(500);
+    expect(internal.body.error.message).not.toMatch(/secret/);
   });
 });

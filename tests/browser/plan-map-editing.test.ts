@@ -230,7 +230,9 @@ describe('editing on the plan map', () => {
   it('opens a file whose view settings are malformed, keeping the design data and saying what was ignored', async () => {
     const scenario = { ...(await page.evaluate(() => (window as unknown as { __drydig: { scenario(): object } }).__drydig.scenario())), name: 'with bad view', view: { underlay: { refs: 5 } } };
     await page.setInputFiles('input[name="open-scenario"]', { name: 'odd.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(scenario)) });
-    await expect.poll(() => page.locator('.dd-notice').innerText()).toMatch(/Opened odd\.json; its view settings were ignored \(\/view\/underlay/);
+    await expect.poll(() => page.locator('.dd-notice').innerText()).toMatch(/Opened odd\.json; its view settings were ignored \(View, underlay/);
+    // The field in words, not its JSON pointer (issue 13 item 11).
+    expect(await page.locator('.dd-notice').innerText()).not.toMatch(/\/view\/underlay/);
     expect(await page.locator('input.dd-name').inputValue()).toBe('with bad view');
     expect(s.errors).toEqual([]);
   });

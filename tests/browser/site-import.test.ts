@@ -149,7 +149,7 @@ describe('<site-import-panel>', () => {
     await page.click('button[name="tab-store"]');
     const store = page.locator('scenario-store-panel');
     await store.locator('input[name="savedBy"]').fill('desk designer');
-    await store.getByRole('button', { name: 'Save', exact: true }).click();
+    await store.getByRole('button', { name: 'Store on server', exact: true }).click();
     await expect.poll(() => store.locator('.status').first().innerText()).toMatch(/Stored, showing revision 1/);
     await page.click('button[name="tab-import"]');
     await page.click('logger-import-section button[name="logger-to-site"]');

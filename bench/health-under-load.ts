@@ -193,7 +193,7 @@ export async function runHealthUnderLoadBench(): Promise<string[]> {
   };
   return [
     `health and a small evaluate (another client) while ${HEAVY_CONCURRENCY} heavy evaluates run (${HEAVY_WELLS} wells × ${HEAVY_GRID_N}×${HEAVY_GRID_N} grid each, ${HEAVY_WINDOW_S} s window); load average ${load0.map((l) => l.toFixed(2)).join(' ')} at start, ${load1.map((l) => l.toFixed(2)).join(' ')} at end`,
-    `  ${''.padEnd(22)} ${'before: engine on the event loop'.padEnd(30)} ${`after: pool of ${after.threads} threads`.padEnd(30)} before/after`,
+    `  ${''.padEnd(22)} ${'before: engine on the event loop'.padEnd(30)} ${`after: pool of ${after.threads} threads + 1 quick`.padEnd(30)} before/after`,
     `  ${''.padEnd(22)} ${'p50 / p99 / max'.padEnd(30)} ${'p50 / p99 / max'.padEnd(30)}`,
     row('GET /api/v1/health', (r) => r.health),
     row('small POST evaluate', (r) => r.small),

@@ -30,6 +30,8 @@ export interface ComputePoolOptions {
   maxQueuedPerClient?: number;
   /** Seconds a refused client is told to wait (Retry-After). Default 5. */
   retryAfter_s?: number;
+  /** Threads kept for the quick lane (small requests) beyond `threads`. Default 1; 0 = none. */
+  quickThreads?: number;
   /** Threads one client may hold at once. Default threads − 1 (at least 1); the CLI, the only client, takes all. */
   perClientSlots?: number;
 }
@@ -99,8 +101,10 @@ export function createComputePool(options: ComputePoolOptions = {}): ComputePool
   const timeout_ms = options.timeout_ms ?? DEFAULT_COMPUTE_TIMEOUT_MS;
   const longTimeout_ms = options.longTimeout_ms ?? DEFAULT_LONG_COMPUTE_TIMEOUT_MS;
   const retryAfter_s = options.retryAfter_s ?? 5;
+  const quickThreads = options.quickThreads ?? 1;
   const queue = new FairQueue({
     slots: threads,
+    quickSlots: quickThreads,
     maxQueued: options.maxQueued ?? 32,
     maxQueuedPerClient: options.maxQueuedPerClient ?? 4,
     ...(options.perClientSlots !== undefined ? { perClientSlots: options.perClientSlots } : {}),
@@ -112,10 +116,10 @@ export function createComputePool(options: ComputePoolOptions = {}): ComputePool
     (piscina ??= new Piscina({
       filename: new URL('./compute-worker.mjs', import.meta.url).href,
       minThreads: 0,
-      maxThreads: threads,
+      maxThreads: threads + quickThreads,
       idleTimeout: 60_000,
       // The fair queue decides order; piscina only ever sees as many jobs as it has threads.
-      maxQueue: threads,
+      maxQueue: threads + quickThreads,
       concurrentTasksPerWorker: 1,
     }));
 

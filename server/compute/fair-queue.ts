@@ -4,10 +4,12 @@
  * Three lanes: `view` (the first view of a share link — taken before anything waiting), `normal`,
  * and `long` (layout searches, which may run for their whole time limit): long jobs hold at most
  * `longSlots` threads at once, so at least one thread stays free for everything else. One client
- * holds at most `perClientSlots` threads at once.
+ * holds at most `perClientSlots` threads at once. A fourth lane, `quick`, is for small jobs (a
+ * health-check-sized evaluate): besides the ordinary slots there are `quickSlots` kept for it alone,
+ * so a small request never waits for a heavy one to finish, however busy the pool.
  */
 
-export type ComputeLane = 'view' | 'normal' | 'long';
+export type ComputeLane = 'view' | 'normal' | 'long' | 'quick';
 
 export interface FairQueueLimits {
   /** Jobs that may run at once (the pool's threads). */
@@ -16,6 +18,8 @@ export interface FairQueueLimits {
   longSlots?: number;
   /** Jobs one client may run at once (default slots − 1, at least 1). */
   perClientSlots?: number;
+  /** Slots kept for quick-lane jobs, beyond `slots` (default 0). */
+  quickSlots?: number;
   /** Jobs that may wait in all; more are refused. */
   maxQueued: number;
   /** Jobs one client may have waiting; more are refused. */
@@ -42,11 +46,13 @@ export class FairQueue {
   #serveCount = 0;
   #running = 0;
   #runningLong = 0;
+  /** Jobs running in the ordinary slots (a quick job may run in either). */
+  #runningOrdinary = 0;
   #queued = 0;
 
   constructor(limits: FairQueueLimits) {
     const spare = Math.max(1, limits.slots - 1);
-    this.#limits = { longSlots: spare, perClientSlots: spare, ...limits };
+    this.#limits = { longSlots: spare, perClientSlots: spare, quickSlots: 0, ...limits };
   }
 
   get running(): number {
@@ -98,6 +104,9 @@ export class FairQueue {
   }
 
   #eligible(job: FairJob): boolean {
+    // A quick job may always take a free slot (it is small by definition); the others only an ordinary one.
+    if (job.lane === 'quick') return true;
+    if (this.#runningOrdinary >= this.#limits.slots) return false;
     if (job.lane === 'view') return true;
     if (job.lane === 'long' && this.#runningLong >= this.#limits.longSlots) return false;
     return (this.#runningByClient.get(job.client) ?? 0) < this.#limits.perClientSlots;
@@ -107,7 +116,7 @@ export class FairQueue {
   #pick(): FairJob | undefined {
     for (const client of this.#order) {
       const view = this.#waiting.get(client)?.find((j) => j.lane === 'view');
-      if (view) return view;
+      if (view && this.#eligible(view)) return view;
     }
     const byTurn = [...this.#order].sort((a, b) => (this.#lastServed.get(a) ?? 0) - (this.#lastServed.get(b) ?? 0));
     for (const client of byTurn) {
@@ -118,12 +127,15 @@ export class FairQueue {
   }
 
   #dispatch(): void {
-    while (this.#running < this.#limits.slots) {
+    while (this.#running < this.#limits.slots + this.#limits.quickSlots) {
       const job = this.#pick();
       if (!job) return;
       this.withdraw(job);
       this.#served(job.client);
       this.#running++;
+      // A quick job uses an ordinary slot while one is free, else a kept one.
+      const ordinary = job.lane !== 'quick' || this.#runningOrdinary < this.#limits.slots;
+      if (ordinary) this.#runningOrdinary++;
       if (job.lane === 'long') this.#runningLong++;
       this.#runningByClient.set(job.client, (this.#runningByClient.get(job.client) ?? 0) + 1);
       let finished = false;
@@ -131,6 +143,7 @@ export class FairQueue {
         if (finished) return;
         finished = true;
         this.#running--;
+        if (ordinary) this.#runningOrdinary--;
         if (job.lane === 'long') this.#runningLong--;
         this.#runningByClient.set(job.client, (this.#runningByClient.get(job.client) ?? 1) - 1);
         this.#forgetIfIdle(job.client);

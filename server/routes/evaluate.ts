@@ -6,7 +6,7 @@
  */
 import type { FastifyPluginAsync } from 'fastify';
 import { DrydigError, parseScenario, type Scenario } from '../../shared/schema';
-import { checkEvaluateWork, currentCompute, DEFAULT_MAX_WORK } from '../compute';
+import { checkEvaluateWork, currentCompute, DEFAULT_MAX_WORK, isQuickEvaluate } from '../compute';
 import { computeRateLimit, type SecurityOptions } from '../security';
 import {
   buildEvaluateRequestSchema,
@@ -100,7 +100,7 @@ export const evaluateRoutes: FastifyPluginAsync<EvaluateRoutesOptions> = async (
         grid: request.body.grid,
         times_s: request.body.times_s,
         scenarioPath: '/scenario',
-      });
+      }, isQuickEvaluate(request.body) ? { lane: 'quick' } : {});
     },
   );
 };

@@ -3,8 +3,8 @@ import { describe, expect, it } from 'vitest';
 import { FairQueue, type ComputeLane } from '../../../server/compute';
 
 /** A queue whose jobs only record that they started; `finish(label)` ends one. */
-function harness(slots: number, maxQueued = 32, maxQueuedPerClient = 8) {
-  const queue = new FairQueue({ slots, maxQueued, maxQueuedPerClient });
+function harness(slots: number, maxQueued = 32, maxQueuedPerClient = 8, quickSlots = 0) {
+  const queue = new FairQueue({ slots, maxQueued, maxQueuedPerClient, quickSlots });
   const started: string[] = [];
   const running = new Map<string, () => void>();
   const add = (label: string, client: string, lane: ComputeLane = 'normal') =>
@@ -35,6 +35,23 @@ describe('FairQueue', () => {
     expect(h.started).toEqual(['a1']);
     h.add('b1', 'B');
     expect(h.started).toEqual(['a1', 'b1']);
+  });
+
+  it('keeps a slot for quick jobs: a small evaluate starts at once beside heavy ones, the others wait for an ordinary slot', () => {
+    const h = harness(2, 32, 8, 1);
+    h.add('heavy1', 'A'); h.add('heavy2', 'B'); h.add('heavy3', 'C'); h.add('view', 'D', 'view');
+    expect(h.started).toEqual(['heavy1', 'heavy2']);
+    h.add('small', 'E', 'quick');
+    expect(h.started).toEqual(['heavy1', 'heavy2', 'small']);
+    // The kept slot is taken: a second quick job waits, and goes first into the next free slot's turn.
+    h.add('small2', 'E', 'quick');
+    expect(h.started).toHaveLength(3);
+    h.finish('small');
+    expect(h.started.at(-1)).toBe('small2');
+    // An ordinary slot frees: the view goes first, never into the kept slot.
+    h.finish('heavy1');
+    expect(h.started.at(-1)).toBe('view');
+    expect(h.queue.running).toBe(3);
   });
 
   it('starts the first view of a share link before anything waiting', () => {

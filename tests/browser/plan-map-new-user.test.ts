@@ -298,7 +298,8 @@ describe('issue 13: the confusing parts', () => {
     await page.fill('input[name="contour-step"]', '');
     await page.locator('input[name="contour-step"]').blur();
     await settle(page, b2);
-    expect(await page.locator('map-legend [data-note="levels-capped"]').count()).toBe(0);
+    // The key follows the redrawn field (a moment after the contours under load).
+    await expect.poll(() => page.locator('map-legend [data-note="levels-capped"]').count(), { timeout: 15_000 }).toBe(0);
   }, 120_000);
 
   it('item 15: inspecting inside a pit keeps the side panel, and the drawer does not cover the point or section end A', async () => {

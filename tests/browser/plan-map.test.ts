@@ -281,7 +281,7 @@ describe('the plan-map page', () => {
   it('refuses to open a scenario file with an error, naming the field, and keeps the current one', async () => {
     const bad = { format: 'drydig.scenario', version: 1, name: 'bad', groundLevel_m: 10, aquifer: { kind: 'unconfined', conductivity_m_s: 'fast', base_m: 0, staticLevel_m: 8, specificYield: 0.1 }, excavations: [], wells: [], design: { time_s: null } };
     await page.setInputFiles('input[name="open-scenario"]', { name: 'bad.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(bad)) });
-    await expect.poll(() => page.locator('.dd-notice').innerText()).toMatch(/bad\.json was not opened — \/aquifer\/conductivity_m_s/);
+    await expect.poll(() => page.locator('.dd-notice').innerText()).toMatch(/bad\.json was not opened — Aquifer, conductivity: must be a number/);
     expect(await page.locator('path.dd-well').count()).toBe(6);
   });
 

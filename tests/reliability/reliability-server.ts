@@ -14,8 +14,16 @@ if (!dataDir) {
 }
 const app = await buildApp({ dataDir, clientDir: false, security: { writeMax: 1_000_000 } });
 // The storage routes need an account: the harness signs in with this one.
-if (!app.scenarioStore.accounts.findUser(RELIABILITY_USER.username))
-  app.scenarioStore.accounts.addUser({ username: RELIABILITY_USER.username, role: 'designer', passwordHash: await hashPassword(RELIABILITY_USER.password) });
+// Several processes may share one data folder and start at once: the account may appear between the
+// look-up and the insert (made by a sibling process), which is as good as making it here.
+if (!app.scenarioStore.accounts.findUser(RELIABILITY_USER.username)) {
+  const passwordHash = await hashPassword(RELIABILITY_USER.password);
+  try {
+    app.scenarioStore.accounts.addUser({ username: RELIABILITY_USER.username, role: 'designer', passwordHash });
+  } catch (error) {
+    if (!app.scenarioStore.accounts.findUser(RELIABILITY_USER.username)) throw error;
+  }
+}
 await app.listen({ host: '127.0.0.1', port: 0 });
 const address = app.server.address();
 process.stdout.write(`LISTENING ${typeof address === 'object' && address ? address.port : 0}\n`);

@@ -6,10 +6,9 @@ import { html, nothing } from 'lit';
 import { LightElement } from './light-element';
 // Deep imports on purpose: the receptors folder's index also pulls in the field engine.
 import type { ReceptorResult } from '../../shared/receptors/receptor-result';
-import { formatAngularDistortion } from '../../shared/receptors/receptor-wording';
+import { formatAngularDistortion, RECEPTOR_STATUS_WORDS, RECEPTOR_TABLE_NOTE } from '../../shared/receptors/receptor-wording';
 import { formatQuantity, type DisplayUnits } from '../../shared/units';
 
-const STATUS_WORDS: Record<ReceptorResult['status'], string> = { ok: 'within limits', exceeds: 'over a limit', 'not-checked': 'no limit given' };
 
 export class ReceptorTable extends LightElement {
   static override properties = { receptors: { attribute: false }, units: { attribute: false } };
@@ -30,9 +29,9 @@ export class ReceptorTable extends LightElement {
             <td data-drawdown>${len(r.maxDrawdownOverDig_m)}</td><td>${len(r.maxDrawdown_m)}</td>
             <td data-settlement>${mm(r.settlement_m)}</td><td>${mm(r.allowableSettlement_m)}</td>
             <td>${r.maxAngularDistortion === null ? '—' : formatAngularDistortion(r.maxAngularDistortion)}</td><td>${formatAngularDistortion(r.allowableAngularDistortion)}</td>
-            <td data-status=${r.status}>${STATUS_WORDS[r.status]}${r.flags.length > 0 ? html`<br /><small>${r.flags.join(', ')}</small>` : nothing}</td></tr>`,
+            <td data-status=${r.status}>${RECEPTOR_STATUS_WORDS[r.status]}${r.flags.length > 0 ? html`<br /><small>${r.flags.join(', ')}</small>` : nothing}</td></tr>`,
         )}</tbody></table></div>
-      <p class="dd-hint">Drawdown and settlement are the largest over the pumping period; settlement by one-dimensional consolidation (m_v·γw·Δh·H), β = Δs/L between neighbouring points (default limit 1/500, Bjerrum 1963). Screening estimates — see the cautions below.</p>`;
+      <p class="dd-hint">${RECEPTOR_TABLE_NOTE}</p>`;
   }
 }
 if (!customElements.get('receptor-table')) customElements.define('receptor-table', ReceptorTable);

@@ -11,7 +11,9 @@
  * plan zooms and pans with labels at a readable size.
  */
 import { LitElement, css, html, nothing } from 'lit';
+import { unsafeHTML } from 'lit/directives/unsafe-html.js';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
+import { writeReceptorTableHtml } from '../../shared/exports/receptor-report-html';
 import type { MonitoringPlan } from '../../shared/exports';
 import { excavationShortfalls, planSymbolKeys, planSymbolSwatchSvg, PLAN_SYMBOL_LABELS, type ShortfallAreaKind } from '../../shared/exports/plan-symbols';
 import { describeRevisionStatus, revisionBadge } from '../../shared/exports/revision-status';
@@ -315,6 +317,7 @@ export class SiteView extends LitElement {
         })}</tbody></table></div>
       ${d?.reasons.length ? html`<ul class="bad">${d.reasons.map((r) => html`<li>${r.message}</li>`)}</ul>` : nothing}
       ${d ? html`<floor-check-view .excavations=${d.excavations}></floor-check-view>` : nothing}
+      ${d?.receptors?.length ? unsafeHTML(writeReceptorTableHtml(d)) : nothing}
       ${v.computeError ? html`<p class="bad">Levels could not be computed: ${v.computeError}</p>` : nothing}
       ${!d ? html`<p class="note">No design check is available${v.designError ? `: ${v.designError}` : ''}; the rates shown are the plan's own.</p>` : nothing}
       ${v.flagCounts && Object.values(v.flagCounts).some((n) => n > 0)

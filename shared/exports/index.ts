@@ -17,6 +17,7 @@ export * from './monitoring-csv';
 export * from './method-references';
 export * from './report-html';
 export * from './floor-report-html';
+export * from './receptor-report-html';
 export * from './revision-status';
 export * from './section-floor-csv';
 export * from './section-report-html';

@@ -17,6 +17,7 @@ import { excavationShortfalls, planKeyHtml, planSymbolKeys } from './plan-symbol
 import { buildSetoutRows } from './setout-csv';
 import type { SiteProjection } from '../crs';
 import { designFloorCautions, writeFloorReportHtml } from './floor-report-html';
+import { writeReceptorTableHtml } from './receptor-report-html';
 import { describeRevisionStatus, type RevisionIssueRecord } from './revision-status';
 
 /** Options for `writeReportHtml`. */
@@ -93,7 +94,7 @@ function designSection(scenario: Scenario, design: DesignResult | null | undefin
   if (design.reasons.length) html += `<ul class="bad">${design.reasons.map((r) => `<li>${e(r.message)}</li>`).join('')}</ul>`;
   if (design.outOfService)
     html += `<p>One well out of service (${e(design.outOfService.wellId)}): targets ${design.outOfService.met ? 'still met' : '<strong>not met</strong>'}, worst shortfall ${f(design.outOfService.worstShortfall_m)} m.</p>`;
-  return html + writeFloorReportHtml(design);
+  return html + writeFloorReportHtml(design) + writeReceptorTableHtml(design);
 }
 
 function checksSection(results: PlanResults | undefined, design: DesignResult | null | undefined, resultsError?: string | null): string {

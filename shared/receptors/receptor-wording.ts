@@ -9,6 +9,13 @@ const mm = (v_m: number) => `${fig(v_m * 1000)} mm`;
 /** β as "1/N" (N rounded), the way the published limits are written. */
 export const formatAngularDistortion = (beta: number): string => (beta > 0 ? `1/${Math.round(1 / beta)}` : '0');
 
+/** A receptor's status in words (Design tab, site view, report). */
+export const RECEPTOR_STATUS_WORDS: Readonly<Record<ReceptorResult['status'], string>> = { ok: 'within limits', exceeds: 'over a limit', 'not-checked': 'no limit given' };
+
+/** What the receptor table's figures are (Design tab, site view, report). */
+export const RECEPTOR_TABLE_NOTE =
+  'Drawdown and settlement are the largest over the pumping period; settlement by one-dimensional consolidation (m_v·γw·Δh·H), β = Δs/L between neighbouring points (default limit 1/500, Bjerrum 1963). Screening estimates — see the cautions.';
+
 /** Why a receptor keeps the targets from being met (slack: extra drawdown the targets need there). */
 export function receptorBlocksMessage(id: string, limit_m: number, slack_m: number): string {
   return `receptor ${id}: keeping its drawdown within ${fig(limit_m)} m keeps a target from being met — the targets need about ${fig(slack_m)} m more drawdown there; raise its limit, recharge near it with injection wells, or move the abstraction away from it`;

@@ -52,6 +52,43 @@ export interface PartialPenetrationCorrectionOptions {
  * @returns f_s (−); positive where the partial screen draws the head lower than a full one
  */
 export function partialPenetrationCorrection(options: PartialPenetrationCorrectionOptions): number {
+  // f_s depends on the geometry alone (and B where leaky), not on K or S: re-solves with scaled
+  // K (sensitivity, Monte Carlo) ask for the same pairs again, so answers are kept (bounded),
+  // looked up by their inputs as numbers (no string keys: formatting doubles costs more than a lookup).
+  const key = [
+    options.thickness_m,
+    options.screenTopDepth_m,
+    options.screenBottomDepth_m,
+    options.observationTopDepth_m,
+    options.observationBottomDepth_m ?? options.observationTopDepth_m,
+    options.anisotropyKhKv ?? 1,
+    options.leakageFactor_m ?? -1,
+  ];
+  let level: Map<number, unknown> = KEPT_CORRECTIONS;
+  for (const part of key) {
+    let next = level.get(part) as Map<number, unknown> | undefined;
+    if (!next) level.set(part, (next = new Map()));
+    level = next;
+  }
+  const byDistance = level as Map<number, number>;
+  const kept = byDistance.get(options.distance_m);
+  if (kept !== undefined) return kept;
+  const value = seriesCorrection(options);
+  if (++keptCount > MAX_KEPT_CORRECTIONS) {
+    KEPT_CORRECTIONS.clear();
+    keptCount = 0;
+  }
+  byDistance.set(options.distance_m, value);
+  return value;
+}
+
+/** Corrections already summed, by their inputs (a pure function's answers), geometry first, distance last. */
+const KEPT_CORRECTIONS = new Map<number, unknown>();
+let keptCount = 0;
+/** Most answers kept before the store starts afresh (a few MB). */
+const MAX_KEPT_CORRECTIONS = 50_000;
+
+function seriesCorrection(options: PartialPenetrationCorrectionOptions): number {
   const { distance_m: r, thickness_m: D, screenTopDepth_m: d, screenBottomDepth_m: l, observationTopDepth_m: d2 } = options;
   const l2 = options.observationBottomDepth_m ?? d2;
   const ratio = options.anisotropyKhKv ?? 1;

@@ -5,13 +5,12 @@
  * derive from it, and the HTTP route answers with it (so the OpenAPI document lists it).
  */
 import { Type, type Static } from '@sinclair/typebox';
+import { NullableNum, Num } from '../schema/result-numbers';
 import { DesignModeSchema, ScenarioWarningSchema } from '../schema';
 import { RateRoundingSchema } from './round-design-rates';
 import { RobustDesignSchema, SensitivityResultSchema, UncertaintyResultSchema } from './uncertainty-result';
 import { ReceptorResultSchema } from '../receptors/receptor-result';
 
-const Num = (description: string) => Type.Number({ description });
-const NullableNum = (description: string) => Type.Union([Type.Number(), Type.Null()], { description });
 
 export const DesignReasonCodeSchema = Type.Union(
   [

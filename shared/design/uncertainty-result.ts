@@ -4,9 +4,8 @@
  * a K range). All SI; names carry units.
  */
 import { Type, type Static } from '@sinclair/typebox';
+import { NullableNum, Num } from '../schema/result-numbers';
 
-const Num = (description: string) => Type.Number({ description });
-const NullableNum = (description: string) => Type.Union([Type.Number(), Type.Null()], { description });
 
 export const SensitivityRowSchema = Type.Object({
   parameter: Type.Union([Type.Literal('conductivity'), Type.Literal('storage')], { description: 'What was scaled: K, or S (Sy when unconfined).' }),

@@ -3,9 +3,8 @@
  * distortion the design causes and how they stand against the receptor's limits.
  */
 import { Type, type Static } from '@sinclair/typebox';
+import { NullableNum, Num } from '../schema/result-numbers';
 
-const Num = (description: string) => Type.Number({ description });
-const NullableNum = (description: string) => Type.Union([Type.Number(), Type.Null()], { description });
 
 export const ReceptorFlagSchema = Type.Union(
   [

@@ -5,9 +5,8 @@
  * and residuals for the plots. One TypeBox schema; the types derive from it.
  */
 import { Type, type Static } from '@sinclair/typebox';
+import { NullableNum, Num } from '../schema/result-numbers';
 
-const Num = (description: string) => Type.Number({ description });
-const NullableNum = (description: string) => Type.Union([Type.Number(), Type.Null()], { description });
 const Range = (description: string) => Type.Tuple([Type.Number(), Type.Number()], { description });
 
 export const TestMethodSchema = Type.Union([Type.Literal('theis'), Type.Literal('cooper-jacob'), Type.Literal('recovery'), Type.Literal('hantush'), Type.Literal('step')], {

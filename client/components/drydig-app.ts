@@ -10,7 +10,7 @@ import demoWellpoints from '../../fixtures/demo-wellpoints-unconfined.json';
 import demoDeepwells from '../../fixtures/demo-deepwells-confined.json';
 import demoNeighbours from '../../fixtures/demo-neighbours-confined.json';
 import demoClayPlug from '../../fixtures/demo-clay-plug-confined.json';
-import { fieldLabelFromPointer, validateMonitoring, validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
+import { describeIssuePlainly, validateMonitoring, validateScenario, type FieldIssue, type Scenario, type Well, type WellKind } from '../../shared/schema';
 import { logSpacedTimes } from '../../shared/field';
 import { signedDistanceToRing } from '../../shared/contours';
 import { coordinateUnit, formatQuantity, fromSi, resolveDisplayUnits, toSi, type DisplayUnits, type UnitSystem } from '../../shared/units';
@@ -52,11 +52,7 @@ import type { PumpingTestPanel } from './pumping-test-panel';
 import type { ScenarioStorePanel } from './scenario-store-panel';
 import type { DesignFloorResult } from '../../shared/design/design-result';
 
-/** A validation issue told to a person: the field's label, then what is wrong (the pointer stays for the API and the tooltip). */
-function plainIssue(issue: { path: string; message: string }): string {
-  const label = fieldLabelFromPointer(issue.path);
-  return `${label.charAt(0).toUpperCase()}${label.slice(1)}: ${issue.message}`;
-}
+const plainIssue = describeIssuePlainly;
 
 type Tab = 'layout' | 'ground' | 'test' | 'results' | 'design' | 'section' | 'store' | 'backdrop' | 'import';
 /** The side panel's tabs in order, with their labels (one line per tab keeps additions apart). */

@@ -73,7 +73,7 @@ export class MapLegend extends LightElement {
       <ul class="dd-symbols">
         ${KEY_SYMBOLS.filter(([key]) => key !== 'shortfall-water').map(([key, cls]) => html`<li><span class="dd-sym dd-sym-svg ${cls}">${unsafeSVG(planSymbolSwatchSvg(key))}</span>${PLAN_SYMBOL_LABELS[key]}</li>`)}
         ${SHORTFALL_AREA_KINDS.map((k) => html`<li data-key=${k}><span class="dd-sym dd-sym-shortfall" style="color:${SHORTFALL_SYMBOLS[k].colour};border-style:${SHORTFALL_SYMBOLS[k].dash.length ? 'dashed' : 'solid'};background:${shortfallSwatchCss(k)}"></span>${SHORTFALL_SYMBOLS[k].label} <b class="dd-key-glyph" style="color:${SHORTFALL_SYMBOLS[k].colour}">${SHORTFALL_SYMBOLS[k].glyph}</b></li>`)}
-        <li><span class="dd-sym dd-sym-receptor"></span>Neighbour (receptor; green within limits, red over)</li>
+        <li><span class="dd-sym dd-sym-svg dd-sym-receptor">${unsafeSVG(planSymbolSwatchSvg('receptor-point'))}</span>${PLAN_SYMBOL_LABELS['receptor-point']}</li>
         ${(r?.flagAreas ?? []).map((f) => html`<li class="dd-legend-flag"><span class="dd-sym dd-sym-flag-${f.flag}"></span>${FLAG_LABELS[f.flag]?.title ?? f.flag}</li>`)}
       </ul>
       <p class="dd-legend-caution">Idealised model — estimates only; see Results for limits.</p>

@@ -6,7 +6,7 @@
  */
 import { html, nothing } from 'lit';
 import { LightElement } from './light-element';
-import { getReceptors, validateScenario, type Receptor, type ReceptorKind, type Scenario } from '../../shared/schema';
+import { describeIssuePlainly, getReceptors, validateScenario, type Receptor, type ReceptorKind, type Scenario } from '../../shared/schema';
 import type { DisplayUnits } from '../../shared/units';
 import { ensureReceptors, extendReceptor, type ScenarioStore } from '../state';
 import { displayValue, parseDisplayNumber } from './unit-context';
@@ -47,7 +47,7 @@ export class ReceptorEditor extends LightElement {
       change(ensureReceptors(draft)[i]!);
       const v = validateScenario(draft);
       if (!v.ok) {
-        problem = `${v.issues[0]!.path}: ${v.issues[0]!.message}`;
+        problem = describeIssuePlainly(v.issues[0]!);
         return this.store!.scenario;
       }
     });

@@ -1,18 +1,18 @@
 /**
- * Receptors (neighbours) on the plan, as symbols of our own: a point receptor is a diamond, a
- * polyline receptor a dashed line with a small square at each of its points; the colour says the
- * last design's verdict (within limits, over a limit, not yet designed). Points and vertices drag
+ * Receptors (neighbours) on the plan, drawn with the shared plan symbols (`receptorPointSymbolSvg`
+ * and friends in shared/exports/plan-symbols.ts, the set the site view and report use too): a
+ * point receptor is a diamond, a polyline receptor a dashed line with a small square at each of
+ * its points; the colour says the last design's verdict (within limits, over a limit, not yet designed). Points and vertices drag
  * with the Select tool like wells; the owner hears `select` and `drag` and edits the scenario.
  */
 import L from 'leaflet';
 import type { Receptor } from '../../shared/schema';
-import { MET_COLOUR, SHORTFALL_COLOUR } from './colour-scale';
+import { PLAN_COLOURS, RECEPTOR_SYMBOL, receptorColour, receptorPointSymbolSvg, receptorVertexSymbolSvg, type ReceptorVerdict } from '../../shared/exports/plan-symbols';
+
+export type { ReceptorVerdict } from '../../shared/exports/plan-symbols';
 
 /** Colour of a receptor with no design verdict yet. */
-export const RECEPTOR_COLOUR = '#7b3294';
-
-/** What a receptor's symbol shows about the last design. */
-export type ReceptorVerdict = 'ok' | 'exceeds' | 'not-checked' | null;
+export const RECEPTOR_COLOUR = PLAN_COLOURS.receptor;
 
 /** What the layer needs from the map controller (its pointer plumbing and tool). */
 export interface ReceptorLayerHooks {
@@ -29,14 +29,10 @@ export interface ReceptorLayerHooks {
 
 const round3 = (v: number) => Math.round(v * 1000) / 1000;
 
-function colourOf(verdict: ReceptorVerdict): string {
-  return verdict === 'ok' ? MET_COLOUR : verdict === 'exceeds' ? SHORTFALL_COLOUR : RECEPTOR_COLOUR;
-}
-
 function handleIcon(className: string, colour: string, label: string): L.DivIcon {
   const shape = className === 'dd-receptor-point'
-    ? `<svg viewBox="0 0 18 18" width="18" height="18" aria-hidden="true"><path d="M9 1.5 L16.5 9 L9 16.5 L1.5 9 Z" fill="#fff" fill-opacity="0.9" stroke="${colour}" stroke-width="2.6"/><path d="M9 6 L12 9 L9 12 L6 9 Z" fill="${colour}"/></svg>`
-    : `<svg viewBox="0 0 12 12" width="12" height="12" aria-hidden="true"><rect x="2" y="2" width="8" height="8" fill="#fff" stroke="${colour}" stroke-width="2.2"/></svg>`;
+    ? `<svg viewBox="0 0 18 18" width="18" height="18" aria-hidden="true">${receptorPointSymbolSvg(9, 9, colour)}</svg>`
+    : `<svg viewBox="0 0 12 12" width="12" height="12" aria-hidden="true">${receptorVertexSymbolSvg(6, 6, colour)}</svg>`;
   return L.divIcon({ className, html: `${shape}${label ? `<span class="dd-receptor-label">${label.replace(/[&<>"]/g, '')}</span>` : ''}`, iconSize: className === 'dd-receptor-point' ? [18, 18] : [12, 12] });
 }
 
@@ -65,10 +61,10 @@ export class ReceptorLayer extends L.LayerGroup {
   }
 
   private draw(r: Receptor, verdict: ReceptorVerdict): void {
-    const colour = colourOf(verdict);
+    const colour = receptorColour(verdict);
     const title = `${r.id} · ${r.kind}${r.label ? ` — ${r.label}` : ''}`;
     if (r.geometry.type === 'LineString') {
-      const line = L.polyline(r.geometry.coordinates.map(([x, y]) => [y, x] as L.LatLngTuple), { color: colour, weight: 4, dashArray: '8 4', opacity: 0.9, interactive: false });
+      const line = L.polyline(r.geometry.coordinates.map(([x, y]) => [y, x] as L.LatLngTuple), { color: colour, weight: RECEPTOR_SYMBOL.lineWidth_px, dashArray: RECEPTOR_SYMBOL.lineDash_px, opacity: 0.9, interactive: false });
       line.addTo(this);
       r.geometry.coordinates.forEach(([x, y], k) => this.marker(r, k, x, y, handleIcon('dd-receptor-vertex', colour, k === 0 ? r.id : ''), title));
     } else {

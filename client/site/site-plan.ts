@@ -10,8 +10,9 @@
 import { LitElement, css, svg, html, nothing } from 'lit';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
 import type { Scenario } from '../../shared/schema';
+import { getReceptors } from '../../shared/schema/receptor-schema';
 import {
-  BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, PLAN_COLOURS, piezometerSymbolSvg, shortfallEdge, shortfallPatternSvg, wellSymbol, wellSymbolSvg, type ShortfallAreaKind,
+  BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, PLAN_COLOURS, piezometerSymbolSvg, receptorSymbolSvg, shortfallEdge, shortfallPatternSvg, wellSymbol, wellSymbolSvg, type ReceptorVerdict, type ShortfallAreaKind,
 } from '../../shared/exports/plan-symbols';
 import type { LinkView } from './site-api';
 
@@ -36,6 +37,7 @@ export class SitePlan extends LitElement {
     position: { attribute: false },
     selected: { type: Number },
     shortfall: { attribute: false },
+    receptorVerdicts: { attribute: false },
     box: { state: true },
     width_px: { state: true },
   };
@@ -45,6 +47,8 @@ export class SitePlan extends LitElement {
   declare selected: number;
   /** Excavations not meeting their target, by id, with the kind of shortfall. */
   declare shortfall: Readonly<Record<string, ShortfallAreaKind>>;
+  /** The design's verdict per receptor id (colours the receptor symbols). */
+  declare receptorVerdicts: Readonly<Record<string, ReceptorVerdict>>;
   /** The visible part of the drawing (viewBox); null: the whole plan. */
   declare box: Box | null;
   /** Shown width of the drawing, CSS px. */
@@ -72,6 +76,7 @@ export class SitePlan extends LitElement {
     this.position = null;
     this.selected = -1;
     this.shortfall = {};
+    this.receptorVerdicts = {};
     this.box = null;
     this.width_px = 0;
   }
@@ -99,6 +104,7 @@ export class SitePlan extends LitElement {
     for (const w of s.wells) { xs.push(w.x); ys.push(w.y); }
     for (const e of s.excavations) for (const [x, y] of e.outline) { xs.push(x); ys.push(y); }
     for (const p of piezometersOf(s)) { xs.push(p.x); ys.push(p.y); }
+    for (const r of getReceptors(s)) for (const [x, y] of r.geometry.type === 'Point' ? [r.geometry.coordinates] : r.geometry.coordinates) { xs.push(x); ys.push(y); }
     if (xs.length === 0) return { minX: -50, minY: -50, maxX: 50, maxY: 50 };
     const minX = Math.min(...xs), maxX = Math.max(...xs), minY = Math.min(...ys), maxY = Math.max(...ys);
     const pad = Math.max(5, 0.12 * Math.max(maxX - minX, maxY - minY));
@@ -241,6 +247,11 @@ export class SitePlan extends LitElement {
         return svg`<path d=${d(e.outline, true)} fill=${kind ? `url(#dd-hatch-${kind})` : 'none'} fill-opacity="0.4" data-shortfall=${kind ?? 'none'}
             stroke=${edge.stroke} stroke-width=${EXCAVATION_SYMBOL.strokeWidth_px * u} stroke-dasharray=${edge.dash_px ? edge.dash_px.split(' ').map((v) => Number(v) * u).join(' ') : 'none'}/>
           <text x=${X(e.outline[0]?.[0] ?? 0)} y=${Y(e.outline[0]?.[1] ?? 0) - 5 * u} font-size=${font} stroke-width=${halo} fill=${PLAN_COLOURS.ink} font-weight="600">${e.id}</text>`;
+      })}
+      ${getReceptors(s).map((r) => {
+        const [lx, ly] = r.geometry.type === 'Point' ? r.geometry.coordinates : r.geometry.coordinates[0]!;
+        return svg`<g class="receptor" data-receptor-id=${r.id}>${unsafeSVG(receptorSymbolSvg(r.geometry, this.receptorVerdicts?.[r.id] ?? null, X, Y, u))}
+          <text x=${X(lx) + 10 * u} y=${Y(ly) - 8 * u} font-size=${font * 0.9} stroke-width=${halo} fill=${PLAN_COLOURS.ink}>${r.id}</text></g>`;
       })}
       ${s.wells.map((w, i) => {
         const injecting = (w.rate_m3_s ?? w.schedule?.[0]?.rate_m3_s ?? 0) < 0;

@@ -15,7 +15,8 @@ import { unsafeHTML } from 'lit/directives/unsafe-html.js';
 import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
 import { writeReceptorTableHtml } from '../../shared/exports/receptor-report-html';
 import type { MonitoringPlan } from '../../shared/exports';
-import { excavationShortfalls, planSymbolKeys, planSymbolSwatchSvg, PLAN_SYMBOL_LABELS, type ShortfallAreaKind } from '../../shared/exports/plan-symbols';
+import { excavationShortfalls, planSymbolKeys, planSymbolSwatchSvg, PLAN_SYMBOL_LABELS, receptorVerdicts, type ShortfallAreaKind } from '../../shared/exports/plan-symbols';
+import { getReceptors } from '../../shared/schema/receptor-schema';
 import { describeRevisionStatus, revisionBadge } from '../../shared/exports/revision-status';
 import '../components/floor-check-view';
 import { resolveSiteProjection } from '../crs';
@@ -249,7 +250,7 @@ export class SiteView extends LitElement {
         ${!v.georeferenced ? html`<span class="note">Local grid: the plan has no georeference, so a GPS position cannot be placed.</span>` : nothing}
       </div>
       ${this.positionNote ? html`<p class="note" aria-live="polite">${this.positionNote}</p>` : nothing}
-      <site-plan .scenario=${s} .contours=${v.contours} .position=${this.position} .selected=${this.selected} .shortfall=${shortfall}
+      <site-plan .scenario=${s} .contours=${v.contours} .position=${this.position} .selected=${this.selected} .shortfall=${shortfall} .receptorVerdicts=${receptorVerdicts(v.design)}
         @well-picked=${(e: CustomEvent<{ index: number }>) => this.pickWell(e.detail.index)}></site-plan>
       ${this.renderKey(v, shortfall)}
       <p class="note">Wells are numbered as in the set-out table. Zoom with + / − or two fingers; drag to move a zoomed plan.
@@ -332,6 +333,7 @@ export class SiteView extends LitElement {
     const keys = planSymbolKeys({
       wells: s.wells, piezometerCount: (s as { monitoring?: { piezometers: unknown[] } }).monitoring?.piezometers.length ?? 0,
       excavationCount: s.excavations.length, boundaryKinds: (s.boundaries ?? []).map((b) => b.kind), shortfallKinds: Object.values(shortfall),
+      receptorTypes: getReceptors(s).map((r) => r.geometry.type),
     });
     return html`<ul class="plan-key" aria-label="Key">${keys.map((k) => html`<li data-symbol=${k}>${unsafeSVG(planSymbolSwatchSvg(k))}${PLAN_SYMBOL_LABELS[k]}</li>`)}</ul>`;
   }

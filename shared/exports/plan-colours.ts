@@ -16,4 +16,6 @@ export const PLAN_COLOURS = {
   injection: '#56b4e9',
   /** Inactive wells. */
   inactive: '#d0d0d0',
+  /** Purple: receptors (neighbours) not yet checked by a design. */
+  receptor: '#7b3294',
 } as const;

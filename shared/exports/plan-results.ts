@@ -3,6 +3,7 @@
  * contours, the flagged nodes, and per excavation the highest level inside against its target.
  */
 import type { Scenario } from '../schema';
+import { getReceptors } from '../schema/receptor-schema';
 import type { GridResult, GridSpec, ModelInfo, PointFlag } from '../field/types';
 import { FLAG_BITS } from '../field/types';
 import { contourExcess, contourGrid, niceContourLevels, type ContourSet, type XY } from '../contours';
@@ -57,6 +58,10 @@ export function planExtent(scenario: Scenario): { min: XY; max: XY } {
   for (const e of scenario.excavations) for (const [x, y] of e.outline) { xs.push(x); ys.push(y); }
   const monitoring = (scenario as Scenario & { monitoring?: { piezometers?: Array<{ x: number; y: number }> } }).monitoring;
   for (const p of monitoring?.piezometers ?? []) { xs.push(p.x); ys.push(p.y); }
+  for (const r of getReceptors(scenario)) {
+    const points = r.geometry.type === 'Point' ? [r.geometry.coordinates] : r.geometry.coordinates;
+    for (const [x, y] of points) { xs.push(x); ys.push(y); }
+  }
   if (xs.length === 0) return { min: [-50, -50], max: [50, 50] };
   const minX = Math.min(...xs), maxX = Math.max(...xs), minY = Math.min(...ys), maxY = Math.max(...ys);
   const pad = Math.max(10, 0.4 * Math.max(maxX - minX, maxY - minY));

@@ -6,7 +6,8 @@
 import type { Scenario } from '../schema';
 import { planExtent, type PlanResults } from './plan-results';
 import { escapeHtml } from './escape-html';
-import { BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, PLAN_COLOURS, piezometerSymbolSvg, shortfallEdge, shortfallPatternSvg, wellSymbol, wellSymbolSvg, type ShortfallAreaKind } from './plan-symbols';
+import { getReceptors } from '../schema/receptor-schema';
+import { BOUNDARY_SYMBOLS, EXCAVATION_SYMBOL, PLAN_COLOURS, piezometerSymbolSvg, receptorSymbolSvg, shortfallEdge, shortfallPatternSvg, wellSymbol, wellSymbolSvg, type ReceptorVerdict, type ShortfallAreaKind } from './plan-symbols';
 
 /** Options for `renderPlanSvg`. */
 export interface PlanSvgOptions {
@@ -16,6 +17,8 @@ export interface PlanSvgOptions {
   width_px?: number;
   /** Excavations whose target is not met, by id, with the kind of shortfall (hatched). */
   shortfall?: Readonly<Record<string, ShortfallAreaKind>>;
+  /** The last design's verdict per receptor id (colours the receptor symbols); none = not checked. */
+  receptorVerdicts?: Readonly<Record<string, ReceptorVerdict>>;
 }
 
 function niceLength(target: number): number {
@@ -59,6 +62,11 @@ export function renderPlanSvg(options: PlanSvgOptions): string {
     parts.push(`<path d="${path(e.outline, true)}" fill="${kind ? `url(#dd-hatch-${kind})` : 'none'}" fill-opacity="0.4" stroke="${edge.stroke}" stroke-width="${EXCAVATION_SYMBOL.strokeWidth_px}"${edge.dash_px ? ` stroke-dasharray="${edge.dash_px}"` : ''}${kind ? ` data-shortfall="${kind}"` : ''}/>`);
     const first = e.outline[0];
     if (first) parts.push(`<text x="${sx(first[0])}" y="${Number(sy(first[1])) - 4}" font-size="11" font-weight="600" fill="${PLAN_COLOURS.ink}">${escapeHtml(e.id)}</text>`);
+  }
+  for (const r of getReceptors(scenario)) {
+    parts.push(`<g data-receptor="${escapeHtml(r.id)}">${receptorSymbolSvg(r.geometry, options.receptorVerdicts?.[r.id] ?? null, (x) => Number(sx(x)), (y) => Number(sy(y)))}</g>`);
+    const [lx, ly] = r.geometry.type === 'Point' ? r.geometry.coordinates : r.geometry.coordinates[0]!;
+    parts.push(`<text x="${Number(sx(lx)) + 9}" y="${Number(sy(ly)) - 7}" font-size="9" fill="${PLAN_COLOURS.ink}">${escapeHtml(r.id)}</text>`);
   }
   const monitoring = (scenario as Scenario & { monitoring?: { piezometers: Array<{ id: string; x: number; y: number }> } }).monitoring;
   const labelEvery = scenario.wells.length > 60 ? Math.ceil(scenario.wells.length / 60) : 1;

@@ -1,6 +1,6 @@
 /**
- * The one symbol set of the plan: wells by kind, piezometers, excavations, boundaries and the two
- * shortfall kinds (water above target, floor unsafe). The designer map, its key, the site view
+ * The one symbol set of the plan: wells by kind, piezometers, excavations, boundaries, receptors
+ * (neighbours) and the two shortfall kinds (water above target, floor unsafe). The designer map, its key, the site view
  * and the report all draw from here, so a symbol means the same thing everywhere.
  *
  * Sizes are screen pixels; a drawing in other units passes `unit` (its units per pixel). Colours
@@ -60,6 +60,25 @@ export const BOUNDARY_SYMBOLS = {
 } as const;
 
 
+/** What a receptor's symbol shows about the last design: within limits, over a limit, no limit given, or not designed. */
+export type ReceptorVerdict = 'ok' | 'exceeds' | 'not-checked' | null;
+
+/**
+ * Receptor (neighbour) symbols: a point receptor is a diamond with a solid centre, a polyline
+ * receptor a dashed line with a small square at each of its points. The colour gives the last
+ * design's verdict; the receptor table says it in words, so colour is never the only carrier.
+ */
+export const RECEPTOR_SYMBOL = {
+  pointHalf_px: 7.5, pointStrokeWidth_px: 2.6, centreHalf_px: 3,
+  vertexHalf_px: 4, vertexStrokeWidth_px: 2.2,
+  lineWidth_px: 4, lineDash_px: '8 4',
+} as const;
+
+/** A receptor's colour for the last design's verdict. */
+export function receptorColour(verdict: ReceptorVerdict): string {
+  return verdict === 'ok' ? PLAN_COLOURS.met : verdict === 'exceeds' ? PLAN_COLOURS.shortfall : PLAN_COLOURS.receptor;
+}
+
 const n = (v: number) => String(Number(v.toFixed(2)));
 
 /** A well symbol as SVG markup at (cx, cy); `unit` is drawing units per pixel (default 1). */
@@ -72,6 +91,41 @@ export function wellSymbolSvg(cx: number, cy: number, symbol: CircleSymbol, unit
 export function piezometerSymbolSvg(cx: number, cy: number, unit = 1): string {
   const p = PIEZOMETER_SYMBOL;
   return `<circle class="dd-pz-ring" cx="${n(cx)}" cy="${n(cy)}" r="${n(p.ringRadius_px * unit)}" fill="#fff" fill-opacity="0.85" stroke="${PLAN_COLOURS.piezometer}" stroke-width="${n(p.ringStrokeWidth_px * unit)}"/><circle class="dd-pz-dot" cx="${n(cx)}" cy="${n(cy)}" r="${n(p.dotRadius_px * unit)}" fill="${PLAN_COLOURS.ink}"/>`;
+}
+
+/** A point receptor's diamond as SVG markup at (cx, cy). */
+export function receptorPointSymbolSvg(cx: number, cy: number, colour: string, unit = 1): string {
+  const r = RECEPTOR_SYMBOL;
+  const diamond = (h: number) => `M${n(cx)} ${n(cy - h)}L${n(cx + h)} ${n(cy)}L${n(cx)} ${n(cy + h)}L${n(cx - h)} ${n(cy)}Z`;
+  return `<path class="dd-receptor-diamond" d="${diamond(r.pointHalf_px * unit)}" fill="#fff" fill-opacity="0.9" stroke="${colour}" stroke-width="${n(r.pointStrokeWidth_px * unit)}"/><path d="${diamond(r.centreHalf_px * unit)}" fill="${colour}"/>`;
+}
+
+/** The small square at each point of a polyline receptor, as SVG markup at (cx, cy). */
+export function receptorVertexSymbolSvg(cx: number, cy: number, colour: string, unit = 1): string {
+  const r = RECEPTOR_SYMBOL;
+  const h = r.vertexHalf_px * unit;
+  return `<rect x="${n(cx - h)}" y="${n(cy - h)}" width="${n(2 * h)}" height="${n(2 * h)}" fill="#fff" stroke="${colour}" stroke-width="${n(r.vertexStrokeWidth_px * unit)}"/>`;
+}
+
+/** A polyline receptor's dashed line as SVG markup along the path data `d`. */
+export function receptorLineSvg(d: string, colour: string, unit = 1): string {
+  const r = RECEPTOR_SYMBOL;
+  const dash = r.lineDash_px.split(' ').map((v) => n(Number(v) * unit)).join(' ');
+  return `<path class="dd-receptor-line" d="${d}" fill="none" stroke="${colour}" stroke-width="${n(r.lineWidth_px * unit)}" stroke-dasharray="${dash}" stroke-opacity="0.9"/>`;
+}
+
+/**
+ * A receptor's whole symbol in a drawing: `toX`/`toY` map site metres to drawing units, `unit` is
+ * drawing units per pixel. Labels are the caller's (each drawing places its own text).
+ */
+export function receptorSymbolSvg(
+  geometry: { type: 'Point'; coordinates: readonly [number, number] } | { type: 'LineString'; coordinates: ReadonlyArray<readonly [number, number]> },
+  verdict: ReceptorVerdict, toX: (x: number) => number, toY: (y: number) => number, unit = 1,
+): string {
+  const colour = receptorColour(verdict);
+  if (geometry.type === 'Point') return receptorPointSymbolSvg(toX(geometry.coordinates[0]), toY(geometry.coordinates[1]), colour, unit);
+  const d = geometry.coordinates.map(([x, y], i) => `${i ? 'L' : 'M'}${n(toX(x))},${n(toY(y))}`).join('');
+  return receptorLineSvg(d, colour, unit) + geometry.coordinates.map(([x, y]) => receptorVertexSymbolSvg(toX(x), toY(y), colour, unit)).join('');
 }
 
 /**
@@ -95,7 +149,7 @@ export function shortfallEdge(kind: ShortfallAreaKind): { stroke: string; dash_p
 }
 
 /** Keys of the symbols a plan can show. */
-export type PlanSymbolKey = 'wellpoint' | 'deep' | 'ejector' | 'piezometer' | 'excavation' | 'shortfall-water' | 'shortfall-floor' | 'constant-head' | 'no-flow';
+export type PlanSymbolKey = 'wellpoint' | 'deep' | 'ejector' | 'piezometer' | 'excavation' | 'shortfall-water' | 'shortfall-floor' | 'constant-head' | 'no-flow' | 'receptor-point' | 'receptor-line';
 
 /** Words for each symbol in a key. */
 export const PLAN_SYMBOL_LABELS: Record<PlanSymbolKey, string> = {
@@ -108,6 +162,8 @@ export const PLAN_SYMBOL_LABELS: Record<PlanSymbolKey, string> = {
   'shortfall-floor': SHORTFALL_SYMBOLS['floor-unsafe'].label,
   'constant-head': 'Constant-head boundary',
   'no-flow': 'No-flow boundary',
+  'receptor-point': 'Neighbour (receptor): green within limits, vermilion over a limit, purple not checked',
+  'receptor-line': 'Neighbour along a line (wall, service): colours as for a point',
 };
 
 /** A key swatch (22 × 14 px) as standalone SVG markup. */
@@ -139,6 +195,12 @@ export function planSymbolSwatchSvg(key: PlanSymbolKey): string {
       body = `<line x1="1" y1="7" x2="21" y2="7" stroke="${b.stroke}" stroke-width="${b.strokeWidth_px}"${b.dash_px ? ' stroke-dasharray="5 2.5"' : ''}/>`;
       break;
     }
+    case 'receptor-point':
+      body = receptorPointSymbolSvg(11, 7, PLAN_COLOURS.receptor, 0.8);
+      break;
+    case 'receptor-line':
+      body = receptorLineSvg('M1,7L21,7', PLAN_COLOURS.receptor, 0.6) + receptorVertexSymbolSvg(1.5, 7, PLAN_COLOURS.receptor, 0.6) + receptorVertexSymbolSvg(20.5, 7, PLAN_COLOURS.receptor, 0.6);
+      break;
   }
   return `${open}${body}</svg>`;
 }
@@ -155,6 +217,8 @@ export function planSymbolKeys(options: {
   excavationCount: number;
   boundaryKinds: ReadonlyArray<'constant-head' | 'no-flow'>;
   shortfallKinds: readonly ShortfallAreaKind[];
+  /** Geometry types of the receptors shown (default none). */
+  receptorTypes?: ReadonlyArray<'Point' | 'LineString'>;
 }): PlanSymbolKey[] {
   const keys: PlanSymbolKey[] = [];
   for (const k of ['wellpoint', 'deep', 'ejector'] as const) if (options.wells.some((w) => w.kind === k)) keys.push(k);
@@ -163,6 +227,8 @@ export function planSymbolKeys(options: {
   if (options.shortfallKinds.includes('above-target')) keys.push('shortfall-water');
   if (options.shortfallKinds.includes('floor-unsafe')) keys.push('shortfall-floor');
   for (const k of ['constant-head', 'no-flow'] as const) if (options.boundaryKinds.includes(k)) keys.push(k);
+  if (options.receptorTypes?.includes('Point')) keys.push('receptor-point');
+  if (options.receptorTypes?.includes('LineString')) keys.push('receptor-line');
   return keys;
 }
 
@@ -186,4 +252,9 @@ export function excavationShortfalls(
     for (const x of grid) if ((x.shortfall_m ?? 0) > 0) out[x.id] = 'above-target';
   }
   return out;
+}
+
+/** The last design's verdict per receptor id, from a design result's receptor rows. */
+export function receptorVerdicts(design: { receptors?: ReadonlyArray<{ id: string; status: 'ok' | 'exceeds' | 'not-checked' }> } | null | undefined): Record<string, ReceptorVerdict> {
+  return Object.fromEntries((design?.receptors ?? []).map((r) => [r.id, r.status] as const));
 }

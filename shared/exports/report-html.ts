@@ -13,7 +13,8 @@ import { METHOD_REFERENCES, SUPPORTING_REFERENCES } from './method-references';
 import type { MonitoringPlan } from './monitoring-plan';
 import type { PlanResults } from './plan-results';
 import { renderPlanSvg } from './plan-svg';
-import { excavationShortfalls, planKeyHtml, planSymbolKeys } from './plan-symbols';
+import { excavationShortfalls, planKeyHtml, planSymbolKeys, receptorVerdicts } from './plan-symbols';
+import { getReceptors } from '../schema/receptor-schema';
 import { buildSetoutRows } from './setout-csv';
 import type { SiteProjection } from '../crs';
 import { designFloorCautions, writeFloorReportHtml } from './floor-report-html';
@@ -181,8 +182,8 @@ ${scenario.excavations.map((x) => `<tr><th>Excavation ${e(x.id)}</th><td>formati
 ${(scenario.boundaries ?? []).map((b, i) => `<tr><th>Boundary ${i + 1}</th><td>${e(b.kind)}${b.label ? ` (${e(b.label)})` : ''}, treated as an infinite straight line</td></tr>`).join('')}
 </table>
 <h2>2. Plan</h2>
-<div class="plan">${renderPlanSvg({ scenario, results, shortfall })}</div>
-${planKeyHtml(planSymbolKeys({ wells: scenario.wells, piezometerCount: piezometerCount(scenario), excavationCount: scenario.excavations.length, boundaryKinds: (scenario.boundaries ?? []).map((b) => b.kind), shortfallKinds: Object.values(shortfall) }))}
+<div class="plan">${renderPlanSvg({ scenario, results, shortfall, receptorVerdicts: receptorVerdicts(design) })}</div>
+${planKeyHtml(planSymbolKeys({ wells: scenario.wells, piezometerCount: piezometerCount(scenario), excavationCount: scenario.excavations.length, boundaryKinds: (scenario.boundaries ?? []).map((b) => b.kind), shortfallKinds: Object.values(shortfall), receptorTypes: getReceptors(scenario).map((r) => r.geometry.type) }))}
 <p class="note">Blue lines: computed groundwater level (m) at ${e(days(results?.time_s ?? scenario.design.time_s))}${results ? `, levels ${f(results.range_m[0])} to ${f(results.range_m[1])} m` : ''}. Wells are numbered as in the schedule.</p>
 <h2>3. Well schedule</h2>
 <table><thead><tr><th>No.</th><th>Id</th><th>Kind</th><th>Easting m</th><th>Northing m</th>${projection ? '<th>Latitude °</th><th>Longitude °</th>' : ''}<th>${solvedRates ? 'Scenario rate' : 'Rate'} L/s</th>${solvedRates ? '<th>Design rate L/s</th>' : ''}<th>Screen top / bottom m</th><th>Active</th></tr></thead><tbody>${wellRows}</tbody></table>

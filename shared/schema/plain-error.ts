@@ -14,15 +14,24 @@ export interface ErrorBodyLike {
 }
 
 /** Unit suffixes of field names (`level_m`, `rate_m3_s`), dropped from the spoken name. */
-const UNIT_SUFFIX = /_(m3_s|m2_s|m_s|m|s|kPa|kN_m3|deg|kW|kWh|m3|per_m3|per_kWh)$/;
+const UNIT_SUFFIX = /_(m3_s|m2_s|m_s|m2_kN|m|s|kPa|kN_m3|deg|kW|kWh|m3|per_m3|per_kWh)$/;
 
 const SINGULAR: Record<string, string> = {
   wells: 'well', excavations: 'excavation', piezometers: 'piezometer', boundaries: 'boundary', layers: 'layer', outline: 'corner', schedule: 'step',
-  controlPoints: 'control point', stages: 'stage', readings: 'reading', points: 'point',
+  controlPoints: 'control point', stages: 'stage', readings: 'reading', points: 'point', receptors: 'receptor', coordinates: 'point',
 };
 
+/** Field names whose words are a symbol rather than a phrase. */
+const TERMS: Record<string, string> = { mv_m2_kN: 'coefficient of volume compressibility m_v' };
+
 function words(name: string): string {
+  if (TERMS[name]) return TERMS[name];
   return name.replace(UNIT_SUFFIX, '').replace(/([a-z0-9])([A-Z])/g, '$1 $2').replace(/_/g, ' ').toLowerCase();
+}
+
+/** A validation issue told to a person: the field's label, then what is wrong (the pointer stays for the API and a tooltip). */
+export function describeIssuePlainly(issue: { path: string; message: string }): string {
+  return `${capital(fieldLabelFromPointer(issue.path))}: ${plainWords(issue.message.replace(POINTER_AT_START, ''))}`;
 }
 
 /** A field's name in words, from its JSON pointer ("/wells/3/rate_m3_s" → "well 4, rate"). */

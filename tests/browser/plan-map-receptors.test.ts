@@ -54,7 +54,10 @@ describe('receptors on the plan map', () => {
     expect((await receptors(page))[0]!.compressibleLayer).toEqual({ thickness_m: 3, mv_m2_kN: 0.0002 });
     // A bad value names its field and is not kept.
     await fill(page, 'receptor-mv_m2_kN', '7');
-    expect(await page.locator('receptor-editor .dd-receptor-input-error').innerText()).toMatch(/^\/receptors\/0\/compressibleLayer\/mv_m2_kN: /);
+    // In plain words, naming the field by its label (issue 13, item 11), never by JSON pointer.
+    const refusal = await page.locator('receptor-editor .dd-receptor-input-error').innerText();
+    expect(refusal).toMatch(/^Receptor 1, compressible layer, coefficient of volume compressibility m_v: /);
+    expect(refusal).not.toContain('/receptors');
     expect((await receptors(page))[0]!.compressibleLayer!.mv_m2_kN).toBe(0.0002);
     await page.locator('receptor-editor').scrollIntoViewIfNeeded();
     await s.screenshot('40-receptor-placed');

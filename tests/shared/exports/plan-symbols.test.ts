@@ -5,8 +5,10 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import {
-  PLAN_SYMBOL_LABELS, excavationShortfalls, piezometerSymbolSvg, planSymbolSwatchSvg, renderPlanSvg, wellSymbol, wellSymbolSvg, type PlanSymbolKey,
+  PLAN_SYMBOL_LABELS, excavationShortfalls, piezometerSymbolSvg, planSymbolKeys, planSymbolSwatchSvg, receptorColour, receptorPointSymbolSvg, receptorVerdicts,
+  renderPlanSvg, wellSymbol, wellSymbolSvg, type PlanSymbolKey,
 } from '../../../shared/exports';
+import { planExtent } from '../../../shared/exports/plan-results';
 import type { Scenario } from '../../../shared/schema';
 
 const scenario = JSON.parse(readFileSync(new URL('../../../fixtures/demo-deepwells-confined.json', import.meta.url), 'utf8')) as Scenario;
@@ -31,6 +33,31 @@ describe('plan symbols', () => {
     expect(svg).toContain('data-shortfall="floor-unsafe"');
     expect(svg).toContain('id="dd-hatch-floor-unsafe"');
     expect(svg).toContain('stroke="#a2306f"');
+  });
+
+  it('draws receptors with the shared receptor symbols, coloured by the design verdict, inside the plan extent', () => {
+    const neighbours = JSON.parse(readFileSync(new URL('../../../fixtures/demo-neighbours-confined.json', import.meta.url), 'utf8')) as Scenario;
+    const verdicts = receptorVerdicts({ receptors: [{ id: 'terrace', status: 'exceeds' }, { id: 'pond', status: 'ok' }] });
+    expect(verdicts).toEqual({ terrace: 'exceeds', pond: 'ok' });
+    const svg = renderPlanSvg({ scenario: neighbours, receptorVerdicts: verdicts });
+    // One group per receptor; the two lines are dashed with a square per point, the pond is a diamond.
+    expect(svg.match(/<g data-receptor="/g)).toHaveLength(3);
+    expect(svg.match(/class="dd-receptor-line"/g)).toHaveLength(2);
+    expect(svg.match(/class="dd-receptor-diamond"/g)).toHaveLength(1);
+    const terrace = svg.slice(svg.indexOf('data-receptor="terrace"'), svg.indexOf('data-receptor="main"'));
+    expect(terrace).toContain(`stroke="${receptorColour('exceeds')}"`);
+    const main = svg.slice(svg.indexOf('data-receptor="main"'), svg.indexOf('data-receptor="pond"'));
+    expect(main).toContain(`stroke="${receptorColour(null)}"`);
+    expect(receptorColour('ok')).toBe('#009e73');
+    expect(receptorPointSymbolSvg(9, 9, '#000')).toContain('M9 1.5L16.5 9L9 16.5L1.5 9Z');
+    // Every receptor point lies within the drawn extent.
+    const { min, max } = planExtent(neighbours);
+    const pts = (neighbours as Scenario & { receptors: Array<{ geometry: { type: string; coordinates: unknown } }> }).receptors
+      .flatMap((r) => (r.geometry.type === 'Point' ? [r.geometry.coordinates] : r.geometry.coordinates) as Array<[number, number]>);
+    for (const [x, y] of pts) expect(x >= min[0] && x <= max[0] && y >= min[1] && y <= max[1]).toBe(true);
+    const keys = planSymbolKeys({ wells: neighbours.wells, piezometerCount: 0, excavationCount: 1, boundaryKinds: [], shortfallKinds: [], receptorTypes: ['LineString', 'Point'] });
+    expect(keys).toContain('receptor-point');
+    expect(keys).toContain('receptor-line');
   });
 
   it.each(Object.keys(PLAN_SYMBOL_LABELS) as PlanSymbolKey[])('has a key swatch for %s', (key) => {

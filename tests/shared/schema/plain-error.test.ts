@@ -3,7 +3,7 @@
  * documents, and the message otherwise as the API wrote it.
  */
 import { describe, expect, it } from 'vitest';
-import { describeErrorPlainly, fieldLabelFromPointer } from '../../../shared/schema/plain-error';
+import { describeErrorPlainly, describeIssuePlainly, fieldLabelFromPointer } from '../../../shared/schema/plain-error';
 import { ERROR_TABLE } from '../../../shared/schema';
 
 describe('fieldLabelFromPointer(pointer)', () => {
@@ -42,5 +42,13 @@ describe('describeErrorPlainly(error, labels)', () => {
       const text = describeErrorPlainly({ code, message: 'x', fix: row.fix });
       expect(text, code).not.toMatch(/\/api\/v1\//);
     }
+  });
+});
+
+describe('describeIssuePlainly(issue)', () => {
+  it('names a receptor field by its label and drops a repeated pointer from the message', () => {
+    expect(describeIssuePlainly({ path: '/receptors/0/compressibleLayer/mv_m2_kN', message: '/receptors/0/compressibleLayer/mv_m2_kN: must be <= 0.01' }))
+      .toBe('Receptor 1, compressible layer, coefficient of volume compressibility m_v: must be at most 0.01');
+    expect(describeIssuePlainly({ path: '/wells/2/rate_m3_s', message: 'must be a finite number' })).toBe('Well 3, rate: must be a finite number');
   });
 });

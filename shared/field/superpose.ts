@@ -6,6 +6,7 @@
 import { besselK0, EULER_GAMMA, hantushWellFunction, theisWellFunction } from '../wells';
 import { getTheisTable, THEIS_TABLE_MAX_U, THEIS_TABLE_STEP } from './theis-table';
 import type { SourceSet } from './source-set';
+import { groupTheisSources, makeTheisRowScratch, theisGridRow } from './theis-grid-rows';
 import type { GridSpec } from './types';
 
 /** Side results of {@link superposeAtPoint}, reused to keep the call allocation-free. */
@@ -111,20 +112,30 @@ export interface GridSum {
  * Sums the sources on every grid node. Rows are the outer loop so one row of sums stays in the
  * first-level cache while every source sweeps it; for each source only the column span inside
  * its cutoff radius is visited, so far sources cost nothing per node. Theis sources with small u
- * use the tabulated interpolant of theis-table.ts (|ΔW| < THEIS_TABLE_MAX_ERROR = 5e-13), so the
- * grid may differ from evaluatePoints by at most that times Σ|ΔQ|/(4πT).
+ * use the tabulated interpolant of theis-table.ts (|ΔW| < THEIS_TABLE_MAX_ERROR = 5e-13), and
+ * sources of equal |amp| share one logarithm per node per chunk (theis-grid-rows.ts, ≤ 4e-15 more),
+ * so the grid may differ from evaluatePoints by at most 5e-13 times Σ|ΔQ|/(4πT).
+ *
+ * `kernel: 'pairwise'` keeps the previous Theis kernel (one logarithm per source–node pair); the
+ * bench times both side by side. Rows j0 … j1−1 only when `rows` is given (a thread's share);
+ * the result still has the whole grid's length, zero outside those rows.
  */
-export function superposeOnGrid(set: SourceSet, grid: GridSpec): GridSum {
+export function superposeOnGrid(set: SourceSet, grid: GridSpec, options: { kernel?: 'grouped' | 'pairwise'; rows?: readonly [number, number] } = {}): GridSum {
   const [nx, ny] = grid.counts;
   const n = nx * ny;
   const value = new Float64Array(n);
   const withinWell = new Uint8Array(n);
   const reached = new Uint8Array(n);
   const span = { i0: 0, i1: -1 };
-  for (let j = 0; j < ny; j++) {
+  const grouped = set.kind === 'theis' && options.kernel !== 'pairwise';
+  const groups = grouped ? groupTheisSources(set, grid) : null;
+  const scratch = grouped ? makeTheisRowScratch(nx) : null;
+  const [j0, j1] = options.rows ?? [0, ny];
+  for (let j = Math.max(0, j0); j < Math.min(ny, j1); j++) {
     switch (set.kind) {
       case 'theis':
-        theisRow(set, grid, j, value, span);
+        if (groups) theisGridRow(set, grid, j, value, groups, scratch!);
+        else theisRow(set, grid, j, value, span);
         break;
       case 'thiem':
         thiemRow(set, grid, j, value, reached, span);

@@ -5,7 +5,8 @@ superposition s = sum_k amp_k * E1(r^2 * coef_k) with r^2 clamped to r_w^2, usin
 scipy.special.exp1, and writes the drawdown grid as little-endian float64 plus a JSON line of
 timings on stdout. Run with OMP_NUM_THREADS=OPENBLAS_NUM_THREADS=1 (run.ts sets them).
 
-Usage: python3 bench/grid_numpy.py INPUT.json OUTPUT.f64
+Usage: python3 bench/grid_numpy.py INPUT.json OUTPUT.f64 [--once]
+  --once   evaluate once (the whole-process comparison: start-up, reading and writing count)
 """
 import json
 import sys
@@ -48,7 +49,7 @@ def main() -> None:
     # Best of three, like the TypeScript side: the machine is shared, the minimum is the fair figure.
     elapsed = float("inf")
     cpu = float("inf")
-    for _ in range(3):
+    for _ in range(1 if "--once" in sys.argv[3:] else 3):
         start, cpu_start = time.perf_counter(), time.process_time()
         total = evaluate()
         elapsed = min(elapsed, time.perf_counter() - start)

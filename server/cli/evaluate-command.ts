@@ -1,9 +1,11 @@
 /**
- * `drydig evaluate SCENARIO.json --points "x,y;x,y"|FILE.csv [--time T] [--grid …] [--pretty | --csv]`:
+ * `drydig evaluate SCENARIO.json --points "x,y;x,y"|FILE.csv [--time T] [--grid … [--threads N]] [--pretty | --csv]`:
  * levels and drawdowns on stdout as JSON (design.md section 4), the same answer the HTTP API
  * gives. Without --time: the scenario's design time (steady state when that is null).
  */
-import { runEvaluation } from '../evaluation';
+import { availableParallelism } from 'node:os';
+import { gridSplitWork, MIN_SPLIT_WORK, runEvaluation, runEvaluationInBands, type RunEvaluationOptions } from '../evaluation';
+import type { EvaluateResponse } from '../request-schemas';
 import type { GridSpec } from '../../shared/field';
 import type { CliCommand } from './cli-io';
 import { parseOptions, usageError } from './parse-options';
@@ -30,6 +32,25 @@ export function parseGridArgument(text: string): GridSpec {
   return { origin: [x0, y0], spacing_m: [dx, dy], counts: [nx, ny] };
 }
 
+/** `--threads N`: a whole number from 1 to 256. */
+function parseThreadsArgument(value: string): number {
+  const n = Number(value);
+  if (!Number.isInteger(n) || n < 1 || n > 256) throw usageError(`--threads must be a whole number from 1 to 256 (got "${value}")`);
+  return n;
+}
+
+/** The evaluation, its grid split by rows over `threads` worker threads when it is large enough to gain. */
+async function evaluateOnThreads(options: RunEvaluationOptions, threads: number): Promise<EvaluateResponse> {
+  if (threads <= 1 || gridSplitWork(options) < MIN_SPLIT_WORK) return runEvaluation(options);
+  const { startBandThreads } = await import('./band-threads');
+  const pool = startBandThreads(threads);
+  try {
+    return await runEvaluationInBands(options, pool);
+  } finally {
+    await pool.close();
+  }
+}
+
 function readPoints(value: string, cwd: string): PlanPoint[] {
   if (looksLikeInlinePoints(value) && !/\.(csv|txt|tsv)$/i.test(value)) return parseInlinePoints(value);
   const text = readTextFile(value, cwd, 'points file', MAX_POINTS_FILE_BYTES);
@@ -37,7 +58,7 @@ function readPoints(value: string, cwd: string): PlanPoint[] {
 }
 
 export const runEvaluateCommand: CliCommand = async (args, io) => {
-  const { positionals, values } = parseOptions(args, { points: 'value', time: 'value', grid: 'value', pretty: 'flag', csv: 'flag', help: 'flag' }, 'evaluate');
+  const { positionals, values } = parseOptions(args, { points: 'value', time: 'value', grid: 'value', threads: 'value', pretty: 'flag', csv: 'flag', help: 'flag' }, 'evaluate');
   if (values.help) {
     io.stdout(EVALUATE_HELP);
     return 0;
@@ -52,10 +73,11 @@ export const runEvaluateCommand: CliCommand = async (args, io) => {
   // Arguments first, then the (possibly large) scenario, so a typo is reported before any reading.
   const times_s = values.time !== undefined ? parseTimeArgument(values.time) : undefined;
   const grid = values.grid !== undefined ? parseGridArgument(values.grid) : undefined;
+  const threads = values.threads !== undefined ? parseThreadsArgument(values.threads) : availableParallelism();
   const points = values.points !== undefined ? readPoints(values.points, io.cwd) : undefined;
   const scenario = readScenarioFile(file, io.cwd);
 
-  const answer = runEvaluation({ scenario, points, grid, times_s });
+  const answer = await evaluateOnThreads({ scenario, points, grid, times_s }, threads);
   io.stdout(values.csv ? formatPointsCsv(answer) : `${JSON.stringify(answer, null, values.pretty ? 2 : undefined)}\n`);
   if (values.csv) writeWarnings(answer.warnings, io);
   return 0;

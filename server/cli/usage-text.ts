@@ -33,7 +33,7 @@ Results are estimates from idealised aquifer models; confirm them against site i
 local codes and a licensed engineer.
 `;
 
-export const EVALUATE_HELP = `drydig evaluate SCENARIO.json --points POINTS [--time T] [--grid G] [--pretty | --csv]
+export const EVALUATE_HELP = `drydig evaluate SCENARIO.json --points POINTS [--time T] [--grid G [--threads N]] [--pretty | --csv]
 
   SCENARIO.json   a scenario file (format drydig.scenario, version 1)
   --points P      inline "x,y;x,y" in site metres, or a CSV file: a header row naming
@@ -43,6 +43,8 @@ export const EVALUATE_HELP = `drydig evaluate SCENARIO.json --points POINTS [--t
                   (7d, 12h, 90min, 3600s), or "steady"; a comma list gives several times.
                   Default: the scenario's design time (steady state when that is null)
   --grid G        also evaluate a grid "x0,y0,dx,dy,nx,ny" (origin, spacing m, node counts)
+  --threads N     worker threads that share a large grid by rows (default: all cores; 1: none).
+                  The answer is the same to the last bit whatever N is
   --pretty        indent the JSON
   --csv           write the points as CSV (x,y,time_s,level_m,drawdown_m,flags) instead of
                   JSON; "# " comment lines carry the method and the cautions

@@ -20,6 +20,8 @@ export interface ComputeScope {
 }
 
 export interface ComputeRunner {
+  /** Threads one request may use at once (0: in process). */
+  readonly threadsPerClient: number;
   run<N extends ComputeTaskName>(task: N, input: ComputeInput<N>, options?: ComputeRunOptions): Promise<ComputeOutput<N>>;
 }
 
@@ -47,9 +49,10 @@ export function currentCompute(): ComputeRunner {
   const scope = scopes.getStore();
   if (!scope) {
     inProcess ??= createComputePool({ threads: 0 });
-    return inProcess;
+    return { threadsPerClient: 0, run: (task, input, options) => inProcess!.run(task, input, options) };
   }
   return {
+    threadsPerClient: scope.pool.threadsPerClient,
     run: (task, input, options = {}) =>
       scope.pool.run(task, input, { client: scope.client, lane: scope.lane, ...(scope.signal ? { signal: scope.signal } : {}), ...options }),
   };

@@ -51,6 +51,8 @@ export interface ComputeRunOptions {
 
 export interface ComputePool {
   readonly threads: number;
+  /** Threads one client may hold at once (0 in process): how many bands a split grid gets. */
+  readonly threadsPerClient: number;
   run<N extends ComputeTaskName>(task: N, input: ComputeInput<N>, options?: ComputeRunOptions): Promise<ComputeOutput<N>>;
   /** What is running and waiting now (health, tests). */
   stats(): { threads: number; running: number; queued: number };
@@ -84,6 +86,7 @@ async function runInProcess<N extends ComputeTaskName>(task: N, input: ComputeIn
 function inProcessPool(): ComputePool {
   return {
     threads: 0,
+    threadsPerClient: 0,
     run: (task, input, options = {}) => runInProcess(task, input, options),
     stats: () => ({ threads: 0, running: 0, queued: 0 }),
     close: async () => undefined,
@@ -194,6 +197,7 @@ export function createComputePool(options: ComputePoolOptions = {}): ComputePool
 
   return {
     threads,
+    threadsPerClient: options.perClientSlots ?? Math.max(1, threads - 1),
     run,
     stats: () => ({ threads, running: queue.running, queued: queue.queued }),
     close: async () => {

@@ -8,7 +8,8 @@ import { DrydigError, type Scenario } from '../../shared/schema';
 import { runDesign, runRealisationChunk, type DesignBasis, type DesignResult, type RealisationChunk, type RealisationOutcome, type RunDesignOptions } from '../../shared/design';
 import { runSectionJob, type SectionJob, type SectionJobAnswer } from '../../shared/section';
 import { analysePumpingTest, type AnalysePumpingTestOptions, type PumpingTestResult } from '../../shared/testing';
-import { runEvaluation, type RunEvaluationOptions } from '../evaluation';
+import { evaluateGridBandForRequest, runEvaluation, type GridBandRequest, type RunEvaluationOptions } from '../evaluation';
+import type { GridBand } from '../../shared/field';
 import type { EvaluateResponse } from '../request-schemas';
 import { computePlanOutcome, computeMonitoringPlan, type PlanOutcome } from '../exports/plan-compute';
 import { renderExportBody, type ExportBodyInput } from '../exports/render-export-body';
@@ -19,6 +20,8 @@ export type ProgressReporter = (stage: string, fraction: number) => void;
 
 export interface ComputeTaskTable {
   evaluate: (input: RunEvaluationOptions) => EvaluateResponse;
+  /** One band of rows of a grid split across threads (evaluation-in-bands.ts). */
+  gridBand: (input: GridBandRequest) => GridBand;
   design: (input: DesignTaskInput, progress: ProgressReporter) => Promise<DesignResult>;
   /** The design without its Monte Carlo realisations, and the basis they are re-solved from (the caller runs them as `realisations` chunks). */
   designWithBasis: (input: DesignTaskInput, progress: ProgressReporter) => Promise<{ result: DesignResult; basis: DesignBasis | null }>;
@@ -41,6 +44,7 @@ export type ComputeOutput<N extends ComputeTaskName> = Awaited<ReturnType<Comput
 
 export const COMPUTE_TASKS: ComputeTaskTable = {
   evaluate: (input) => runEvaluation(input),
+  gridBand: (input) => evaluateGridBandForRequest(input),
   design: (input, progress) => runDesign({ ...input, onProgress: progress }),
   designWithBasis: async (input, progress) => {
     let basis: DesignBasis | null = null;

@@ -3,8 +3,8 @@
  * field engine, check its numbers and shape the answer. No hydraulics here — the engine in
  * `shared/field` computes every value; this only arranges them.
  */
-import { evaluateGrid, evaluatePoints } from '../../shared/field';
-import type { GridSpec, ModelInfo, PointResult } from '../../shared/field';
+import { evaluateGrid, evaluateGridBand, evaluatePoints } from '../../shared/field';
+import type { GridBand, GridResult, GridSpec, ModelInfo, PointResult } from '../../shared/field';
 import { DrydigError, findScenarioWarnings, summariseIssues, type Scenario } from '../../shared/schema';
 import type { EvaluateResponse } from '../request-schemas';
 import { encodeFlagRuns } from './flag-runs';
@@ -55,12 +55,57 @@ function assertFinitePoint(p: PointResult): void {
 const SCENARIO_ERROR_CODES = new Set(['DRYDIG_ERR_INVALID_SCENARIO', 'DRYDIG_ERR_UNSUPPORTED_BOUNDARIES']);
 
 /** Re-throws an engine DrydigError about the scenario with its field paths placed inside the caller's document. */
-function relocateEngineError(error: unknown, scenarioPath: string): never {
+export function relocateEngineError(error: unknown, scenarioPath: string): never {
   if (error instanceof DrydigError && scenarioPath !== '' && SCENARIO_ERROR_CODES.has(error.code) && error.issues.length > 0) {
     const issues = error.issues.map((i) => ({ path: `${scenarioPath}${i.path}`, message: i.message }));
     throw new DrydigError(error.code, summariseIssues(issues), issues);
   }
   throw error;
+}
+
+type GridAnswer = NonNullable<EvaluateResponse['grids']>[number];
+
+/** One grid of the answer: drawdowns rounded to 0.1 mm, flags as runs; fails loudly on a non-finite value. */
+export function gridAnswer(scenario: Scenario, grid: GridSpec, time_s: number | null, result: Pick<GridResult, 'drawdown_m' | 'flags' | 'flagCounts' | 'time_s'>): GridAnswer {
+  const drawdown_m = new Array<number>(result.drawdown_m.length);
+  for (let k = 0; k < result.drawdown_m.length; k++) {
+    const value = result.drawdown_m[k] ?? Number.NaN;
+    if (!Number.isFinite(value)) {
+      const nx = grid.counts[0];
+      throw new DrydigError('DRYDIG_ERR_INTERNAL', `the engine returned a non-finite drawdown at grid node (${k % nx}, ${Math.floor(k / nx)}), ${describeTime(time_s)}`);
+    }
+    drawdown_m[k] = roundGridDrawdown(value);
+  }
+  return {
+    grid: {
+      origin: [grid.origin[0], grid.origin[1]],
+      spacing_m: [grid.spacing_m[0], grid.spacing_m[1]],
+      counts: [grid.counts[0], grid.counts[1]],
+    },
+    time_s: result.time_s,
+    staticLevel_m: scenario.aquifer.staticLevel_m,
+    drawdown_m,
+    flags: { ...result.flagCounts },
+    flagMask: { encoding: 'runs', runs: encodeFlagRuns(result.flags) },
+  };
+}
+
+/** What one band of a split grid evaluation takes (plain data, for a worker thread). */
+export interface GridBandRequest {
+  scenario: Scenario;
+  grid: GridSpec;
+  time_s: number | null;
+  rows: readonly [number, number];
+  scenarioPath?: string;
+}
+
+/** One band of rows, with scenario errors placed in the caller's document as `runEvaluation` does. */
+export function evaluateGridBandForRequest(request: GridBandRequest): GridBand {
+  try {
+    return evaluateGridBand({ scenario: request.scenario, grid: request.grid, time_s: request.time_s }, request.rows);
+  } catch (error) {
+    relocateEngineError(error, request.scenarioPath ?? '');
+  }
 }
 
 /**
@@ -88,27 +133,7 @@ export function runEvaluation(options: RunEvaluationOptions): EvaluateResponse {
       }
       if (grid) {
         const result = evaluateGrid({ scenario, grid, time_s });
-        const drawdown_m = new Array<number>(result.drawdown_m.length);
-        for (let k = 0; k < result.drawdown_m.length; k++) {
-          const value = result.drawdown_m[k] ?? Number.NaN;
-          if (!Number.isFinite(value)) {
-            const nx = grid.counts[0];
-            throw new DrydigError('DRYDIG_ERR_INTERNAL', `the engine returned a non-finite drawdown at grid node (${k % nx}, ${Math.floor(k / nx)}), ${describeTime(time_s)}`);
-          }
-          drawdown_m[k] = roundGridDrawdown(value);
-        }
-        grids.push({
-          grid: {
-            origin: [grid.origin[0], grid.origin[1]],
-            spacing_m: [grid.spacing_m[0], grid.spacing_m[1]],
-            counts: [grid.counts[0], grid.counts[1]],
-          },
-          time_s: result.time_s,
-          staticLevel_m: scenario.aquifer.staticLevel_m,
-          drawdown_m,
-          flags: { ...result.flagCounts },
-          flagMask: { encoding: 'runs', runs: encodeFlagRuns(result.flags) },
-        });
+        grids.push(gridAnswer(scenario, grid, time_s, result));
         model ??= result.model;
       }
       if (!model) {

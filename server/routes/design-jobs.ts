@@ -67,7 +67,7 @@ export const designJobRoutes: FastifyPluginAsync<{ security?: SecurityOptions }>
       const signal = job.controller.signal;
       // The job outlives the request: it runs on the app's pool with its own signal, not the request's.
       void runDesignOnPool({
-        runner: { run: (task, input, runOptions = {}) => pool.run(task, input, { client, ...runOptions, signal }) },
+        runner: { threadsPerClient: pool.threadsPerClient, run: (task, input, runOptions = {}) => pool.run(task, input, { client, ...runOptions, signal }) },
         input: designTaskInput(request.body),
         lane: designLane(request.body),
         concurrency: Math.max(1, pool.threads),

@@ -7,6 +7,7 @@
 import type { FastifyPluginAsync } from 'fastify';
 import { DrydigError, parseScenario, type Scenario } from '../../shared/schema';
 import { checkEvaluateWork, currentCompute, DEFAULT_MAX_WORK, isQuickEvaluate } from '../compute';
+import { gridSplitWork, MIN_SPLIT_WORK, runEvaluationInBands } from '../evaluation';
 import { computeRateLimit, type SecurityOptions } from '../security';
 import {
   buildEvaluateRequestSchema,
@@ -93,14 +94,18 @@ export const evaluateRoutes: FastifyPluginAsync<EvaluateRoutesOptions> = async (
       checkRequestSize(request.body, limits);
       checkEvaluateWork(request.body, options.maxWork ?? DEFAULT_MAX_WORK);
       const scenario: Scenario = request.body.scenario;
-      // On the compute pool: a large grid never holds the event loop.
-      return currentCompute().run('evaluate', {
-        scenario,
-        points: request.body.points,
-        grid: request.body.grid,
-        times_s: request.body.times_s,
-        scenarioPath: '/scenario',
-      }, isQuickEvaluate(request.body) ? { lane: 'quick' } : {});
+      // On the compute pool: a large grid never holds the event loop. A large grid is split into
+      // bands of rows over the threads this client may hold (the others stay free for others).
+      const compute = currentCompute();
+      const input = { scenario, points: request.body.points, grid: request.body.grid, times_s: request.body.times_s, scenarioPath: '/scenario' };
+      const lane = isQuickEvaluate(request.body) ? { lane: 'quick' as const } : {};
+      const bands = gridSplitWork(input) >= MIN_SPLIT_WORK ? compute.threadsPerClient : 1;
+      if (bands <= 1) return compute.run('evaluate', input, lane);
+      return runEvaluationInBands(input, {
+        bands,
+        runPoints: (options) => compute.run('evaluate', options, lane),
+        runBand: (band) => compute.run('gridBand', band, lane),
+      });
     },
   );
 };

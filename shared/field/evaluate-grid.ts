@@ -26,20 +26,44 @@ export function checkGridSpec(grid: GridSpec): void {
   if (nodes > MAX_GRID_NODES) bad('/grid/counts', `${nodes} nodes exceed the limit of ${MAX_GRID_NODES}`, 'DRYDIG_ERR_GRID_TOO_LARGE');
 }
 
+/** One band of grid rows: values for rows j0 … j1−1 only (row-major within the band). */
+export interface GridBand {
+  rows: readonly [number, number];
+  drawdown_m: Float64Array;
+  level_m: Float64Array;
+  flags: Uint8Array;
+  flagCounts: GridResult['flagCounts'];
+  time_s: number | null;
+  model: GridResult['model'];
+}
+
 /**
  * Level and drawdown on a regular grid at one time (the hot path behind contour maps).
  * Same model, flags and conventions as {@link evaluatePoints}; values row-major, j·nx + i.
  *
  * @throws DrydigError naming the field for an unusable scenario, grid or time
  */
-export function evaluateGrid({ scenario, grid, time_s }: EvaluateGridOptions): GridResult {
+export function evaluateGrid(options: EvaluateGridOptions): GridResult {
+  const { grid } = options;
+  const band = evaluateGridBand(options, [0, grid.counts[1]]);
+  return { grid, time_s: band.time_s, drawdown_m: band.drawdown_m, level_m: band.level_m, flags: band.flags, flagCounts: band.flagCounts, model: band.model };
+}
+
+/**
+ * Rows j0 … j1−1 of {@link evaluateGrid}, bit for bit: nodes keep the whole grid's coordinates
+ * (origin + j·spacing) and the kernel's chunks are sized for the whole grid, so bands evaluated
+ * apart (one per thread) and put together equal the whole-grid evaluation exactly.
+ */
+export function evaluateGridBand({ scenario, grid, time_s, kernel }: EvaluateGridOptions, rows: readonly [number, number]): GridBand {
   checkGridSpec(grid);
+  const [nx, ny] = grid.counts;
+  const j0 = Math.max(0, Math.min(ny, Math.floor(rows[0])));
+  const j1 = Math.max(j0, Math.min(ny, Math.floor(rows[1])));
   const field = prepareField({ scenario, time_s });
   const { model, sources, geometry } = field;
-  const sums = superposeOnGrid(sources, grid);
-  if (field.penetration) addPartialPenetrationOnGrid(field.penetration, sources, grid, sums.value);
-  const [nx, ny] = grid.counts;
-  const n = nx * ny;
+  const sums = superposeOnGrid(sources, grid, { rows: [j0, j1], ...(kernel ? { kernel } : {}) });
+  if (field.penetration) addPartialPenetrationOnGrid(field.penetration, sources, grid, sums.value, [j0, j1]);
+  const n = nx * (j1 - j0);
   const drawdown = new Float64Array(n);
   const level = new Float64Array(n);
   const flags = new Uint8Array(n);
@@ -49,26 +73,27 @@ export function evaluateGrid({ scenario, grid, time_s }: EvaluateGridOptions): G
   const bounded = geometry.configuration !== 'none';
   const flagList = Object.keys(FLAG_BITS) as PointFlag[];
 
-  for (let j = 0; j < ny; j++) {
+  for (let j = j0; j < j1; j++) {
     const y = grid.origin[1] + j * grid.spacing_m[1];
     for (let i = 0; i < nx; i++) {
       const idx = j * nx + i;
+      const at = idx - j0 * nx;
       let bits: number;
       if (bounded && !isInsideBoundaries(geometry, grid.origin[0] + i * grid.spacing_m[0], y)) {
-        level[idx] = model.staticLevel_m;
-        drawdown[idx] = 0;
+        level[at] = model.staticLevel_m;
+        drawdown[at] = 0;
         bits = FLAG_BITS['beyond-boundary'];
       } else {
         interpretSum(model, sums.value[idx]!, out);
-        level[idx] = out.level_m;
-        drawdown[idx] = out.drawdown_m;
+        level[at] = out.level_m;
+        drawdown[at] = out.drawdown_m;
         bits = out.flagBits;
         if (sums.withinWell[idx] === 1) bits |= FLAG_BITS['within-well-radius'];
         if (steadyClipped && sums.reached[idx] === 0) bits |= FLAG_BITS['beyond-influence-radius'];
       }
-      flags[idx] = bits;
+      flags[at] = bits;
       if (bits !== 0) for (const f of flagList) if (bits & FLAG_BITS[f]) counts[f]++;
     }
   }
-  return { grid, time_s: model.time_s, drawdown_m: drawdown, level_m: level, flags, flagCounts: counts, model: field.info };
+  return { rows: [j0, j1], time_s: model.time_s, drawdown_m: drawdown, level_m: level, flags, flagCounts: counts, model: field.info };
 }

@@ -132,7 +132,7 @@ function tabulateCorrection(table: PenetrationTable, screen: readonly [number, n
  * points), from a table of f_s in ln r per distinct screen (the series per node would cost ten
  * times the rest of the grid).
  */
-export function addPartialPenetrationOnGrid(table: PenetrationTable, set: SourceSet, grid: GridSpec, value: Float64Array): void {
+export function addPartialPenetrationOnGrid(table: PenetrationTable, set: SourceSet, grid: GridSpec, value: Float64Array, rows: readonly [number, number] = [0, grid.counts[1]]): void {
   const [nx, ny] = grid.counts;
   const [ox, oy] = grid.origin;
   const [hx, hy] = grid.spacing_m;
@@ -156,8 +156,8 @@ export function addPartialPenetrationOnGrid(table: PenetrationTable, set: Source
     const reach = Math.sqrt(reach2);
     const sx = set.x[k]!;
     const sy = set.y[k]!;
-    const j0 = Math.max(0, Math.ceil((sy - reach - oy) / hy));
-    const j1 = Math.min(ny - 1, Math.floor((sy + reach - oy) / hy));
+    const j0 = Math.max(rows[0], Math.ceil((sy - reach - oy) / hy));
+    const j1 = Math.min(ny - 1, rows[1] - 1, Math.floor((sy + reach - oy) / hy));
     const i0 = Math.max(0, Math.ceil((sx - reach - ox) / hx));
     const i1 = Math.min(nx - 1, Math.floor((sx + reach - ox) / hx));
     const scale = set.amp[k]! * table.ampScale;

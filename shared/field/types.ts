@@ -90,6 +90,8 @@ export interface EvaluateGridOptions {
   grid: GridSpec;
   /** As in EvaluatePointsOptions. */
   time_s?: number | null;
+  /** Bench only: 'pairwise' runs the previous Theis kernel (one logarithm per pair) for the side-by-side figure. */
+  kernel?: 'grouped' | 'pairwise';
 }
 
 /** Grid values row-major: index = j·nx + i (j along y). */

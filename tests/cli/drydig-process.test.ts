@@ -85,6 +85,33 @@ describe('node bin/drydig.js evaluate', () => {
     expect(code).toBe(0);
   });
 
+  it('--threads splits a large grid over worker threads and prints the same answer to the last byte', async () => {
+    // 66 well points × 250 × 250 nodes: over the split threshold (server/evaluation/evaluation-in-bands.ts).
+    const grid = ['--grid', '-60,-60,0.7,0.6,250,250'];
+    const one = await drydig(['evaluate', 'site.json', ...grid, '--threads', '1']);
+    const two = await drydig(['evaluate', 'site.json', ...grid, '--threads', '2']);
+    const three = await drydig(['evaluate', 'site.json', ...grid, '--threads', '3']);
+    expect(one.code, one.stderr).toBe(0);
+    expect(two.code, two.stderr).toBe(0);
+    expect(JSON.parse(one.stdout).grids[0].drawdown_m).toHaveLength(250 * 250);
+    expect(two.stdout).toBe(one.stdout);
+    expect(three.stdout).toBe(one.stdout);
+    const bad = await drydig(['evaluate', 'site.json', ...grid, '--threads', '0']);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr.trim()).toBe('DRYDIG_ERR_CLI_USAGE: --threads must be a whole number from 1 to 256 (got "0")');
+  }, 120_000);
+
+  it('runs the same from the TypeScript sources as from the build (DRYDIG_CLI=source)', async () => {
+    const args = ['evaluate', 'site.json', '--points', '20,10;45,10', '--grid', '-60,-60,5,5,30,30'];
+    const built = await drydig(args);
+    const source = await new Promise<{ code: number; stdout: string }>((resolve) => {
+      execFile(process.execPath, [bin, ...args], { cwd: dir, timeout: 60_000, env: { ...process.env, DRYDIG_CLI: 'source' } }, (error, stdout) =>
+        resolve({ code: error ? 1 : 0, stdout }));
+    });
+    expect(source.code).toBe(0);
+    expect(source.stdout).toBe(built.stdout);
+  }, 120_000);
+
   it('--help exits 0 with the usage on stdout', async () => {
     const { code, stdout } = await drydig(['--help']);
     expect(code).toBe(0);

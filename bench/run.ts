@@ -48,6 +48,7 @@ const OTHER_BENCHES: ReadonlyArray<readonly [string, string]> = [
   ['section.ts', 'runSectionBench'],
   ['monte-carlo.ts', 'runMonteCarloBench'],
   ['health-under-load.ts', 'runHealthUnderLoadBench'],
+  ['client-drag.ts', 'runClientDragBench'],
 ];
 
 async function runOptionalBench(file: string, entry: string): Promise<void> {

@@ -1,7 +1,8 @@
 /**
  * <drydig-app>: the plan-map page. Owns the scenario store (undo/redo), the engine worker client
  * and the view state, lays out the map and the panels, and turns map gestures into edits.
- * Results are recomputed off the main thread: a coarse grid at once while dragging, a fine grid
+ * Results are recomputed off the main thread: while dragging, the fine grid updated well by well in
+ * the worker (or a coarse grid where that cannot be done); a fine grid
  * shortly after the last change, stale jobs cancelled.
  */
 import { html, nothing } from 'lit';
@@ -89,21 +90,37 @@ const TOOLS: Array<[MapTool, string, string]> = [
 const COARSE_NODES_START = 40;
 const COARSE_NODES_MIN = 24;
 const COARSE_NODES_MAX = 80;
-const FINE_NODES = 150;
+/** Fine grid nodes on the longer side; `?gridNodes=N` (40–400) sets another (the drag bench uses 200). */
+const FINE_NODES = urlNumber('gridNodes', 150, 40, 400);
 /** Worker time a drag frame should take, ms: the coarse grid adapts to stay near it. */
 const COARSE_TARGET_MS = 20;
+/**
+ * Drag frames draw the fine grid, kept in the worker and updated well by well (incremental
+ * superposition); `?drag=coarse` brings back the old coarse full grid (the drag bench's "before").
+ * A scenario that cannot be updated well by well (partially penetrating wells, say) falls back to
+ * the coarse grid after two slow full frames.
+ */
+const DRAG_INCREMENTAL = typeof location === 'undefined' || new URLSearchParams(location.search).get('drag') !== 'coarse';
+
+function urlNumber(name: string, fallback: number, min: number, max: number): number {
+  if (typeof location === 'undefined') return fallback;
+  const v = Number(new URLSearchParams(location.search).get(name));
+  return Number.isFinite(v) && v >= min && v <= max ? Math.round(v) : fallback;
+}
 
 /** The read-only test hook (`window.__drydig`): counts and state, never a way to edit. */
 export interface DrydigTestHook {
   scenario(): Scenario;
   result(): {
     id: number; levels: number; time_s: number | null; colourMax_m: number; drawdownMax_m: number;
+    /** The grid the result was computed on. */
+    grid: { origin: [number, number]; spacing_m: [number, number]; counts: [number, number] };
     shortfall: Array<{ id: string; met: boolean; kind: string; worstShortfall_m: number; area_m2: number; time_s: number | null }>;
   } | null;
   pagePoint(x: number, y: number): { x: number; y: number } | null;
   latencies_ms: number[];
   /** Worker compute time of each result drawn, ms, with its kind. */
-  computes: Array<{ mode: 'coarse' | 'fine'; compute_ms: number; at: number }>;
+  computes: Array<{ mode: 'coarse' | 'fine'; compute_ms: number; at: number; nodes: number; incremental: boolean }>;
   fieldsDrawn: number;
   busy(): boolean;
   /** True while the plan shows a result that does not belong to the current inputs (greyed). */
@@ -163,6 +180,9 @@ export class DrydigApp extends LightElement {
   private loadGeneration = 0;
   /** Current coarse-grid size, adapted to the measured worker time (machine speed, well count). */
   private coarseNodes = COARSE_NODES_START;
+  /** Drag frames on the fine grid, well by well (off after two slow full frames, until the next commit). */
+  private dragIncremental = DRAG_INCREMENTAL;
+  private slowFullDragFrames = 0;
   private engineKey = '';
   private pickingRef: 0 | 1 | null = null;
   private projection: SiteProjection | ProjectionProblem | null = null;
@@ -200,6 +220,7 @@ export class DrydigApp extends LightElement {
       result: () => this.result && {
         id: this.result.id, levels: this.result.levels.length, time_s: this.result.time_s,
         colourMax_m: this.result.colourMax_m, drawdownMax_m: this.result.drawdownRange.max,
+        grid: { origin: [...this.result.grid.origin], spacing_m: [...this.result.grid.spacing_m], counts: [...this.result.grid.counts] },
         shortfall: this.result.shortfall.map((s) => ({ id: s.id, met: s.met, kind: s.kind, worstShortfall_m: s.worstShortfall_m, area_m2: s.area_m2, time_s: s.time_s })),
       },
       pagePoint: (x, y) => this.controller?.pagePoint(x, y) ?? null,
@@ -290,6 +311,8 @@ export class DrydigApp extends LightElement {
     }
     this.scenario = s;
     this.cursor = '';
+    this.dragIncremental = DRAG_INCREMENTAL;
+    this.slowFullDragFrames = 0;
     if (kind === 'load') {
       this.loadGeneration++;
       this.newWellScreen = null;
@@ -383,21 +406,28 @@ export class DrydigApp extends LightElement {
     }
     const issuedAt = performance.now();
     const generation = this.loadGeneration;
-    const grid = c.viewGrid(mode === 'coarse' ? this.coarseNodes : FINE_NODES);
+    const incremental = mode === 'coarse' && this.dragIncremental;
+    const coarse = mode === 'coarse' && !incremental;
+    const grid = c.viewGrid(coarse ? this.coarseNodes : FINE_NODES);
     const view = getViewSettings(this.scenario);
     try {
       const res = await engine.field(
         {
           scenario: this.store.scenario, grid, time_s: this.time_s, quantity: this.quantity, step_m: view.contour?.step_m,
           levelUnit_m: toSi(1, this.units.length),
-          pitNodes: mode === 'coarse' ? 17 : 41, strips: mode === 'coarse' ? 1 : 6,
+          pitNodes: coarse ? 17 : 41, strips: mode === 'coarse' ? 1 : 6,
+          ...(incremental ? { incremental: true } : {}),
           // One colour scale along the time slider: the design time's drawdown range.
           ...(this.times.length > 1 ? { scaleTime_s: this.scenario.design.time_s } : {}),
         },
         mode === 'fine' ? (f) => (this.computing = f < 1 ? f : -1) : undefined,
       );
       if (mode === 'fine') this.computing = -1;
-      if (res && mode === 'coarse') {
+      if (res && incremental) {
+        this.slowFullDragFrames = res.incremental === false && res.compute_ms > 2 * COARSE_TARGET_MS ? this.slowFullDragFrames + 1 : 0;
+        if (this.slowFullDragFrames >= 2) this.dragIncremental = false;
+      }
+      if (res && coarse) {
         // Work grows with nodes (∝ n²): scale n by √(target / measured), damped, within bounds.
         const factor = Math.sqrt(COARSE_TARGET_MS / Math.max(res.compute_ms, 1));
         const next = this.coarseNodes * Math.min(1.25, Math.max(0.7, factor));
@@ -409,7 +439,7 @@ export class DrydigApp extends LightElement {
       this.result = res;
       c.setField(res, this.fieldStyle(res));
       this.hook.fieldsDrawn++;
-      this.hook.computes.push({ mode, compute_ms: res.compute_ms, at: performance.now() });
+      this.hook.computes.push({ mode, compute_ms: res.compute_ms, at: performance.now(), nodes: res.grid.counts[0] * res.grid.counts[1], incremental: res.incremental === true });
       // Latency of the oldest input this result reflects (inputs before the request was issued);
       // inputs dropped with a superseded request are counted in the next result drawn.
       const reflected = this.unshownInputs.filter((t) => t <= issuedAt);

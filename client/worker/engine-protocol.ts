@@ -35,6 +35,11 @@ export interface FieldRequest {
    * same at every time on the slider. Absent: the result's own range.
    */
   scaleTime_s?: number | null;
+  /**
+   * A drag frame: keep each grid (view, colour-scale, excavations) in the worker and replace only
+   * the changed wells' shares (shared/field/incremental-grid.ts). Default false: a full evaluation.
+   */
+  incremental?: boolean;
 }
 
 /** Level and drawdown against time at one point. */
@@ -145,6 +150,8 @@ export interface FieldResult {
   shortfall: ExcavationShortfall[];
   /** Worker-side compute time, ms. */
   compute_ms: number;
+  /** A drag frame whose grids were all updated well by well (false: at least one in full). */
+  incremental?: boolean;
 }
 
 export interface InspectResult {

@@ -2,7 +2,7 @@
  * What the engine worker computes, as plain async functions (so tests run them in Node too).
  * All hydraulics come from `shared/field`; this file only samples, contours and summarises.
  */
-import { evaluateGrid, evaluatePoints, evaluateSeries } from '../../shared/field';
+import { evaluateGrid, evaluatePoints, evaluateSeries, IncrementalGrid } from '../../shared/field';
 import { FLAG_BITS, type GridResult, type GridSpec, type PointFlag } from '../../shared/field/types';
 import { contourExcess, contourGrid, contourMask, niceContourLevels } from '../../shared/contours';
 import { getPolygonArea, isPointInPolygon, openRing } from '../../shared/geometry';
@@ -66,6 +66,34 @@ export async function evaluateGridInStrips(
   return { grid, time_s, drawdown_m: drawdown, level_m: level, flags, flagCounts, model: model! };
 }
 
+/** Grids kept for drag frames (view, colour scale, each excavation), most recent last. */
+const keptGrids = new Map<string, IncrementalGrid>();
+const KEPT_GRIDS = 12;
+
+/** The kept grid for (grid, time), made on first use; the oldest is dropped past KEPT_GRIDS. */
+function keptGrid(grid: GridSpec, time_s: number | null | undefined): IncrementalGrid {
+  const key = JSON.stringify([grid.origin, grid.spacing_m, grid.counts, time_s === undefined ? 'design' : time_s]);
+  let kept = keptGrids.get(key);
+  if (kept) keptGrids.delete(key);
+  else kept = new IncrementalGrid(grid, time_s);
+  keptGrids.set(key, kept);
+  while (keptGrids.size > KEPT_GRIDS) keptGrids.delete(keptGrids.keys().next().value!);
+  return kept;
+}
+
+/** Evaluates grids for one job: in full, or (a drag frame) on kept grids well by well, noting whether every grid was incremental. */
+class GridEvaluator {
+  allIncremental = true;
+  constructor(private readonly incremental: boolean) {}
+  evaluate(scenario: Scenario, grid: GridSpec, time_s: number | null | undefined): GridResult {
+    if (!this.incremental) return evaluateGrid({ scenario, grid, time_s });
+    const kept = keptGrid(grid, time_s);
+    const result = kept.evaluate(scenario);
+    if (kept.stats.mode !== 'incremental') this.allIncremental = false;
+    return result;
+  }
+}
+
 function finiteRange(values: ArrayLike<number>): { min: number; max: number } {
   let min = Infinity;
   let max = -Infinity;
@@ -100,7 +128,7 @@ function edgeSamples(outline: ReadonlyArray<readonly [number, number]>, step_m: 
  * The target is the governing one of the pit-floor check (shared/floor, as the design uses it):
  * the dry level, or the head the uplift / heave check allows under the floor.
  */
-export function getExcavationShortfall(scenario: Scenario, excavation: Excavation, pitNodes = 41, time_s: number | null = scenario.design.time_s): ExcavationShortfall {
+export function getExcavationShortfall(scenario: Scenario, excavation: Excavation, pitNodes = 41, time_s: number | null = scenario.design.time_s, grids: GridEvaluator = new GridEvaluator(false)): ExcavationShortfall {
   const floorOptions = resolveFloorOptions((scenario as { designOptions?: { floor?: Parameters<typeof resolveFloorOptions>[0] } }).designOptions?.floor);
   const floor = excavationFloor(scenario, excavation, floorOptions);
   const target = floor.target.targetLevel_m;
@@ -116,7 +144,7 @@ export function getExcavationShortfall(scenario: Scenario, excavation: Excavatio
     spacing_m: [spacing, spacing],
     counts: [Math.max(2, Math.ceil(w / spacing) + 1), Math.max(2, Math.ceil(h / spacing) + 1)],
   };
-  const g = evaluateGrid({ scenario, grid, time_s });
+  const g = grids.evaluate(scenario, grid, time_s);
   const excess = contourExcess({ values: g.level_m, grid, threshold: target, outline: excavation.outline });
   let worst = excess.peak ? { x: excess.peak.x, y: excess.peak.y, level_m: excess.peak.excess + target } : { x: minX, y: minY, level_m: -Infinity };
   const flagBits = new Set<PointFlag>();
@@ -168,7 +196,8 @@ const MAX_CONTOUR_LEVELS = 60;
 /** Contours, flag outlines and shortfall for a FieldRequest. */
 export async function runFieldJob(req: FieldRequest, hooks: JobHooks = {}): Promise<FieldResult> {
   const started = performance.now();
-  const g = await evaluateGridInStrips(req.scenario, req.grid, req.time_s, req.strips ?? 1, hooks);
+  const grids = new GridEvaluator(req.incremental === true);
+  const g = req.incremental ? grids.evaluate(req.scenario, req.grid, req.time_s) : await evaluateGridInStrips(req.scenario, req.grid, req.time_s, req.strips ?? 1, hooks);
   const values = req.quantity === 'level' ? g.level_m : g.drawdown_m;
   const modelled = (arr: Float64Array) => (g.flagCounts['beyond-boundary'] > 0 ? arr.map((v, k) => (g.flags[k]! & FLAG_BITS['beyond-boundary'] ? Number.NaN : v)) : arr);
   const range = finiteRange(modelled(values));
@@ -190,12 +219,12 @@ export async function runFieldJob(req: FieldRequest, hooks: JobHooks = {}): Prom
     if (m.count > 0) flagAreas.push({ flag, count: m.count, coordinates: m.coordinates });
   }
   if (hooks.isCancelled?.()) throw new JobCancelled();
-  const shortfall = req.scenario.excavations.map((e) => getExcavationShortfall(req.scenario, e, req.pitNodes ?? 41, req.time_s));
+  const shortfall = req.scenario.excavations.map((e) => getExcavationShortfall(req.scenario, e, req.pitNodes ?? 41, req.time_s, grids));
   // One colour scale across times: the drawdown range at the scale time (same grid).
   let colourMax_m = drawdownRange.max;
   const scaled = req.scaleTime_s !== undefined && req.scaleTime_s !== req.time_s;
   if (scaled) {
-    const gs = evaluateGrid({ scenario: req.scenario, grid: req.grid, time_s: req.scaleTime_s! });
+    const gs = grids.evaluate(req.scenario, req.grid, req.scaleTime_s!);
     colourMax_m = finiteRange(modelled(gs.drawdown_m)).max;
   }
   return {
@@ -216,6 +245,7 @@ export async function runFieldJob(req: FieldRequest, hooks: JobHooks = {}): Prom
     model: g.model,
     shortfall,
     compute_ms: performance.now() - started,
+    ...(req.incremental ? { incremental: grids.allIncremental } : {}),
   };
 }
 

@@ -1,7 +1,7 @@
 import { DrydigError } from '../schema';
 import { isInsideBoundaries } from './image-wells';
 import { emptyFlagCounts, interpretSum, type InterpretedSum } from './interpret-sum';
-import { prepareField } from './prepare-field';
+import { prepareField, type PreparedField } from './prepare-field';
 import { superposeOnGrid } from './superpose';
 import { addPartialPenetrationOnGrid } from './partial-penetration-sum';
 import { FLAG_BITS, type EvaluateGridOptions, type GridResult, type GridSpec, type PointFlag } from './types';
@@ -56,23 +56,43 @@ export function evaluateGrid(options: EvaluateGridOptions): GridResult {
  */
 export function evaluateGridBand({ scenario, grid, time_s, kernel }: EvaluateGridOptions, rows: readonly [number, number]): GridBand {
   checkGridSpec(grid);
-  const [nx, ny] = grid.counts;
+  const ny = grid.counts[1];
   const j0 = Math.max(0, Math.min(ny, Math.floor(rows[0])));
   const j1 = Math.max(j0, Math.min(ny, Math.floor(rows[1])));
   const field = prepareField({ scenario, time_s });
-  const { model, sources, geometry } = field;
+  const { sources } = field;
   const sums = superposeOnGrid(sources, grid, { rows: [j0, j1], ...(kernel ? { kernel } : {}) });
   if (field.penetration) addPartialPenetrationOnGrid(field.penetration, sources, grid, sums.value, [j0, j1]);
+  return interpretGridBand({ field, grid, rows: [j0, j1], value: sums.value, withinWell: sums.withinWell, reached: sums.reached });
+}
+
+/** What {@link interpretGridBand} reads: the prepared field and the whole grid's sums. */
+export interface InterpretGridBandOptions {
+  field: PreparedField;
+  grid: GridSpec;
+  rows: readonly [number, number];
+  /** Σ of the sources per node of the whole grid (row-major). */
+  value: ArrayLike<number>;
+  /** > 0 where a real well's face covers the node. */
+  withinWell: ArrayLike<number>;
+  /** > 0 where a source reached the node (read for Thiem only). */
+  reached: ArrayLike<number>;
+}
+
+/** Level, drawdown and flags of rows j0 … j1−1 from the summed sources (evaluateGrid and the incremental grid share it). */
+export function interpretGridBand({ field, grid, rows, value, withinWell, reached }: InterpretGridBandOptions): GridBand {
+  const { model, sources, geometry } = field;
+  const [nx] = grid.counts;
+  const [j0, j1] = rows;
   const n = nx * (j1 - j0);
   const drawdown = new Float64Array(n);
   const level = new Float64Array(n);
   const flags = new Uint8Array(n);
-  const counts = emptyFlagCounts();
   const out: InterpretedSum = { level_m: 0, drawdown_m: 0, flagBits: 0 };
   const steadyClipped = sources.kind === 'thiem' && sources.count > 0;
   const bounded = geometry.configuration !== 'none';
-  const flagList = Object.keys(FLAG_BITS) as PointFlag[];
-
+  // Nodes per flag mask (masks fit a byte): one increment per node, flags counted at the end.
+  const perMask = new Int32Array(256);
   for (let j = j0; j < j1; j++) {
     const y = grid.origin[1] + j * grid.spacing_m[1];
     for (let i = 0; i < nx; i++) {
@@ -84,16 +104,22 @@ export function evaluateGridBand({ scenario, grid, time_s, kernel }: EvaluateGri
         drawdown[at] = 0;
         bits = FLAG_BITS['beyond-boundary'];
       } else {
-        interpretSum(model, sums.value[idx]!, out);
+        interpretSum(model, value[idx]!, out);
         level[at] = out.level_m;
         drawdown[at] = out.drawdown_m;
         bits = out.flagBits;
-        if (sums.withinWell[idx] === 1) bits |= FLAG_BITS['within-well-radius'];
-        if (steadyClipped && sums.reached[idx] === 0) bits |= FLAG_BITS['beyond-influence-radius'];
+        if (withinWell[idx]! > 0) bits |= FLAG_BITS['within-well-radius'];
+        if (steadyClipped && reached[idx] === 0) bits |= FLAG_BITS['beyond-influence-radius'];
       }
       flags[at] = bits;
-      if (bits !== 0) for (const f of flagList) if (bits & FLAG_BITS[f]) counts[f]++;
+      perMask[bits]!++;
     }
+  }
+  const counts = emptyFlagCounts();
+  const flagList = Object.keys(FLAG_BITS) as PointFlag[];
+  for (let mask = 1; mask < 256; mask++) {
+    const c = perMask[mask]!;
+    if (c > 0) for (const f of flagList) if (mask & FLAG_BITS[f]) counts[f] += c;
   }
   return { rows: [j0, j1], time_s: model.time_s, drawdown_m: drawdown, level_m: level, flags, flagCounts: counts, model: field.info };
 }

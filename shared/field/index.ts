@@ -23,3 +23,4 @@ export * from './equivalent-well-boundaries';
 export * from './validity-wording';
 export * from './first-passage-time';
 export * from './steady-recovery';
+export * from './incremental-grid';

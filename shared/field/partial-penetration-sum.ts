@@ -132,14 +132,27 @@ function tabulateCorrection(table: PenetrationTable, screen: readonly [number, n
  * points), from a table of f_s in ln r per distinct screen (the series per node would cost ten
  * times the rest of the grid).
  */
-export function addPartialPenetrationOnGrid(table: PenetrationTable, set: SourceSet, grid: GridSpec, value: Float64Array, rows: readonly [number, number] = [0, grid.counts[1]]): void {
+/** The smallest well radius among the partially penetrating sources of `set`, m: where the grid's correction tables start. */
+export function penetrationTableStart(table: PenetrationTable, set: SourceSet): number {
+  let r2minAll = Infinity;
+  for (let k = 0; k < set.count; k++) if (table.screens[set.well[k]!]) r2minAll = Math.min(r2minAll, set.r2min[k]!);
+  return Math.sqrt(r2minAll);
+}
+
+/**
+ * Adds the partial-penetration corrections of `set`'s sources to `value` (rows j0 … j1−1).
+ * `rMin_m` is where the correction tables start (default: from `set` itself); the incremental
+ * grid passes the whole field's, so one well's share is tabulated exactly as in the whole sum.
+ */
+export function addPartialPenetrationOnGrid(
+  table: PenetrationTable, set: SourceSet, grid: GridSpec, value: Float64Array,
+  rows: readonly [number, number] = [0, grid.counts[1]], rMin_m: number = penetrationTableStart(table, set),
+): void {
   const [nx, ny] = grid.counts;
   const [ox, oy] = grid.origin;
   const [hx, hy] = grid.spacing_m;
   const tables = new Map<string, ReturnType<typeof tabulateCorrection>>();
-  let r2minAll = Infinity;
-  for (let k = 0; k < set.count; k++) if (table.screens[set.well[k]!]) r2minAll = Math.min(r2minAll, set.r2min[k]!);
-  const rMin = Math.sqrt(r2minAll);
+  const rMin = rMin_m;
   const rMax = Math.sqrt(table.reach2_m2);
   if (!(rMax > rMin)) return;
   for (let k = 0; k < set.count; k++) {

@@ -48,6 +48,12 @@ export interface LinearProgram {
   mipRelativeGap?: number;
   /** A known feasible point (one value per column) to start the MIP search from. */
   start?: number[];
+  /**
+   * HiGHS presolve. Default: on for a MIP, off for an LP — the design LPs are dense (every well
+   * acts on every row), presolve finds nothing to remove and took 40 % of a solve (300 wells ×
+   * 626 rows: 250 → 145 ms, the same optimum to the last printed digit; bench/design.ts).
+   */
+  presolve?: 'on' | 'off';
 }
 
 export type LinearProgramStatus = 'optimal' | 'infeasible' | 'unbounded' | 'time-limit' | 'error';
@@ -140,6 +146,7 @@ export function solveWithHighs(highs: Highs, problem: LinearProgram): LinearProg
     model.options.set({
       output_flag: false,
       time_limit: problem.timeLimit_s ?? 120,
+      presolve: problem.presolve ?? (integrality ? 'on' : 'off'),
       ...(integrality ? { mip_rel_gap: problem.mipRelativeGap ?? 1e-6 } : {}),
     });
     if (problem.start && problem.start.length === nCols) model.setSolution({ colValue: Float64Array.from(problem.start) });

@@ -33,7 +33,7 @@ const ms = (t0: number) => performance.now() - t0;
 const fmt = (v: number) => v.toFixed(0);
 
 /** Before this change: HiGHS presolve on for every LP (it is now off for the dense design LPs). */
-async function withPresolveOn<T>(fn: () => Promise<T>): Promise<T> {
+export async function withPresolveOn<T>(fn: () => Promise<T>): Promise<T> {
   const highs = await loadLinearSolver();
   const previous = setLinearProgramSolver(async (p) => solveWithHighs(highs, { ...p, presolve: 'on' }));
   try {

@@ -21,7 +21,7 @@
  */
 import { prepareField, type PreparedField } from './prepare-field';
 import type { SourceSet } from './source-set';
-import { superposeOnGrid } from './superpose';
+import { superposeOnGrid, visitNodesWithinWell } from './superpose';
 import { addPartialPenetrationOnGrid, penetrationTableStart } from './partial-penetration-sum';
 import { evaluateGrid, interpretGridBand } from './evaluate-grid';
 import type { GridResult, GridSpec } from './types';
@@ -122,25 +122,11 @@ function countFlags(set: SourceSet, grid: GridSpec, within: Int32Array, reached:
   const [nx, ny] = grid.counts;
   const [ox, oy] = grid.origin;
   const [hx, hy] = grid.spacing_m;
+  visitNodesWithinWell(set, grid, (node) => (within[node]! += sign));
+  if (set.kind !== 'thiem') return;
   for (let k = 0; k < set.count; k++) {
     const sx = set.x[k]!;
     const sy = set.y[k]!;
-    if (set.real[k] === 1) {
-      const r2min = set.r2min[k]!;
-      const rw = Math.sqrt(r2min);
-      const a0 = Math.max(0, Math.ceil((sy - rw - oy) / hy));
-      const a1 = Math.min(ny - 1, Math.floor((sy + rw - oy) / hy));
-      const b0 = Math.max(0, Math.ceil((sx - rw - ox) / hx));
-      const b1 = Math.min(nx - 1, Math.floor((sx + rw - ox) / hx));
-      for (let j = a0; j <= a1; j++) {
-        const dy = oy + j * hy - sy;
-        for (let i = b0; i <= b1; i++) {
-          const dx = ox + i * hx - sx;
-          if (dx * dx + dy * dy < r2min) within[j * nx + i]! += sign;
-        }
-      }
-    }
-    if (set.kind !== 'thiem') continue;
     const r2cut = set.r2cut[k]!;
     for (let j = 0; j < ny; j++) {
       const dy = oy + j * hy - sy;

@@ -254,8 +254,8 @@ function leakyRow(set: SourceSet, grid: GridSpec, j: number, value: Float64Array
   }
 }
 
-/** Marks nodes inside a real well's radius (a few nodes at most). */
-function markWithinWell(set: SourceSet, grid: GridSpec, withinWell: Uint8Array): void {
+/** Calls `visit` with each node inside a real source's well radius (a few nodes per well at most). */
+export function visitNodesWithinWell(set: SourceSet, grid: GridSpec, visit: (node: number) => void): void {
   const [nx, ny] = grid.counts;
   const [ox, oy] = grid.origin;
   const [hx, hy] = grid.spacing_m;
@@ -273,8 +273,13 @@ function markWithinWell(set: SourceSet, grid: GridSpec, withinWell: Uint8Array):
       const dy = oy + j * hy - sy;
       for (let i = b0; i <= b1; i++) {
         const dx = ox + i * hx - sx;
-        if (dx * dx + dy * dy < r2min) withinWell[j * nx + i] = 1;
+        if (dx * dx + dy * dy < r2min) visit(j * nx + i);
       }
     }
   }
+}
+
+/** Marks nodes inside a real well's radius. */
+function markWithinWell(set: SourceSet, grid: GridSpec, withinWell: Uint8Array): void {
+  visitNodesWithinWell(set, grid, (node) => (withinWell[node] = 1));
 }

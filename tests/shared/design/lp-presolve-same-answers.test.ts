@@ -9,21 +9,10 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { runDesign } from '../../../shared/design';
-import { loadLinearSolver, setLinearProgramSolver, solveWithHighs } from '../../../shared/design/linear-program';
 import type { Scenario } from '../../../shared/schema';
-import { makeDesignBenchScenario } from '../../../bench/design';
+import { makeDesignBenchScenario, withPresolveOn as presolveOn } from '../../../bench/design';
 
 const demo = (file: string) => JSON.parse(readFileSync(new URL(`../../../fixtures/${file}`, import.meta.url), 'utf8')) as Scenario;
-
-async function presolveOn<T>(fn: () => Promise<T>): Promise<T> {
-  const highs = await loadLinearSolver();
-  const previous = setLinearProgramSolver(async (p) => solveWithHighs(highs, { ...p, presolve: 'on' }));
-  try {
-    return await fn();
-  } finally {
-    setLinearProgramSolver(previous);
-  }
-}
 
 describe('design LPs without presolve', () => {
   it.each([

@@ -65,7 +65,7 @@ async function drain(): Promise<void> {
           isCancelled: () => cancelled.has(req.id),
           pause,
         });
-        post(result);
+        post(strips ? { ...result, stripWorkers: strips.size } : result);
       } else if (req.kind === 'inspect') {
         post(runInspectJob(req));
       } else if (req.kind === 'monitoring') {

@@ -120,7 +120,7 @@ export interface DrydigTestHook {
   pagePoint(x: number, y: number): { x: number; y: number } | null;
   latencies_ms: number[];
   /** Worker compute time of each result drawn, ms, with its kind. */
-  computes: Array<{ mode: 'coarse' | 'fine'; compute_ms: number; at: number; nodes: number; incremental: boolean }>;
+  computes: Array<{ mode: 'coarse' | 'fine'; compute_ms: number; at: number; nodes: number; incremental: boolean; stripWorkers: number }>;
   fieldsDrawn: number;
   busy(): boolean;
   /** True while the plan shows a result that does not belong to the current inputs (greyed). */
@@ -439,7 +439,7 @@ export class DrydigApp extends LightElement {
       this.result = res;
       c.setField(res, this.fieldStyle(res));
       this.hook.fieldsDrawn++;
-      this.hook.computes.push({ mode, compute_ms: res.compute_ms, at: performance.now(), nodes: res.grid.counts[0] * res.grid.counts[1], incremental: res.incremental === true });
+      this.hook.computes.push({ mode, compute_ms: res.compute_ms, at: performance.now(), nodes: res.grid.counts[0] * res.grid.counts[1], incremental: res.incremental === true, stripWorkers: res.stripWorkers ?? 1 });
       // Latency of the oldest input this result reflects (inputs before the request was issued);
       // inputs dropped with a superseded request are counted in the next result drawn.
       const reflected = this.unshownInputs.filter((t) => t <= issuedAt);

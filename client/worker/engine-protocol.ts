@@ -152,6 +152,8 @@ export interface FieldResult {
   compute_ms: number;
   /** A drag frame whose grids were all updated well by well (false: at least one in full). */
   incremental?: boolean;
+  /** Strip workers the view grid was split over (absent: computed in the engine worker alone). */
+  stripWorkers?: number;
 }
 
 export interface InspectResult {

@@ -1,13 +1,16 @@
 /**
  * The Web Worker that runs the shared engine off the main thread. Jobs run one at a time in
  * arrival order; a `cancel` message stops a queued job at once and a running field job at its
- * next strip boundary, so a drag never waits behind a stale fine grid.
+ * next strip boundary, so a drag never waits behind a stale fine grid. Full grids (the fine map)
+ * are split by rows over strip workers, one per core (navigator.hardwareConcurrency, at most
+ * MAX_STRIP_WORKERS), started on the first full grid; drag frames stay here (kept grids).
  */
 import { DrydigError } from '../../shared/schema';
 import type { EngineRequest, EngineResponse } from './engine-protocol';
 import { JobCancelled, runFieldJob, runInspectJob, runSectionJob } from './field-job';
 import { runMonitoringJob } from './monitoring-job';
 import { runSeepageJob } from './seepage-job';
+import { StripPool, stripWorkerCount } from './strip-pool';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 const queue: EngineRequest[] = [];
@@ -28,6 +31,22 @@ scope.onmessage = (event: MessageEvent<EngineRequest>) => {
   if (!running) void drain();
 };
 
+let pool: StripPool | null | undefined;
+
+/** The strip workers (null where this browser cannot start a worker from a worker, or has one core). */
+function stripPool(): StripPool | null {
+  if (pool !== undefined) return pool;
+  const count = stripWorkerCount(scope.navigator?.hardwareConcurrency);
+  try {
+    pool = count > 1 && typeof Worker === 'function'
+      ? new StripPool(Array.from({ length: count }, (_, k) => new Worker(new URL('./grid-strip-worker.ts', import.meta.url), { type: 'module', name: `drydig-strip-${k + 1}` })))
+      : null;
+  } catch {
+    pool = null;
+  }
+  return pool;
+}
+
 async function drain(): Promise<void> {
   running = true;
   while (queue.length > 0) {
@@ -39,12 +58,14 @@ async function drain(): Promise<void> {
     }
     try {
       if (req.kind === 'field') {
+        const strips = !req.incremental && (req.strips ?? 1) > 1 ? stripPool() : null;
         const result = await runFieldJob(req, {
+          ...(strips ? { parallel: { evaluate: strips.evaluate, strips: 2 * strips.size } } : {}),
           progress: (fraction) => post({ kind: 'progress', id: req.id, fraction }),
           isCancelled: () => cancelled.has(req.id),
           pause,
         });
-        post(result);
+        post(strips ? { ...result, stripWorkers: strips.size } : result);
       } else if (req.kind === 'inspect') {
         post(runInspectJob(req));
       } else if (req.kind === 'monitoring') {

@@ -19,6 +19,8 @@ export interface JobHooks {
   isCancelled?: () => boolean;
   /** Lets pending messages (a cancel) arrive between strips; default resolves at once. */
   pause?: () => Promise<void>;
+  /** Strip workers for full grid evaluations: every strip sent at once, at least `strips` of them. */
+  parallel?: { evaluate: StripEvaluator; strips: number };
 }
 
 /** Thrown out of a job that was cancelled part-way. */
@@ -30,40 +32,99 @@ export class JobCancelled extends Error {
 
 const FLAG_NAMES = Object.keys(FLAG_BITS) as PointFlag[];
 
-/** Evaluates the grid in row strips (progress and a cancel check between strips). */
+/**
+ * Evaluates one strip of rows elsewhere (a strip worker); resolves to the strip's grid result, or
+ * to null when `skip` says, as the strip's turn comes, that the job is no longer wanted.
+ */
+export type StripEvaluator = (scenario: Scenario, grid: GridSpec, time_s: number | null, skip?: () => boolean) => Promise<GridResult | null>;
+
+/** The row strips [j0, j1) of a grid with ny rows split n ways (empty strips left out). */
+function rowStrips(ny: number, n: number): Array<[number, number]> {
+  const out: Array<[number, number]> = [];
+  for (let s = 0; s < n; s++) {
+    const j0 = Math.floor((s * ny) / n);
+    const j1 = Math.floor(((s + 1) * ny) / n);
+    if (j1 > j0) out.push([j0, j1]);
+  }
+  return out;
+}
+
+/** The sub-grid of rows [j0, j1). */
+function stripGrid(grid: GridSpec, j0: number, j1: number): GridSpec {
+  return { origin: [grid.origin[0], grid.origin[1] + j0 * grid.spacing_m[1]], spacing_m: grid.spacing_m, counts: [grid.counts[0], j1 - j0] };
+}
+
+/** One grid result assembled from strip results (in any order), with the first strip's model. */
+class StripAssembly {
+  readonly drawdown: Float64Array;
+  readonly level: Float64Array;
+  readonly flags: Uint8Array;
+  readonly flagCounts = Object.fromEntries(FLAG_NAMES.map((f) => [f, 0])) as Record<PointFlag, number>;
+  private model: GridResult['model'] | undefined;
+  constructor(private readonly grid: GridSpec, private readonly time_s: number | null) {
+    const n = grid.counts[0] * grid.counts[1];
+    this.drawdown = new Float64Array(n);
+    this.level = new Float64Array(n);
+    this.flags = new Uint8Array(n);
+  }
+  add(j0: number, r: GridResult, first: boolean): void {
+    const at = j0 * this.grid.counts[0];
+    this.drawdown.set(r.drawdown_m, at);
+    this.level.set(r.level_m, at);
+    this.flags.set(r.flags, at);
+    for (const f of FLAG_NAMES) this.flagCounts[f] += r.flagCounts[f] ?? 0;
+    if (first || !this.model) this.model = r.model;
+  }
+  result(): GridResult {
+    return { grid: this.grid, time_s: this.time_s, drawdown_m: this.drawdown, level_m: this.level, flags: this.flags, flagCounts: this.flagCounts, model: this.model! };
+  }
+}
+
+/**
+ * Evaluates the grid in row strips (progress and a cancel check between strips). With
+ * `hooks.parallel` (strip workers, one per core) every strip is sent at once and the strips arrive in
+ * any order; each strip is the same sub-grid evaluation either way, so the result is bit for bit
+ * the one computed here (test: tests/client/worker/field-job-parallel.test.ts).
+ */
 export async function evaluateGridInStrips(
   scenario: Scenario, grid: GridSpec, time_s: number | null, strips: number, hooks: JobHooks = {},
 ): Promise<GridResult> {
-  const [nx, ny] = grid.counts;
-  const n = Math.max(1, Math.min(strips, ny));
-  if (n === 1) {
+  const [, ny] = grid.counts;
+  const parallel = hooks.parallel;
+  const n = Math.max(1, Math.min(parallel ? Math.max(strips, parallel.strips) : strips, ny));
+  if (n === 1 && !parallel) {
     const r = evaluateGrid({ scenario, grid, time_s });
     hooks.progress?.(1);
     return r;
   }
-  const drawdown = new Float64Array(nx * ny);
-  const level = new Float64Array(nx * ny);
-  const flags = new Uint8Array(nx * ny);
-  const flagCounts = Object.fromEntries(FLAG_NAMES.map((f) => [f, 0])) as Record<PointFlag, number>;
-  let model: GridResult['model'] | undefined;
-  for (let s = 0; s < n; s++) {
-    const j0 = Math.floor((s * ny) / n);
-    const j1 = Math.floor(((s + 1) * ny) / n);
-    if (j1 <= j0) continue;
-    const sub: GridSpec = { origin: [grid.origin[0], grid.origin[1] + j0 * grid.spacing_m[1]], spacing_m: grid.spacing_m, counts: [nx, j1 - j0] };
-    const r = evaluateGrid({ scenario, grid: sub, time_s });
-    drawdown.set(r.drawdown_m, j0 * nx);
-    level.set(r.level_m, j0 * nx);
-    flags.set(r.flags, j0 * nx);
-    for (const f of FLAG_NAMES) flagCounts[f] += r.flagCounts[f] ?? 0;
-    model ??= r.model;
-    hooks.progress?.((s + 1) / n);
-    if (s < n - 1) {
+  const parts = rowStrips(ny, n);
+  const out = new StripAssembly(grid, time_s);
+  if (parallel) {
+    let done = 0;
+    let cancelled = false;
+    await Promise.all(parts.map(async ([j0, j1], s) => {
+      const r = await parallel.evaluate(scenario, stripGrid(grid, j0, j1), time_s, () => cancelled || (hooks.isCancelled?.() ?? false));
+      if (!r || cancelled) {
+        cancelled = true;
+        return;
+      }
+      out.add(j0, r, s === 0);
+      hooks.progress?.(++done / parts.length);
+      if (done < parts.length && hooks.isCancelled?.()) cancelled = true;
+    }));
+    if (cancelled) throw new JobCancelled();
+    return out.result();
+  }
+  for (let s = 0; s < parts.length; s++) {
+    const [j0, j1] = parts[s]!;
+    out.add(j0, evaluateGrid({ scenario, grid: stripGrid(grid, j0, j1), time_s }), s === 0);
+    hooks.progress?.((s + 1) / parts.length);
+    if (s < parts.length - 1) {
       await hooks.pause?.();
       if (hooks.isCancelled?.()) throw new JobCancelled();
     }
   }
-  return { grid, time_s, drawdown_m: drawdown, level_m: level, flags, flagCounts, model: model! };
+  return out.result();
 }
 
 /** Grids kept for drag frames (view, colour scale, each excavation), most recent last. */

@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { evaluateGrid, type GridSpec } from '../../shared/field';
 import type { Scenario } from '../../shared/schema';
+import { stripWorkerCount } from '../../client/worker/strip-pool';
 import { fieldsDrawn, loadDemo, pagePoint, settle, usePlanMap, type BrowserSession } from './browser-harness';
 
 let s: BrowserSession;
@@ -21,7 +22,7 @@ usePlanMap((session) => {
 interface Hook {
   scenario(): Scenario;
   result(): { grid: GridSpec; drawdownMax_m: number; time_s: number | null } | null;
-  computes: Array<{ mode: string; nodes: number; incremental: boolean }>;
+  computes: Array<{ mode: string; nodes: number; incremental: boolean; stripWorkers: number }>;
 }
 const hook = (p: Page) => p.evaluate(() => {
   const h = (window as unknown as { __drydig: Hook }).__drydig;
@@ -63,6 +64,11 @@ describe('dragging a well on the fine grid', () => {
     for (let k = 0; k < full.drawdown_m.length; k++) if (!(full.flags[k]! & 1) && full.drawdown_m[k]! > max) max = full.drawdown_m[k]!;
     const fullMax = Math.max(...Array.from(full.drawdown_m));
     expect(Math.abs(r.drawdownMax_m - fullMax), `${r.drawdownMax_m} vs ${fullMax} (${max})`).toBeLessThanOrEqual(1e-9);
+    // The fine map after release is split over one strip worker per core (issue 15 item 2).
+    const cores = await page.evaluate(() => navigator.hardwareConcurrency);
+    const fine = after.computes.filter((c) => c.mode === 'fine');
+    expect(fine.length).toBeGreaterThan(0);
+    expect(fine.at(-1)!.stripWorkers).toBe(stripWorkerCount(cores));
     expect(s.errors).toEqual([]);
   });
 });

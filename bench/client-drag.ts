@@ -5,7 +5,9 @@
  * reflects). Prints p50 / p90 / p95 for 66 wells (the well-point demo) and 500 wells on a
  * 200 × 200 grid, BEFORE (`?drag=coarse`: a coarse grid evaluated in full per frame) and AFTER
  * (the fine grid kept in the worker and updated well by well), side by side. Goal: p90 ≤ 16 ms
- * for 500 wells.
+ * for 500 wells. Also the fine map after release (worker time, contours and shortfall included):
+ * before in the engine worker alone (`?stripWorkers=off`), after split over one strip worker per
+ * core.
  *
  * Run: npx tsx bench/client-drag.ts [--moves 120] [--interval 16] [--verbose]  (also part of
  * `npm run bench`). It builds the client, starts the real server on 127.0.0.1 (random port) and
@@ -49,7 +51,7 @@ function percentile(sorted: number[], p: number): number {
   return sorted[i]!;
 }
 
-interface DragFigures { frames: number; p50_ms: number; p90_ms: number; p95_ms: number; worker_median_ms: number; incremental_frames: number }
+interface DragFigures { frames: number; p50_ms: number; p90_ms: number; p95_ms: number; worker_median_ms: number; incremental_frames: number; fine_ms: number; strip_workers: number }
 
 /** One drag of one well across the pit and back, `MOVES` pointer moves `INTERVAL_MS` apart. */
 async function measureDrag(browser: Browser, port: number, scenario: Scenario, drag: 'coarse' | 'incremental'): Promise<DragFigures> {
@@ -63,7 +65,7 @@ async function measureDrag(browser: Browser, port: number, scenario: Scenario, d
       after, { timeout: 120_000, polling: 20 },
     );
     const drawn = () => page.evaluate(() => (window as unknown as { __drydig: { fieldsDrawn: number } }).__drydig.fieldsDrawn);
-    await page.goto(`http://127.0.0.1:${port}/?gridNodes=${GRID_NODES}${drag === 'coarse' ? '&drag=coarse' : ''}`);
+    await page.goto(`http://127.0.0.1:${port}/?gridNodes=${GRID_NODES}${drag === 'coarse' ? '&drag=coarse&stripWorkers=off' : ''}`);
     await waitIdle(0);
     let before = await drawn();
     await page.setInputFiles('input[name="open-scenario"]', { name: 'bench.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(scenario)) });
@@ -93,7 +95,8 @@ async function measureDrag(browser: Browser, port: number, scenario: Scenario, d
     await page.mouse.up();
     await waitIdle(before);
     const latencies = await page.evaluate(() => performance.getEntriesByName('dd-input-to-contours').map((e) => e.duration));
-    const computes = await page.evaluate(() => (window as unknown as { __drydig: { computes: Array<{ mode: string; compute_ms: number }> } }).__drydig.computes);
+    const computes = await page.evaluate(() => (window as unknown as { __drydig: { computes: Array<{ mode: string; compute_ms: number; stripWorkers: number }> } }).__drydig.computes);
+    const fine = computes.filter((c) => c.mode === 'fine').at(-1);
     const dragComputes = computes.filter((c) => c.mode === 'coarse').map((c) => c.compute_ms).sort((a, b) => a - b);
     if (process.argv.includes('--verbose')) console.log(JSON.stringify({ drag, latencies: latencies.map((v) => Math.round(v)), computes: computes.map((c) => `${c.mode[0]}${Math.round(c.compute_ms)}`) }));
     const sorted = latencies.slice().sort((a, b) => a - b);
@@ -101,6 +104,7 @@ async function measureDrag(browser: Browser, port: number, scenario: Scenario, d
     return {
       frames: sorted.length, p50_ms: round(percentile(sorted, 50)), p90_ms: round(percentile(sorted, 90)), p95_ms: round(percentile(sorted, 95)),
       worker_median_ms: round(percentile(dragComputes, 50)), incremental_frames: dragComputes.length,
+      fine_ms: round(fine?.compute_ms ?? Number.NaN), strip_workers: fine?.stripWorkers ?? 1,
     };
   } finally {
     await page.close();
@@ -123,12 +127,17 @@ export async function runClientDragBench(): Promise<string[]> {
   try {
     lines.push(`client drag (Chromium ${browser.version()}, ${os.cpus().length} cores, load ${os.loadavg()[0]!.toFixed(2)}): input → contours and shortfall flags, ${MOVES} moves ${INTERVAL_MS} ms apart; view grid ${GRID_NODES} nodes on the long side`);
     lines.push('  case                         before (coarse grid, full per frame)   after (fine grid, well by well)   p90 ratio');
+    const fineRows: Array<[string, DragFigures, DragFigures]> = [];
     for (const [label, wells] of [['66 wells (well-point demo)', null], ['500 wells', 500]] as const) {
       const scenario = benchScenario(wells);
       const b = await measureDrag(browser, port, scenario, 'coarse');
       const a = await measureDrag(browser, port, scenario, 'incremental');
       const fmt = (f: DragFigures) => `p50 ${f.p50_ms} / p90 ${f.p90_ms} ms (worker ${f.worker_median_ms} ms, ${f.frames} frames)`;
       lines.push(`  ${label.padEnd(28)} ${fmt(b).padEnd(38)} ${fmt(a).padEnd(33)} ${(b.p90_ms / a.p90_ms).toFixed(2)}×`);
+      fineRows.push([label, b, a]);
+    }
+    for (const [label, b, a] of fineRows) {
+      lines.push(`  ${label.padEnd(28)} fine map after release: ${b.fine_ms} ms in ${b.strip_workers} worker → ${a.fine_ms} ms over ${a.strip_workers} strip workers (${(b.fine_ms / a.fine_ms).toFixed(2)}×)`);
     }
     lines.push('  goal: p90 ≤ 16 ms for 500 wells on a 200 × 200 grid');
   } finally {

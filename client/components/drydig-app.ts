@@ -102,6 +102,9 @@ const COARSE_TARGET_MS = 20;
  */
 const DRAG_INCREMENTAL = typeof location === 'undefined' || new URLSearchParams(location.search).get('drag') !== 'coarse';
 
+/** `?stripWorkers=off` computes the fine grid in the engine worker alone (the drag bench's "before"). */
+const STRIP_WORKERS = typeof location === 'undefined' || new URLSearchParams(location.search).get('stripWorkers') !== 'off';
+
 function urlNumber(name: string, fallback: number, min: number, max: number): number {
   if (typeof location === 'undefined') return fallback;
   const v = Number(new URLSearchParams(location.search).get(name));
@@ -417,6 +420,7 @@ export class DrydigApp extends LightElement {
           levelUnit_m: toSi(1, this.units.length),
           pitNodes: coarse ? 17 : 41, strips: mode === 'coarse' ? 1 : 6,
           ...(incremental ? { incremental: true } : {}),
+          ...(STRIP_WORKERS ? {} : { stripWorkers: false }),
           // One colour scale along the time slider: the design time's drawdown range.
           ...(this.times.length > 1 ? { scaleTime_s: this.scenario.design.time_s } : {}),
         },

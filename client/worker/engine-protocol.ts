@@ -40,6 +40,11 @@ export interface FieldRequest {
    * the changed wells' shares (shared/field/incremental-grid.ts). Default false: a full evaluation.
    */
   incremental?: boolean;
+  /**
+   * Split a full grid over the strip workers (one per core). Default true; false computes it in
+   * the engine worker alone (`?stripWorkers=off`, the drag bench's "before").
+   */
+  stripWorkers?: boolean;
 }
 
 /** Level and drawdown against time at one point. */

@@ -58,7 +58,7 @@ async function drain(): Promise<void> {
     }
     try {
       if (req.kind === 'field') {
-        const strips = !req.incremental && (req.strips ?? 1) > 1 ? stripPool() : null;
+        const strips = !req.incremental && req.stripWorkers !== false && (req.strips ?? 1) > 1 ? stripPool() : null;
         const result = await runFieldJob(req, {
           ...(strips ? { parallel: { evaluate: strips.evaluate, strips: 2 * strips.size } } : {}),
           progress: (fraction) => post({ kind: 'progress', id: req.id, fraction }),
